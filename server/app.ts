@@ -1,0 +1,132 @@
+import path from 'node:path';
+import fs from 'node:fs';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import connectSessionSequelize from 'connect-session-sequelize';
+import helmet from 'helmet';
+import { rateLimit } from 'express-rate-limit';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config';
+import { loadUser, requireUser } from './middleware/auth';
+import { requireCsrf } from './middleware/csrf';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { Session } from './models/session';
+import { createAuthRouter } from './routes/auth';
+import { createCalcRouter } from './routes/calc';
+import { createHealthRouter } from './routes/health';
+import { createSetupsRouter } from './routes/setups';
+import { openApiDocument } from './openapi';
+import { LoginThrottle } from './services/login-throttle';
+import './session-types';
+
+/** Name of the session cookie (not the library's default). */
+export const SESSION_COOKIE = 'slantwise.sid';
+
+export interface AppDeps {
+  readonly config: AppConfig;
+  readonly sequelize: Sequelize;
+}
+
+export interface SlantwiseApp {
+  readonly app: Express;
+  /** Stops background timers (the session store's expiry sweep). */
+  close(): void;
+}
+
+/** Builds the Express app: API under /api, the built Angular app everywhere else. */
+export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.set('query parser', 'simple');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'base-uri': ["'self'"],
+          'form-action': ["'self'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+
+  const SequelizeStore = connectSessionSequelize(session.Store);
+  const store = new SequelizeStore({
+    db: sequelize,
+    table: 'Session',
+    checkExpirationInterval: 15 * 60_000,
+    expiration: config.sessionIdleMs,
+    extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { userId?: number }) => ({
+      data: defaults.data,
+      expires: defaults.expires,
+      userId: sess.userId ?? null,
+    }),
+  });
+
+  app.use('/api', express.json({ limit: '100kb' }));
+  app.use('/api/health', createHealthRouter(sequelize));
+  app.get('/api/openapi.json', (_req, res) => {
+    res.json(openApiDocument);
+  });
+
+  app.use(
+    '/api/calc',
+    rateLimit({
+      windowMs: 60_000,
+      limit: config.calcRateLimitPerMinute,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      handler: (_req, res) => {
+        res.status(429).json({ error: 'Too many calculation requests from this address; wait a minute and try again.' });
+      },
+    }),
+    createCalcRouter(),
+  );
+
+  app.use(
+    '/api',
+    session({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: config.trustProxy !== false ? true : undefined,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies ? true : 'auto', maxAge: config.sessionIdleMs, path: '/' },
+    }),
+  );
+
+  app.use('/api', requireCsrf(['/calc/']), loadUser);
+  app.use('/api/auth', createAuthRouter(new LoginThrottle({ limit: 8, windowMs: 10 * 60_000 })));
+  app.use('/api/setups', requireUser, createSetupsRouter());
+  app.use('/api', apiNotFound);
+
+  if (config.staticDir && fs.existsSync(config.staticDir)) {
+    const root = path.resolve(config.staticDir);
+    app.use(express.static(root, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.endsWith('index.html')) res.setHeader('Cache-Control', 'no-cache');
+    } }));
+    app.get('/{*path}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(root, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+
+  return {
+    app,
+    close: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions(),
+  };
+}

@@ -1,0 +1,51 @@
+import type { Server } from 'node:http';
+import type { Sequelize } from 'sequelize';
+import { createApp } from './app';
+import { loadConfig, type AppConfig } from './config';
+import { createSequelize } from './db';
+import { initModels } from './models';
+
+export interface RunningServer {
+  readonly url: string;
+  readonly server: Server;
+  readonly sequelize: Sequelize;
+  close(): Promise<void>;
+}
+
+/** Connects to the database and serves the app on config.host:config.port (port 0 picks a free one). */
+export async function startServer(config: AppConfig): Promise<RunningServer> {
+  const sequelize = createSequelize(config.db);
+  initModels(sequelize);
+  const { app, close } = createApp({ config, sequelize });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  return {
+    url: `http://${config.host}:${port}`,
+    server,
+    sequelize,
+    async close() {
+      close();
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await sequelize.close();
+    },
+  };
+}
+
+// Run directly (one stateless instance, e.g. behind a load balancer): the database must be migrated already.
+if (require.main === module) {
+  startServer(loadConfig())
+    .then((running) => {
+      console.log(`Slantwise instance listening on ${running.url}`);
+      const stop = () => void running.close().then(() => process.exit(0));
+      process.once('SIGINT', stop);
+      process.once('SIGTERM', stop);
+    })
+    .catch((err: unknown) => {
+      console.error('Could not start:', err instanceof Error ? err.message : err);
+      process.exit(1);
+    });
+}

@@ -1,0 +1,40 @@
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import type { Role } from '../../shared/api/auth';
+import '../session-types';
+import { User } from '../models/user';
+import { HttpError } from './http-error';
+
+/**
+ * Loads the session's user on every request, so a deactivated member or a changed role takes
+ * effect at once. A session whose user is gone or inactive is destroyed.
+ */
+export const loadUser: RequestHandler = async (req, _res, next) => {
+  const id = req.session?.userId;
+  if (!id) return next();
+  const user = await User.findByPk(id);
+  if (user && user.active) {
+    req.user = user;
+    return next();
+  }
+  req.session.destroy(() => next());
+};
+
+/** The signed-in user, or a 401. */
+export function currentUser(req: Request): User {
+  if (!req.user) throw new HttpError(401, 'Sign in to do this.');
+  return req.user;
+}
+
+export const requireUser: RequestHandler = (req: Request, _res: Response, next: NextFunction) => {
+  currentUser(req);
+  next();
+};
+
+/** Allows only the given roles (after sign-in). */
+export function requireRole(...roles: Role[]): RequestHandler {
+  return (req, _res, next) => {
+    const user = currentUser(req);
+    if (!roles.includes(user.role)) throw new HttpError(403, `Only ${roles.join(' or ')} members may do this.`);
+    next();
+  };
+}

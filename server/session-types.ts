@@ -1,0 +1,20 @@
+import type { User } from './models/user';
+
+declare module 'express-session' {
+  interface SessionData {
+    userId: number;
+    csrfToken: string;
+  }
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      /** The signed-in, active user, set by `loadUser`. */
+      user?: User;
+    }
+  }
+}
+
+export {};
