@@ -1,5 +1,6 @@
 // Four projects: pure unit specs (shared/ and server/), Angular component specs (src/),
 // API tests against a real MariaDB (tests/api), and end-to-end tests in Chromium (tests/e2e).
+// `faults` runs the app against MariaDB servers of its own (restarts, two instances).
 // The API and end-to-end projects need the environment that scripts/run-tests.ts sets up.
 const { createCjsPreset } = require('jest-preset-angular/presets');
 
@@ -37,6 +38,14 @@ module.exports = {
       testMatch: ['**/*.e2e.ts'],
       transform: tsJest,
       testTimeout: 60000,
+    },
+    {
+      displayName: 'faults',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/tests/faults'],
+      testMatch: ['**/*.test.ts'],
+      transform: tsJest,
+      testTimeout: 120000,
     },
   ],
 };

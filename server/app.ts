@@ -15,9 +15,16 @@ import { createAuthRouter } from './routes/auth';
 import { createCalcRouter } from './routes/calc';
 import { createHealthRouter } from './routes/health';
 import { createSetupsRouter } from './routes/setups';
+import { createBatchesRouter } from './routes/batches';
+import { createInventoriesRouter } from './routes/inventories';
+import { createStorage } from './services/storage/create-storage';
 import { openApiDocument } from './openapi';
 import { LoginThrottle } from './services/login-throttle';
 import './session-types';
+import { createAccessRouter } from './routes/access';
+import { createTeamAdminRouter } from './routes/team-admin';
+import { createTrainingRouter } from './routes/training';
+import { configureMail } from './services/mailer';
 
 /** Name of the session cookie (not the library's default). */
 export const SESSION_COOKIE = 'slantwise.sid';
@@ -86,6 +93,8 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
       limit: config.calcRateLimitPerMinute,
       standardHeaders: 'draft-8',
       legacyHeaders: false,
+      // `trust proxy` is set deliberately from TRUST_PROXY (a hop count or addresses in production).
+      validate: { trustProxy: false },
       handler: (_req, res) => {
         res.status(429).json({ error: 'Too many calculation requests from this address; wait a minute and try again.' });
       },
@@ -109,7 +118,14 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
 
   app.use('/api', requireCsrf(['/calc/']), loadUser);
   app.use('/api/auth', createAuthRouter(new LoginThrottle({ limit: 8, windowMs: 10 * 60_000 })));
-  app.use('/api/setups', requireUser, createSetupsRouter());
+  const storage = createStorage(config.uploads);
+  app.use('/api/setups', requireUser, createSetupsRouter({ sequelize, storage, config }));
+  app.use('/api/inventories', requireUser, createInventoriesRouter(sequelize));
+  app.use('/api/batches', requireUser, createBatchesRouter(sequelize));
+  configureMail(config);
+  app.use('/api/access', createAccessRouter(new LoginThrottle({ limit: 5, windowMs: 15 * 60_000 })));
+  app.use('/api/team', requireUser, createTeamAdminRouter(config));
+  app.use('/api/training', requireUser, createTrainingRouter());
   app.use('/api', apiNotFound);
 
   if (config.staticDir && fs.existsSync(config.staticDir)) {

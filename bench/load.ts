@@ -1,0 +1,135 @@
+/**
+ * `npm run bench:load`: the app against its own MariaDB seeded with 10,000 set-ups, loaded with
+ * autocannon on loopback (100 connections, a bounded time per route), next to a bare Express route
+ * as the ceiling. The app and the bare route run in child processes; autocannon runs here.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import bcrypt from 'bcrypt';
+import { createSequelize } from '../server/db';
+import { migrate } from '../server/migrate';
+import { initModels, Setup, Team, User } from '../server/models';
+import { startMariaDb } from '../scripts/mariadb';
+import { freePort } from '../tests/support/isolated-db';
+
+const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 8);
+const CONNECTIONS = Number(process.env['BENCH_CONNECTIONS'] ?? 100);
+const SETUPS = Number(process.env['BENCH_SETUPS'] ?? 10_000);
+const PASSWORD = 'bench-password-123';
+
+function startChild(args: string[], env: NodeJS.ProcessEnv, ready: RegExp): Promise<ChildProcess> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, args, { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout!.on('data', (d: Buffer) => {
+      out += d.toString();
+      if (ready.test(out)) resolve(child);
+    });
+    child.once('exit', (code) => reject(new Error(`child exited with ${code}: ${out}`)));
+  });
+}
+
+interface Row {
+  name: string;
+  rps: number;
+  p50: number;
+  p99: number;
+  errors: number;
+  non2xx: number;
+  s5xx: number;
+}
+
+async function load(name: string, opts: autocannon.Options): Promise<Row> {
+  const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
+  const row: Row = {
+    name,
+    rps: Math.round(r.requests.average),
+    p50: r.latency.p50,
+    p99: r.latency.p99,
+    errors: r.errors + r.timeouts,
+    non2xx: r.non2xx,
+    s5xx: (r as unknown as { '5xx': number })['5xx'],
+  };
+  console.log(`  ${name.padEnd(34)} ${String(row.rps).padStart(7)} req/s  p50 ${String(row.p50).padStart(4)} ms  p99 ${String(row.p99).padStart(4)} ms  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`);
+  return row;
+}
+
+async function main(): Promise<void> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'slantwise-bench-'));
+  const dbPort = await freePort();
+  const db = { host: '127.0.0.1', port: dbPort, name: 'slantwise_bench', user: 'slantwise_bench', password: 'bench-db-password' };
+  const children: ChildProcess[] = [];
+  const mariadb = await startMariaDb({ dataDir: dir, port: dbPort, database: db.name, user: db.user, password: db.password });
+  try {
+    const sequelize = createSequelize(db);
+    initModels(sequelize);
+    await migrate(sequelize);
+    const team = await Team.create({ name: 'Bench shop' });
+    const user = await User.create({ teamId: team.id, email: 'bench@example.test', name: 'Bench Lead', role: 'lead', passwordHash: await bcrypt.hash(PASSWORD, 12) });
+    const kinds = ['taper', 'sine-bar', 'gauge-blocks', 'angle-blocks', 'lathe-taper', 'pins-rolls'];
+    const started = Date.now();
+    for (let i = 0; i < SETUPS; i += 1000) {
+      const rows = Array.from({ length: Math.min(1000, SETUPS - i) }, (_, k) => ({
+        teamId: team.id,
+        ownerId: user.id,
+        name: `Bench set-up ${i + k}`,
+        kind: kinds[(i + k) % kinds.length]!,
+        inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' },
+        notes: 'Seeded for the load benchmark.',
+        job: `JOB-${(i + k) % 200}`,
+        status: (['draft', 'released', 'archived'] as const)[(i + k) % 3],
+      }));
+      await Setup.bulkCreate(rows);
+    }
+    const sample = await Setup.findOne({ where: { teamId: team.id }, order: [['id', 'DESC']] });
+    await sequelize.close();
+    console.log(`Seeded ${SETUPS} set-ups in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+
+    const appPort = await freePort();
+    const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000' };
+    children.push(await startChild(['--import', 'tsx', 'server/main.ts'], env, /listening/));
+    const barePort = await freePort();
+    children.push(await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort) }, /LISTENING/));
+    const base = `http://127.0.0.1:${appPort}`;
+
+    const csrfRes = await fetch(`${base}/api/auth/csrf`);
+    const cookie0 = (csrfRes.headers.get('set-cookie') ?? '').split(';')[0]!;
+    const { token } = (await csrfRes.json()) as { token: string };
+    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie: cookie0 }, body: JSON.stringify({ email: 'bench@example.test', password: PASSWORD }) });
+    if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
+    const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
+
+    console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, loopback`);
+    const json = { 'content-type': 'application/json' };
+    const bare = await load('bare Express route (ceiling)', { url: `http://127.0.0.1:${barePort}/bare` });
+    const calc = [
+      await load('POST /api/calc/taper', { url: `${base}/api/calc/taper`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250', depthPerPass: '0.040' }) }),
+      await load('POST /api/calc/sine-bar', { url: `${base}/api/calc/sine-bar`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', barLength: '5', angle: "14°30'", set: 'inch-81' }) }),
+      await load('POST /api/calc/gauge-stack', { url: `${base}/api/calc/gauge-stack`, method: 'POST', headers: json, body: JSON.stringify({ target: '3.9762', set: 'inch-81' }) }),
+      await load('POST /api/calc/lathe-taper', { url: `${base}/api/calc/lathe-taper`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', taperPerFoot: '0.60235', workLength: '6' }) }),
+    ];
+    const list = await load('GET /api/setups (paged, filtered)', { url: `${base}/api/setups?page=3&pageSize=25&kind=taper&status=released`, headers: { cookie } });
+    const detail = await load('GET /api/setups/:id', { url: `${base}/api/setups/${sample!.id}`, headers: { cookie } });
+
+    const rows = [...calc, list, detail];
+    console.log('\nAgainst the targets:');
+    const check = (ok: boolean, text: string) => console.log(`  ${ok ? 'met ' : 'MISS'}  ${text}`);
+    check(rows.every((r) => r.errors === 0 && r.s5xx === 0) && bare.errors === 0, 'zero errors and zero 5xx on every route');
+    for (const r of calc) check(r.rps >= 0.5 * bare.rps, `${r.name}: ${(r.rps / bare.rps).toFixed(2)}× the bare route (≥ 0.5×)`);
+    for (const r of calc) check(r.p99 < 50, `${r.name}: p99 ${r.p99} ms (< 50 ms)`);
+    check(list.p99 < 100, `${list.name}: p99 ${list.p99} ms (< 100 ms)`);
+    check(rows.every((r) => r.non2xx === 0), 'every answer was 2xx');
+  } finally {
+    for (const c of children) c.kill('SIGTERM');
+    await mariadb.stop();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main().then(() => process.exit(0), (err: unknown) => {
+  console.error(err);
+  process.exit(1);
+});
