@@ -1,0 +1,93 @@
+import type { SineBarRequest } from '../../../shared/api/calc';
+import type { SineBarResult } from '../../../shared/calc/sine-bar';
+import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
+import type { LengthUnit } from '../../../shared/units/length-unit';
+import type { ResultItem } from '../workbench/result-list';
+import type { SineBarSceneInput } from './sine-bar-scene';
+
+/** The sine-bar form's values: all text, as typed. */
+export type SineBarFormValues = {
+  unit: string;
+  mode: string;
+  barLength: string;
+  angle: string;
+  stackHeight: string;
+  set: string;
+  missing: string;
+};
+
+/** Defaults from the demo scenario: a 14°30' face inspected on a 5 in sine plate with the 81-piece set. */
+export const SINE_BAR_DEFAULTS: SineBarFormValues = {
+  unit: 'in',
+  mode: 'angle',
+  barLength: '5',
+  angle: "14°30'",
+  stackHeight: '',
+  set: 'inch-81',
+  missing: '',
+};
+
+/** Length controls, converted when the unit changes (the block list is not: a set has one unit). */
+export const SINE_BAR_LENGTH_FIELDS = ['barLength', 'stackHeight'] as const;
+
+/** Common bar lengths per unit, offered as one-tap choices. */
+export const BAR_LENGTHS: Readonly<Record<LengthUnit, readonly string[]>> = { in: ['2.5', '5', '10'], mm: ['100', '200'] };
+
+/** The standard sets in a unit, for the set picker. */
+export function setsInUnit(unit: LengthUnit): { id: string; name: string }[] {
+  return GAUGE_BLOCK_SETS.filter((s) => s.unit === unit).map((s) => ({ id: s.id, name: s.name }));
+}
+
+/** The default set of a unit (the first listed), for a unit change. */
+export function defaultSet(unit: LengthUnit): string {
+  return setsInUnit(unit)[0]?.id ?? '';
+}
+
+/** Sizes typed as a list ("0.1001, 0.125 0.5") → text entries; empty text → none. */
+export function parseSizeList(text: string): string[] | undefined {
+  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
+  return sizes.length ? sizes : undefined;
+}
+
+/** The engine request: the angle or the stack, the set (or none) and the missing blocks. */
+export function toSineBarRequest(values: SineBarFormValues): SineBarRequest {
+  const byAngle = values.mode !== 'stack';
+  return {
+    unit: values.unit as SineBarRequest['unit'],
+    barLength: values.barLength,
+    angle: byAngle ? values.angle : undefined,
+    stackHeight: byAngle ? undefined : values.stackHeight,
+    set: values.set || undefined,
+    missing: values.set ? parseSizeList(values.missing) : undefined,
+  };
+}
+
+/** The numbers of a sine-bar answer for the result list. */
+export function sineBarResultItems(r: SineBarResult, byAngle: boolean): ResultItem[] {
+  const u = r.unit;
+  const items: ResultItem[] = byAngle
+    ? [
+        { label: 'Stack height', value: r.stackHeight, unit: u, emphasis: true, note: `Under the high roll, to ${r.resolution} ${u}` },
+        { label: 'Angle achieved', value: r.achievedAngleDms, unit: '', note: `${r.achievedAngleDeg}°` },
+        { label: 'Angle error', value: r.errorArcSec, unit: '″', note: 'Achieved minus wanted' },
+      ]
+    : [{ label: 'Angle', value: r.angleDms, unit: '', emphasis: true, note: `${r.angleDeg}°` }];
+  if (r.blocks) items.push({ label: 'Blocks', value: r.blocks.join(' + ') || 'none', unit: '', emphasis: byAngle, note: `${r.blockCount} in wringing order, largest first` });
+  items.push(
+    { label: 'Sensitivity', value: r.sensitivityArcSec, unit: '″', note: `Angle change for ${r.resolution} ${u} of stack` },
+    { label: 'Complement', value: r.complementDeg, unit: '°', note: '90° − angle, for setting from the other side' },
+  );
+  return items;
+}
+
+/** The drawing's model from an answer. */
+export function sineBarSceneInput(r: SineBarResult): SineBarSceneInput {
+  const u = r.unit;
+  return {
+    barLength: Number(r.barLength),
+    angleDeg: Number(r.achievedAngleDeg),
+    stackHeight: Number(r.stackHeight),
+    blocks: (r.blocks ?? []).map((b) => ({ size: Number(b), label: b })),
+    labels: { barLength: `L ${r.barLength} ${u}`, stackHeight: `H ${r.stackHeight} ${u}`, angle: r.achievedAngleDms },
+  };
+}

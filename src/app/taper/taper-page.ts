@@ -1,0 +1,105 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButton, MatIconButton } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
+import { MatSelect, MatOption } from '@angular/material/select';
+
+import { MILLING_CAUTIONS, calculateTaper, type TaperResult } from '../../../shared/calc/taper';
+import type { LengthUnit } from '../../../shared/units/length-unit';
+import { CalcPageLayout } from '../workbench/calc-page-layout';
+import { CautionPanel } from '../workbench/caution-panel';
+import { DerivationPanel } from '../workbench/derivation-panel';
+import { controlMessage } from '../workbench/field-errors';
+import { liveCalc } from '../workbench/live-calc';
+import { bindQueryState } from '../workbench/query-state';
+import { ResultList } from '../workbench/result-list';
+import { SaveSetup } from '../workbench/save-setup';
+import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
+import { WarningList } from '../workbench/warning-list';
+import { TaperDrawing } from './taper-drawing';
+import {
+  TAPER_DEFAULTS, TAPER_GIVEN_OPTIONS, TAPER_LENGTH_FIELDS, type TaperFormValues, givenFields, taperResultItems,
+  taperSceneInput, toTaperRequest,
+} from './taper-form';
+
+/** Taper planner (mill): the depth to stop, end thickness, face length and passes, drawn on the set-up. */
+@Component({
+  selector: 'sw-taper-page',
+  imports: [
+    ReactiveFormsModule, MatFormFieldModule, MatInput, MatSelect, MatOption, MatButton, MatIconButton, MatIcon,
+    CalcPageLayout, CautionPanel, DerivationPanel, ResultList, SaveSetup, UnitToggle, WarningList, TaperDrawing,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './taper-page.html',
+  styleUrl: './taper-page.scss',
+})
+export default class TaperPage {
+  /** The inputs, as typed; the engine reads them through the shared schema. */
+  protected readonly form = inject(NonNullableFormBuilder).group({ ...TAPER_DEFAULTS });
+  /** The URL query and `?setup=` kept in step with the form. */
+  protected readonly query = bindQueryState(this.form, 'taper');
+  /** The engine's answer, recomputed in the browser after each pause in typing. */
+  protected readonly calc = liveCalc<TaperFormValues, TaperResult>(this.form, (v) => calculateTaper(toTaperRequest(v)), {
+    aliases: { removedAtEnd: 'endThickness' },
+  });
+  /** Which pass the drawing shows (0: the whole cut). */
+  protected readonly selectedPass = signal(0);
+
+  protected readonly givenOptions = TAPER_GIVEN_OPTIONS;
+  protected readonly cautions = MILLING_CAUTIONS;
+  protected readonly controlMessage = controlMessage;
+
+  private readonly unitValue = toSignal(this.form.controls.unit.valueChanges, { initialValue: this.form.controls.unit.value });
+  private readonly givenValue = toSignal(this.form.controls.given.valueChanges, { initialValue: this.form.controls.given.value });
+  private readonly shapeValue = toSignal(this.form.controls.shape.valueChanges, { initialValue: this.form.controls.shape.value });
+
+  /** The unit in use. */
+  protected readonly unit = computed<LengthUnit>(() => (this.unitValue() === 'mm' ? 'mm' : 'in'));
+  /** Which of the four sizes are asked for. */
+  protected readonly uses = computed(() => givenFields(this.givenValue()));
+  /** Whether the feature is a chamfer (the end size is then the leg on the end). */
+  protected readonly chamfer = computed(() => this.shapeValue() === 'chamfer');
+  /** The pass shown, kept within the passes there are. */
+  protected readonly shownPass = computed(() => Math.min(this.selectedPass(), this.calc.value()?.passes.length ?? 0));
+  /** The result list. */
+  protected readonly items = computed(() => {
+    const r = this.calc.value();
+    return r ? taperResultItems(r) : [];
+  });
+  /** The drawing's model. */
+  protected readonly scene = computed(() => {
+    const r = this.calc.value();
+    return r ? taperSceneInput(r, this.calc.values(), this.shownPass()) : null;
+  });
+  /** The shown pass's numbers, for the line under the drawing. */
+  protected readonly shownPassInfo = computed(() => {
+    const r = this.calc.value();
+    const k = this.shownPass();
+    return r && k > 0 ? r.passes[k - 1] : null;
+  });
+  /** A name to start the save dialog with. */
+  protected readonly suggestedName = computed(() => {
+    const v = this.calc.values();
+    return `Taper ${v.angle} on ${v.thickness} ${v.unit} stock`;
+  });
+
+  /** Converts the entered lengths and switches the unit. */
+  protected changeUnit(to: LengthUnit): void {
+    convertLengthControls(this.form.controls, TAPER_LENGTH_FIELDS, this.unit(), to);
+    this.form.controls.unit.setValue(to);
+  }
+
+  /** Shows one pass on the drawing (0: the whole cut). */
+  protected showPass(pass: number): void {
+    const count = this.calc.value()?.passes.length ?? 0;
+    this.selectedPass.set(Math.max(0, Math.min(count, pass)));
+  }
+
+  /** Opens the browser's print dialog (the print layout is one sheet). */
+  protected printSheet(): void {
+    window.print();
+  }
+}

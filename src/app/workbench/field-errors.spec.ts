@@ -1,0 +1,69 @@
+import { FormControl, FormGroup } from '@angular/forms';
+import { z } from 'zod';
+
+import { fail } from '../../../shared/calc/step';
+import { applyControlErrors, controlMessage, failureMessages, sentence, sortFieldMessages, zodFieldMessages } from './field-errors';
+
+describe('field errors', () => {
+  describe('sentence', () => {
+    it('should capitalise the first letter only', () => expect(sentence('must be greater than 0')).toBe('Must be greater than 0'));
+    it('should leave an empty message empty', () => expect(sentence('')).toBe(''));
+  });
+
+  describe('sortFieldMessages', () => {
+    const names = ['angle', 'thickness', 'endThickness'];
+
+    it('should give each control its own message', () => {
+      const sorted = sortFieldMessages({ angle: 'must be greater than 0° and less than 90°', thickness: 'is required' }, names);
+      expect(sorted.controls).toEqual({ angle: 'Must be greater than 0° and less than 90°', thickness: 'Is required' });
+      expect(sorted.general).toEqual([]);
+    });
+
+    it('should follow an alias onto the control that holds the field', () => {
+      expect(sortFieldMessages({ removedAtEnd: 'must be greater than 0' }, names, { removedAtEnd: 'endThickness' }).controls).toEqual({
+        endThickness: 'Must be greater than 0',
+      });
+    });
+
+    it('should put a nested path on its top-level control', () => {
+      expect(sortFieldMessages({ 'angle.0': 'is bad' }, names).controls).toEqual({ angle: 'Is bad' });
+    });
+
+    it('should keep whole-request and unknown fields as general messages naming the field', () => {
+      const sorted = sortFieldMessages({ body: 'give exactly two of angle, taperLength', cutter: 'is too short' }, names);
+      expect(sorted.controls).toEqual({});
+      expect(sorted.general).toEqual(['Give exactly two of angle, taperLength', 'Cutter is too short']);
+    });
+  });
+
+  describe('failureMessages', () => {
+    it('should give no messages for a success', () => expect(failureMessages(null, ['a'])).toEqual({ controls: {}, general: [] }));
+
+    it('should fall back to the failure sentence when no field is named', () => {
+      const failure = { ...fail('impossible', 'Taper', {}), fields: {} };
+      expect(failureMessages(failure, ['a']).general).toEqual(['Taper: no answer']);
+    });
+  });
+
+  describe('zodFieldMessages', () => {
+    it('should keep the first message of each path', () => {
+      const schema = z.object({ a: z.number().min(1, 'too small').max(0, 'too big'), b: z.string() });
+      const parsed = schema.safeParse({ a: 0.5, b: 3 });
+      expect(parsed.success).toBe(false);
+      if (!parsed.success) expect(zodFieldMessages(parsed.error)).toEqual({ a: 'too small', b: expect.stringContaining('string') });
+    });
+  });
+
+  describe('applyControlErrors', () => {
+    it('should set the calc error on named controls and clear it elsewhere', () => {
+      const form = new FormGroup({ a: new FormControl('1'), b: new FormControl('x') });
+      applyControlErrors(form.controls, { b: 'Must be a number' });
+      expect(controlMessage(form.controls.b)).toBe('Must be a number');
+      expect(form.controls.b.touched).toBe(true);
+      expect(form.controls.a.errors).toBeNull();
+      applyControlErrors(form.controls, {});
+      expect(form.controls.b.errors).toBeNull();
+      expect(form.valid).toBe(true);
+    });
+  });
+});
