@@ -1,0 +1,91 @@
+import fc from 'fast-check';
+import { calculateAngleBlocks, nearestAngleCombination, type AngleBlocksResult } from './angle-blocks';
+import type { CalcResult } from './step';
+
+function value(r: CalcResult<AngleBlocksResult>): AngleBlocksResult {
+  if (!r.ok) throw new Error(r.error);
+  return r.value;
+}
+
+/** Fewest signed blocks for an exact target by trying all 3ⁿ assignments. */
+function bruteForce(blocks: number[], target: number): number | null {
+  let best: number | null = null;
+  for (let code = 0; code < 3 ** blocks.length; code++) {
+    let rest = code;
+    let sum = 0;
+    let count = 0;
+    for (const b of blocks) {
+      const d = rest % 3;
+      rest = (rest - d) / 3;
+      if (d === 1) sum += b;
+      if (d === 2) sum -= b;
+      if (d) count++;
+    }
+    if (sum === target && (best === null || count < best)) best = count;
+  }
+  return best;
+}
+
+describe('calculateAngleBlocks', () => {
+  it("should make 17°35' with the 13-piece set in fewer than the 6 blocks of REFERENCE.md §6 (derived)", () => {
+    const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: "17°35'" }));
+    expect(r.exact).toBe(true);
+    expect(r.achievedAngleDms).toBe('17°35\'00"');
+    expect(r.count).toBeLessThanOrEqual(6);
+    expect(r.count).toBe(5);
+  });
+
+  it("should make 17°35' with the 16-piece set in at most 5 blocks (REFERENCE.md §6, derived)", () => {
+    const r = value(calculateAngleBlocks({ set: 'angle-16', angle: "17°35'" }));
+    expect(r.count).toBeLessThanOrEqual(5);
+    expect(r.achievedAngleDms).toBe('17°35\'00"');
+  });
+
+  it('should make 2° as 3° − 1° or 5° − 3° with 2 blocks (REFERENCE.md §6, derived)', () => {
+    for (const set of ['angle-13-npl', 'angle-16']) {
+      const r = value(calculateAngleBlocks({ set, angle: 2 }));
+      expect(r.count).toBe(2);
+      expect(r.blocks.some((b) => b.direction === 'reverse')).toBe(true);
+    }
+  });
+
+  it('should reach the published 81°40\'57" top of the 13-piece range with all 13 blocks (NPL, REFERENCE.md §6)', () => {
+    const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: '81°40\'57"' }));
+    expect([r.count, r.exact]).toEqual([13, true]);
+  });
+
+  it('should give the nearest reachable angle and its error when exact is impossible', () => {
+    const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: '10°00\'01"' }));
+    expect(r.exact).toBe(false);
+    expect(r.errorArcSec).toBe('-1.00');
+  });
+
+  it('should total a given combination, reversed blocks subtracting (lab sheet rule, REFERENCE.md §6)', () => {
+    const r = value(calculateAngleBlocks({ set: 'angle-13-npl', combination: [{ angle: 27 }, { angle: 9, reversed: true }, { angle: 1, reversed: true }, { angle: "27'" }, { angle: "9'" }, { angle: "1'", reversed: true }] }));
+    expect(r.achievedAngleDms).toBe('17°35\'00"');
+  });
+
+  it('should match an exhaustive search on random small sets (property)', () => {
+    fc.assert(
+      fc.property(fc.uniqueArray(fc.integer({ min: 1, max: 400 }), { minLength: 1, maxLength: 7 }), fc.integer({ min: 1, max: 900 }), (blocks, target) => {
+        const best = bruteForce(blocks, target);
+        const found = nearestAngleCombination(blocks, target);
+        const sum = found.reduce((a, b) => a + b, 0);
+        if (best === null) expect(sum).not.toBe(target);
+        else {
+          expect(sum).toBe(target);
+          expect(found.length).toBe(best);
+        }
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('should refuse unknown sets, blocks not in the set, and missing angles', () => {
+    expect(calculateAngleBlocks({ set: 'x', angle: 1 }).ok).toBe(false);
+    expect(calculateAngleBlocks({ set: 'angle-16' }).ok).toBe(false);
+    const r = calculateAngleBlocks({ set: 'angle-13-npl', combination: [{ angle: 2 }] });
+    expect(r.ok || r.fields['combination.0.angle']).toMatch(/not \(or no longer\) in the set/);
+    fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateAngleBlocks(x).ok).toBe('boolean')));
+  });
+});

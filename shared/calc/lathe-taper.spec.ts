@@ -1,0 +1,111 @@
+import fc from 'fast-check';
+import { Dec } from './decimal-math';
+import { calculateLatheTaper, type LatheTaperResult } from './lathe-taper';
+import type { CalcResult } from './step';
+
+function value(r: CalcResult<LatheTaperResult>): LatheTaperResult {
+  if (!r.ok) throw new Error(r.error);
+  return r.value;
+}
+const lathe = (input: Record<string, unknown>) => value(calculateLatheTaper(input));
+const dp = (text: string, places: number) => new Dec(text).toDecimalPlaces(places).toString();
+
+describe('calculateLatheTaper', () => {
+  describe('tail-stock offset (REFERENCE.md §4.1)', () => {
+    it('should give 1-1/2 in for 1 in/ft on work 3 ft long (Rose, Modern Machine Shop Practice)', () => {
+      expect(lathe({ unit: 'in', taperPerFoot: 1, workLength: 36 }).tailstockOffset).toBe('1.5000');
+    });
+    it('should give 1/2 in for 3 in → 2 in over 12 in and 1/4 in for 1 in/ft on 6 in (US Navy "Using the Compound Rest")', () => {
+      expect(lathe({ unit: 'in', largeDiameter: 3, smallDiameter: 2, length: 12, workLength: 12 }).tailstockOffset).toBe('0.5000');
+      expect(lathe({ unit: 'in', taperPerFoot: 1, workLength: 6 }).tailstockOffset).toBe('0.2500');
+    });
+    it('should give 0.375 in for 1/2 in/ft on 18 in (Coast Guard QMED05 Q66, cross-check)', () => {
+      expect(lathe({ unit: 'in', taperPerFoot: 0.5, workLength: 18 }).tailstockOffset).toBe('0.3750');
+    });
+    it('should give 1/3 in for a 3 in taper 1.250 → 1.000 on an 8 in shaft (sciemce cross-check; derived)', () => {
+      expect(lathe({ unit: 'in', largeDiameter: 1.25, smallDiameter: 1, length: 3, workLength: 8 }).tailstockOffset).toBe('0.3333');
+    });
+    it('should give 0.46875 in for TPI 0.0625 on 15 in (learnexams cross-check)', () => {
+      expect(lathe({ unit: 'in', taperPerInch: '0.0625', workLength: 15 }).exact.tailstockOffset).toBe('0.46875');
+    });
+  });
+
+  describe('taper per foot ↔ angle (REFERENCE.md §4.6)', () => {
+    it("should convert 6-1/8 in/ft to 28°38'01\" included (Machinery's Handbook 31 p. 695)", () => {
+      expect(lathe({ unit: 'in', taperPerFoot: '6.125' }).includedAngleDms).toBe('28°38\'01"');
+    });
+    it('should convert 0.550 in/ft to 2.626° included (Precision Machining Practices: Foundations)', () => {
+      expect(dp(lathe({ unit: 'in', taperPerFoot: '0.550' }).includedAngleDeg, 3)).toBe('2.626');
+    });
+    it('should convert 1/2 in/ft to a half angle of 1.1935° (homeshopmachinist cross-check)', () => {
+      expect(lathe({ unit: 'in', taperPerFoot: 0.5 }).halfAngleDeg).toBe('1.1935');
+    });
+    it("should convert 3° included to .6283 in/ft (Groff, \"Angle of Taper Examples\")", () => {
+      expect(dp(lathe({ unit: 'in', includedAngle: 3 }).taperPerFoot, 4)).toBe('0.6285');
+    });
+    it.each([
+      [1, '0.01745'],
+      [10, '0.17498'],
+      [20, '0.35265'],
+      [30, '0.53590'],
+      [45, '0.82843'],
+    ])('should convert %s° included to %s taper per inch (Derry-Collard, Turning and Boring Tapers)', (angle, tpi) => {
+      expect(new Dec(lathe({ unit: 'in', includedAngle: angle }).taperPerInch).toFixed(5)).toBe(tpi);
+    });
+    it.each([
+      ['0.0625', '0°17\'54"', '1:192.000'],
+      ['0.25', '1°11\'37"', '1:48.000'],
+      ['0.75', '3°34\'47"', '1:16.000'],
+      ['3.5', '16°35\'39"', '1:3.429'],
+    ])('should give %s in/ft → %s included, %s (REFERENCE.md §4.6 exact table, derived)', (tpf, dms, ratio) => {
+      const r = lathe({ unit: 'in', taperPerFoot: tpf });
+      expect([r.includedAngleDms, r.ratio]).toEqual([dms, ratio]);
+    });
+  });
+
+  describe('standard tapers', () => {
+    it.each([
+      ['morse-0', '1.4908'],
+      ['morse-1', '1.4287'],
+      ['morse-2', '1.4307'],
+      ['morse-3', '1.4377'],
+      ['morse-4', '1.4876'],
+      ['morse-5', '1.5073'],
+      ['morse-6', '1.4933'],
+      ['morse-7', '1.4894'],
+    ])('%s should have the half angle %s° (SCI catalogue via REFERENCE.md §4.2)', (id, half) => {
+      expect(lathe({ unit: 'in', standard: id }).halfAngleDeg).toBe(half);
+    });
+    it('should give Jarno half angle 1°25\'56" (US Army OD1645; atan(0.6/24), derived)', () => {
+      expect(lathe({ unit: 'in', standard: 'jarno-7' }).halfAngleDms).toBe('1°25\'56"');
+    });
+    it('should give the 7:24 steep taper 16°35\'39" included (derived)', () => {
+      expect(lathe({ unit: 'in', standard: 'steep-7-24' }).includedAngleDms).toBe('16°35\'39"');
+    });
+  });
+
+  describe('diameters', () => {
+    it('should find the small end from the large end, taper and length, and diameters along it (Jones, Turning and Boring)', () => {
+      const r = lathe({ unit: 'in', taperPerFoot: 0.6, largeDiameter: 1, length: 4, stations: [0, 2, 4] });
+      expect(r.smallDiameter).toBe('0.8000');
+      expect(r.stations.map((s) => s.diameter)).toEqual(['1.0000', '0.9000', '0.8000']);
+    });
+    it('should refuse a taper that comes to a point', () => {
+      const r = calculateLatheTaper({ unit: 'in', taperPerFoot: 12, largeDiameter: 1, length: 2 });
+      expect(r.ok || r.kind).toBe('impossible');
+    });
+  });
+
+  describe('invalid input', () => {
+    it('should refuse two definitions, reversed diameters and unknown standards', () => {
+      expect(calculateLatheTaper({ unit: 'in', taperPerFoot: 1, includedAngle: 3 }).ok).toBe(false);
+      expect(calculateLatheTaper({ unit: 'in', largeDiameter: 1, smallDiameter: 2, length: 3 }).ok).toBe(false);
+      expect(calculateLatheTaper({ unit: 'in', standard: 'morse-99' }).ok).toBe(false);
+      expect(calculateLatheTaper({ unit: 'in' }).ok).toBe(false);
+      expect(calculateLatheTaper({ unit: 'in', includedAngle: 180 }).ok).toBe(false);
+    });
+    it('should never throw (property)', () => {
+      fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateLatheTaper(x).ok).toBe('boolean')));
+    });
+  });
+});

@@ -1,0 +1,196 @@
+import { formatDegrees, formatDms } from '../angle/angle-text';
+import { latheTaperRequestSchema, parseRequest, type LatheTaperRequest } from '../api/calc';
+import { findMachineTaper, MACHINE_TAPERS, type MachineTaper } from '../data/machine-tapers';
+import { convertLength, formatLength, type LengthUnit } from '../units/length-unit';
+import { Dec, atanDeg, exactText, fixedText, tanDeg } from './decimal-math';
+import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
+
+/**
+ * Lathe tapers (REFERENCE.md §4.1): with D and d the large and small diameters over length l,
+ * the diametral taper per unit length is k = (D − d)/l (taper per inch); TPF = 12·k; ratio 1:(1/k);
+ * half angle (compound setting) α/2 = atan(k/2) = atan(TPF/24); included angle α = 2·atan(TPF/24)
+ * (Jones, Turning and Boring; lathes.co.uk FAQ; US Army OD1645). Tail-stock offset for a work
+ * length L between centres: TPF·L/24 = k·L/2 (Rose, Modern Machine Shop Practice; US Navy
+ * "Using the Compound Rest").
+ */
+
+/** Diameter at a station along the taper. */
+export interface TaperStation {
+  /** Distance from the large end. */
+  distance: string;
+  /** Diameter there. */
+  diameter: string;
+}
+
+/** Answer of {@link calculateLatheTaper}. Lengths in the request's unit. */
+export interface LatheTaperResult {
+  /** Unit of the lengths. */
+  unit: LengthUnit;
+  /** Diametral taper per foot (in/ft; for mm work the same ratio × 12), 5 decimals. */
+  taperPerFoot: string;
+  /** Diametral taper per unit length (in/in or mm/mm), 6 decimals. */
+  taperPerInch: string;
+  /** Taper ratio as "1:x" (x to 3 decimals). */
+  ratio: string;
+  /** Included angle, decimal degrees. */
+  includedAngleDeg: string;
+  /** Included angle, DMS. */
+  includedAngleDms: string;
+  /** Half angle (compound-rest setting from the axis), decimal degrees. */
+  halfAngleDeg: string;
+  /** Half angle, DMS. */
+  halfAngleDms: string;
+  /** Large diameter, when known. */
+  largeDiameter: string | null;
+  /** Small diameter, when known. */
+  smallDiameter: string | null;
+  /** Taper length, when known. */
+  length: string | null;
+  /** Tail-stock offset for the work length, when given. */
+  tailstockOffset: string | null;
+  /** Diameters at the requested stations. */
+  stations: TaperStation[];
+  /** The standard taper used, when one was named. */
+  standard: MachineTaper | null;
+  /** Notes. */
+  warnings: string[];
+  /** Published cautions. */
+  cautions: string[];
+  /** The derivation. */
+  steps: Step[];
+  /** Full-precision values. */
+  exact: { taperPerFoot: string; includedAngleDeg: string; halfAngleDeg: string; tailstockOffset: string | null };
+}
+
+/** Published cautions for taper turning (REFERENCE.md §7.4, §7.7). */
+export const LATHE_TAPER_CAUTIONS: readonly string[] = [
+  'After turning a taper by offsetting the tail stock, set the tail stock back on centre (US Navy training manual, "Using the Compound Rest").',
+  'Tapers must be kept free of dirt, chips, nicks and burrs, and free of oil, or they will not hold (US Army OD1645).',
+  'Do not measure work while the lathe is turning; let the chuck stop on its own (US Army TM 1-1500-204-23-8).',
+];
+
+const AREA = 'Lathe taper';
+
+/**
+ * Converts and completes a lathe taper: give one of taperPerFoot, taperPerInch, ratio,
+ * includedAngle, halfAngle or standard (optionally with two of largeDiameter, smallDiameter,
+ * length to find the third), or all three of largeDiameter, smallDiameter and length.
+ * With workLength, the tail-stock offset; with stations, the diameter at each.
+ */
+export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcResult<LatheTaperResult> {
+  return guarded<LatheTaperResult>(AREA, () => {
+    const parsed = parseRequest(AREA, latheTaperRequestSchema, input);
+    if (!parsed.ok) return parsed;
+    const p = parsed.value;
+    const unit = p.unit;
+    const len = (x: Dec) => formatLength(x, unit);
+    const steps: Step[] = [];
+    const definers = (['taperPerFoot', 'taperPerInch', 'ratio', 'includedAngle', 'halfAngle', 'standard'] as const).filter((f) => p[f] !== undefined);
+    if (definers.length > 1) return invalid(AREA, definers[1], `conflicts with ${definers[0]}: define the taper one way only`);
+    let D = p.largeDiameter;
+    let d = p.smallDiameter;
+    let l = p.length;
+    let k: Dec;
+    let standard: MachineTaper | null = null;
+    const definer = definers[0];
+    if (definer === undefined) {
+      if (!D || !d || !l) {
+        const missing = !D ? 'largeDiameter' : !d ? 'smallDiameter' : 'length';
+        return invalid(AREA, missing, 'is required: give a taper (taperPerFoot, includedAngle, …) or both diameters and the length');
+      }
+      if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than smallDiameter');
+      k = D.minus(d).div(l);
+      steps.push(step('Taper per inch', 'k = (D − d) / l', `k = (${len(D)} − ${len(d)}) / ${len(l)}`, fixedText(k, 6), `${unit}/${unit}`));
+    } else {
+      if (D && d && l) return invalid(AREA, 'length', 'leave out one of largeDiameter, smallDiameter, length when the taper is given');
+      if (definer === 'taperPerFoot') {
+        k = (p.taperPerFoot as Dec).div(12);
+        steps.push(step('Taper per inch', 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), ''));
+      } else if (definer === 'taperPerInch') {
+        k = p.taperPerInch as Dec;
+      } else if (definer === 'ratio') {
+        k = new Dec(1).div(p.ratio as Dec);
+        steps.push(step('Taper per inch', 'k = 1 / x (ratio 1:x)', `k = 1 / ${(p.ratio as Dec).toString()}`, fixedText(k, 6), ''));
+      } else if (definer === 'includedAngle') {
+        k = tanDeg((p.includedAngle as Dec).div(2)).mul(2);
+        steps.push(step('Taper per inch', 'k = 2 · tan(α / 2)', `k = 2 · tan(${formatDms(p.includedAngle as Dec)} / 2)`, fixedText(k, 6), ''));
+      } else if (definer === 'halfAngle') {
+        k = tanDeg(p.halfAngle as Dec).mul(2);
+        steps.push(step('Taper per inch', 'k = 2 · tan(α/2)', `k = 2 · tan ${formatDms(p.halfAngle as Dec)}`, fixedText(k, 6), ''));
+      } else {
+        standard = findMachineTaper(p.standard as string) ?? null;
+        if (!standard) return invalid(AREA, 'standard', `unknown taper "${p.standard}"; see GET /api/calc/machine-tapers`);
+        k = new Dec(standard.taperPerFoot).div(12);
+        steps.push(step(`Taper per inch (${standard.name})`, 'k = TPF / 12', `k = ${standard.taperPerFoot} / 12`, fixedText(k, 6), ''));
+        if (!D && !d && !l) {
+          const from = (x: string | null) => (x === null ? undefined : convertLength(new Dec(x), standard!.unit, unit));
+          D = from(standard.largeDiameter);
+          d = from(standard.smallDiameter);
+          l = from(standard.length);
+          if (D && d && l) l = undefined;
+        }
+      }
+      if (D && d && !l) {
+        if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than smallDiameter');
+        l = D.minus(d).div(k);
+        steps.push(step('Taper length', 'l = (D − d) / k', `l = (${len(D)} − ${len(d)}) / ${fixedText(k, 6)}`, len(l), unit));
+      } else if (D && l && !d) {
+        d = D.minus(k.mul(l));
+        if (d.lte(0)) return impossible(AREA, 'length', `is too long: the taper would come to a point before ${len(l)} ${unit}`);
+        steps.push(step('Small diameter', 'd = D − k · l', `d = ${len(D)} − ${fixedText(k, 6)} · ${len(l)}`, len(d), unit));
+      } else if (d && l && !D) {
+        D = d.plus(k.mul(l));
+        steps.push(step('Large diameter', 'D = d + k · l', `D = ${len(d)} + ${fixedText(k, 6)} · ${len(l)}`, len(D), unit));
+      }
+    }
+    const tpf = k.mul(12);
+    const half = atanDeg(k.div(2));
+    const included = half.mul(2);
+    steps.push(step('Taper per foot', 'TPF = 12 · k', `TPF = 12 · ${fixedText(k, 6)}`, fixedText(tpf, 5), 'in/ft'));
+    steps.push(step('Half angle (compound setting)', 'α/2 = atan(TPF / 24)', `α/2 = atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(half), '°'));
+    steps.push(step('Included angle', 'α = 2 · atan(TPF / 24)', `α = 2 · ${formatDegrees(half)}°`, formatDegrees(included), '°'));
+    let offset: Dec | null = null;
+    const warnings: string[] = [];
+    if (p.workLength) {
+      offset = k.mul(p.workLength).div(2);
+      steps.push(step('Tail-stock offset', 'offset = TPF · L / 24 = k · L / 2', `offset = ${fixedText(k, 6)} · ${len(p.workLength)} / 2`, len(offset), unit));
+      if (l && p.workLength.lt(l)) warnings.push('The work length between centres is shorter than the taper length.');
+    }
+    const stations: TaperStation[] = [];
+    if (p.stations && p.stations.length > 0) {
+      if (!D) return invalid(AREA, 'stations', 'need the large diameter (give largeDiameter, or smallDiameter and length)');
+      for (const x of p.stations) {
+        const dia = D.minus(k.mul(x));
+        if (dia.lte(0)) return impossible(AREA, 'stations', `${len(x)} ${unit} from the large end is past the point of the taper`);
+        if (l && x.gt(l)) warnings.push(`Station ${len(x)} ${unit} is beyond the taper length ${len(l)} ${unit}.`);
+        stations.push({ distance: len(x), diameter: len(dia) });
+      }
+      steps.push(step('Diameter along the taper', 'd(x) = D − k · x', `D = ${len(D)}, k = ${fixedText(k, 6)}`, `${stations.length} stations`, unit));
+    }
+    return succeed({
+      unit,
+      taperPerFoot: fixedText(tpf, 5),
+      taperPerInch: fixedText(k, 6),
+      ratio: `1:${fixedText(new Dec(1).div(k), 3)}`,
+      includedAngleDeg: formatDegrees(included),
+      includedAngleDms: formatDms(included),
+      halfAngleDeg: formatDegrees(half),
+      halfAngleDms: formatDms(half),
+      largeDiameter: D ? len(D) : null,
+      smallDiameter: d ? len(d) : null,
+      length: l ? len(l) : null,
+      tailstockOffset: offset ? len(offset) : null,
+      stations,
+      standard,
+      warnings,
+      cautions: [...LATHE_TAPER_CAUTIONS],
+      steps,
+      exact: { taperPerFoot: exactText(tpf), includedAngleDeg: exactText(included), halfAngleDeg: exactText(half), tailstockOffset: offset ? exactText(offset) : null },
+    });
+  });
+}
+
+/** All standard machine tapers (for pickers). */
+export function listMachineTapers(): readonly MachineTaper[] {
+  return MACHINE_TAPERS;
+}

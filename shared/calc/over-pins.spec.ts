@@ -1,0 +1,94 @@
+import fc from 'fast-check';
+import { calculateOverPins, type OverPinsResult } from './over-pins';
+import type { CalcResult } from './step';
+
+function value(r: CalcResult<OverPinsResult>): OverPinsResult {
+  if (!r.ok) throw new Error(r.error);
+  return r.value;
+}
+const pins = (input: Record<string, unknown>) => value(calculateOverPins(input)).values;
+
+describe('calculateOverPins', () => {
+  describe("dovetails (Machinery's Handbook \"Measuring dovetail slides\", REFERENCE.md §5.1, values derived)", () => {
+    it.each([
+      [60, 0.5, 2, '3.3660'],
+      [60, 0.375, 1.25, '2.2745'],
+      [45, 0.25, 1.5, '2.3536'],
+    ])('male %s°, roll %s in, a = %s in → x = %s in', (angle, roll, a, x) => {
+      expect(pins({ kind: 'dovetail', unit: 'in', side: 'male', angle, rollDiameter: roll, width: a }).measurement).toBe(x);
+    });
+    it('should give 71.856 mm over 8 mm rolls on a 50 mm male 60° dovetail', () => {
+      expect(pins({ kind: 'dovetail', unit: 'mm', side: 'male', angle: 60, rollDiameter: 8, width: 50 }).measurement).toBe('71.856');
+    });
+    it('should give y = 1.1340 in between 0.500 in rolls for a 2.500 in female 60° dovetail, and back', () => {
+      expect(pins({ kind: 'dovetail', unit: 'in', side: 'female', angle: 60, rollDiameter: 0.5, width: 2.5 }).measurement).toBe('1.1340');
+      expect(pins({ kind: 'dovetail', unit: 'in', side: 'female', angle: 60, rollDiameter: 0.5, measurement: '1.13397' }).width).toBe('2.5000');
+    });
+    it('should give c = 0.2165 in for h = 0.375 in at 60°', () => {
+      expect(pins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: 0.25, width: 2, depth: 0.375 }).flankRun).toBe('0.2165');
+    });
+    it('should find the angle and width from two roll sizes (toolmonger inverse, derived)', () => {
+      // a = 1.5, α = 60°: x₁ = 1.5 + 0.25·2.7320508 = 2.1830127, x₂ = 1.5 + 0.5·2.7320508 = 2.8660254.
+      const v = pins({ kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: 0.25, measurement1: '2.1830127', rollDiameter2: 0.5, measurement2: '2.8660254' });
+      expect(v.angleDeg).toBe('60.0000');
+      expect(v.width).toBe('1.5000');
+    });
+  });
+
+  describe('tapers (REFERENCE.md §5.2)', () => {
+    it('should read 3°34\'35" half angle, TPF 1.500 from .745 and .620 one inch apart (hobby-machinist, extension derived)', () => {
+      const r = value(calculateOverPins({ kind: 'taper-two-heights', unit: 'in', measurement1: '.745', measurement2: '.620', heightDifference: 1 }));
+      expect(r.dms.halfAngleDeg).toBe('3°34\'35"');
+      expect(r.values.includedAngleDeg).toBe('7.1527');
+      expect(r.values.taperPerFoot).toBe('1.50000');
+    });
+    it('should read a Jarno taper from rolls at 1.5000 and 1.4500 one inch apart (derived)', () => {
+      expect(pins({ kind: 'taper-two-heights', unit: 'in', measurement1: 1.5, measurement2: 1.45, heightDifference: 1 }).taperPerFoot).toBe('0.60000');
+    });
+    it("should give 1.2015 in/ft for discs 1 and 1.5 in at C = 5 in (Machinery's Handbook 31 p. 701)", () => {
+      expect(pins({ kind: 'taper-discs', unit: 'in', largeDisc: 1.5, smallDisc: 1, centreDistance: 5 }).taperPerFoot).toBe('1.20150');
+    });
+    it("should give C = 4.002 in for 3/4 in/ft with discs 1.25 and 1.5 in (Machinery's Handbook; Jones)", () => {
+      expect(pins({ kind: 'taper-discs', unit: 'in', largeDisc: 1.5, smallDisc: 1.25, taperPerFoot: 0.75 }).centreDistance).toBe('4.0020');
+    });
+    it("should give C = 5.759 in for 20° with discs 1 and 3 in (Machinery's Handbook; Jones)", () => {
+      expect(pins({ kind: 'taper-discs', unit: 'in', largeDisc: 3, smallDisc: 1, includedAngle: 20 }).centreDistance).toBe('5.7588');
+    });
+    it("should give 2.4367 in/ft with one side square, discs 2 and 3 in at C = 5 in (Machinery's Handbook)", () => {
+      expect(pins({ kind: 'taper-discs', unit: 'in', largeDisc: 3, smallDisc: 2, centreDistance: 5, reference: 'side' }).taperPerFoot).toBe('2.43670');
+    });
+    it('should give 5°43\'55" from balls Ø40 and Ø32 (byjus problem, answer derived)', () => {
+      const r = value(calculateOverPins({ kind: 'taper-balls', unit: 'mm', largeBall: 40, smallBall: 32, largeBallDepth: -8, smallBallDepth: 76 }));
+      expect(r.values.centreDistance).toBe('80.000');
+      expect(r.dms.includedAngleDeg).toBe('5°43\'55"');
+    });
+  });
+
+  describe('V-groove', () => {
+    it('should put a 0.5 in pin 0.1036 in proud of a 90° groove 1 in wide, and back (derived)', () => {
+      expect(pins({ kind: 'v-groove', unit: 'in', includedAngle: 90, pinDiameter: 0.5, grooveWidth: 1 }).measurement).toBe('0.1036');
+      expect(pins({ kind: 'v-groove', unit: 'in', includedAngle: 90, pinDiameter: 0.5, measurement: '0.10355339' }).grooveWidth).toBe('1.0000');
+    });
+    it('should warn when the pin is too big for the groove', () => {
+      const r = value(calculateOverPins({ kind: 'v-groove', unit: 'in', includedAngle: 90, pinDiameter: 2, grooveWidth: 1 }));
+      expect(r.warnings.join(' ')).toMatch(/too large/);
+    });
+  });
+
+  describe('invalid input', () => {
+    it('should name the field', () => {
+      const r = calculateOverPins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: -1, width: 2 });
+      expect(r.ok || r.fields.rollDiameter).toBe('must be greater than 0');
+      const k = calculateOverPins({ kind: 'spline' });
+      expect(k.ok || Object.keys(k.fields)).toEqual(['kind']);
+    });
+    it('should never throw (property)', () => {
+      fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateOverPins(x).ok).toBe('boolean')));
+      fc.assert(
+        fc.property(fc.constantFrom('dovetail', 'dovetail-angle', 'v-groove', 'taper-two-heights', 'taper-discs', 'taper-balls'), fc.dictionary(fc.constantFrom('unit', 'side', 'angle', 'rollDiameter', 'width', 'measurement', 'largeDisc', 'smallDisc', 'centreDistance', 'measurement1', 'measurement2', 'heightDifference'), fc.oneof(fc.double(), fc.constantFrom('in', 'mm', 'male', '0', '-1'))), (kind, rest) => {
+          expect(JSON.stringify(calculateOverPins({ ...rest, kind }))).not.toMatch(/NaN|Infinity/);
+        }),
+      );
+    });
+  });
+});

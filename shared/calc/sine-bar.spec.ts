@@ -1,0 +1,161 @@
+import fc from 'fast-check';
+import { Dec } from './decimal-math';
+import { calculateCompoundSinePlate, calculateSineBar, calculateSineTable, type SineBarResult } from './sine-bar';
+import type { CalcResult } from './step';
+
+function value<T>(r: CalcResult<T>): T {
+  if (!r.ok) throw new Error(r.error);
+  return r.value;
+}
+const bar = (input: Record<string, unknown>): SineBarResult => value(calculateSineBar(input));
+
+describe('calculateSineBar', () => {
+  describe('published stack heights (REFERENCE.md §2.2)', () => {
+    it('should match US Army TC 9-524 App. C: 5 in bar, 23°41\' → 2.0084 in', () => {
+      expect(bar({ unit: 'in', barLength: 5, angle: "23°41'" }).stackHeight).toBe('2.0084');
+    });
+    it('should match Walsh, Handbook of Machining and Metalworking Calculations ch. 4: 5 in, 34°25\' → 2.826 in', () => {
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: '34 25' }).stackHeight).toDecimalPlaces(3).toString()).toBe('2.826');
+    });
+    it("should match Machinery's Handbook 31 p. 695: 5 in, 12° → 1.03956 in and 9° → 0.78217 in", () => {
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 12 }).exact.stackHeight).toDecimalPlaces(5).toString()).toBe('1.03956');
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 9 }).exact.stackHeight).toDecimalPlaces(5).toString()).toBe('0.78217');
+    });
+    it("should match Machinery's Handbook 31 p. 695: 5 in, 28°38'1\" (6-1/8 in/ft) → 2.396 in", () => {
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: '28°38\'1"' }).stackHeight).toDecimalPlaces(3).toString()).toBe('2.396');
+    });
+    it('should match the "Jo Block Stacks" course text: 5 in, 60° → 4.3301 in', () => {
+      expect(bar({ unit: 'in', barLength: 5, angle: 60 }).stackHeight).toBe('4.3301');
+    });
+    it('should round 13° on a 5 in bar to 1.1248 (reference.com prints the truncated 1.124; REFERENCE.md §2.2 #9)', () => {
+      expect(bar({ unit: 'in', barLength: 5, angle: 13 }).stackHeight).toBe('1.1248');
+    });
+  });
+
+  describe('published reverse examples (REFERENCE.md §2.2)', () => {
+    it('should match Sparber, "The Theory and Practice of Using a Sine Bar": 5 in, H = 1 → 11.537°; H = 1.040 → 12.005°', () => {
+      expect(new Dec(bar({ unit: 'in', barLength: 5, stackHeight: 1 }).angleDeg).toDecimalPlaces(3).toString()).toBe('11.537');
+      expect(new Dec(bar({ unit: 'in', barLength: 5, stackHeight: '1.040' }).angleDeg).toDecimalPlaces(3).toString()).toBe('12.005');
+    });
+    it("should match Machinery's Handbook 31 p. 695: 5 in, H = 2.5939 → 31°15' (exact 31°15'01.6\")", () => {
+      expect(bar({ unit: 'in', barLength: 5, stackHeight: '2.5939' }).achievedAngleDms).toBe('31°15\'01.6"');
+    });
+    it('should give 28.414° for a 60 mm bar on 28.55 mm (askfilo problem, answer derived)', () => {
+      expect(new Dec(bar({ unit: 'mm', barLength: 60, stackHeight: '28.55' }).angleDeg).toDecimalPlaces(3).toString()).toBe('28.414');
+    });
+  });
+
+  describe('derived table H = L·sin θ (REFERENCE.md §2.3)', () => {
+    it.each([
+      [2.5, 'in', 45, '1.7678'],
+      [10, 'in', 15, '2.5882'],
+      [100, 'mm', 20, '34.202'],
+      [200, 'mm', 5, '17.431'],
+      [200, 'mm', 60, '173.205'],
+    ])('should give %s %s at %s° → %s (derived)', (L, unit, angle, H) => {
+      expect(bar({ unit, barLength: L, angle }).stackHeight).toBe(H);
+    });
+    it('should give the reverse checks 10 in / 1.7365 → 10.0001° and 100 mm / 25.000 → 14.4775° (derived)', () => {
+      expect(bar({ unit: 'in', barLength: 10, stackHeight: '1.7365' }).angleDeg).toBe('10.0001');
+      expect(bar({ unit: 'mm', barLength: 100, stackHeight: 25 }).angleDeg).toBe('14.4775');
+    });
+  });
+
+  describe('error and sensitivity', () => {
+    it('should report the angle the rounded stack makes and its error in arc-seconds (derived)', () => {
+      const r = bar({ unit: 'in', barLength: 5, angle: "23°41'" });
+      // asin(2.0084 / 5) = 23.683245…° → −0.32″ (derived).
+      expect(r.achievedAngleDeg).toBe('23.6832');
+      expect(r.errorArcSec).toBe('-0.32');
+    });
+    it('should give the published sensitivity: +0.0001 in on a 5 in bar → 0.00132° at 30° and 0.00229° at 60° (homeshopmachinist thread, REFERENCE.md §2.4)', () => {
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 30 }).sensitivityArcSec).div(3600).toDecimalPlaces(5).toString()).toBe('0.00132');
+      expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 60 }).sensitivityArcSec).div(3600).toDecimalPlaces(5).toString()).toBe('0.00229');
+    });
+    it('should advise the complement above 45°', () => {
+      expect(bar({ unit: 'in', barLength: 5, angle: 60 }).warnings.join(' ')).toMatch(/complement, 30°00'00"/);
+      expect(bar({ unit: 'in', barLength: 5, angle: 30 }).warnings).toEqual([]);
+    });
+    it('should round to the set\'s 0.0005 mm step for metric-112', () => {
+      const r = bar({ unit: 'mm', barLength: 100, angle: 10, set: 'metric-112' });
+      expect(r.resolution).toBe('0.0005');
+      expect(r.stackHeight).toBe('17.365');
+    });
+  });
+
+  describe('blocks for the stack', () => {
+    it('should list the fewest inch-81 blocks for the TC 9-524 example (REFERENCE.md §3.5 G6: 4 blocks, derived)', () => {
+      const r = bar({ unit: 'in', barLength: 5, angle: "23°41'", set: 'inch-81' });
+      expect(r.blockCount).toBe(4);
+      expect((r.blocks as string[]).reduce((a, b) => a.plus(b), new Dec(0)).toString()).toBe('2.0084');
+    });
+  });
+
+  describe('invalid and impossible input', () => {
+    it('should refuse a stack taller than the bar with 422-kind "impossible"', () => {
+      const r = calculateSineBar({ unit: 'in', barLength: 5, stackHeight: 6 });
+      expect(r.ok || r.kind).toBe('impossible');
+      expect(r.ok || r.fields.stackHeight).toMatch(/taller than the bar/);
+    });
+    it('should refuse both or neither of angle and stackHeight, and angles of 90° or more', () => {
+      expect(calculateSineBar({ unit: 'in', barLength: 5 }).ok).toBe(false);
+      expect(calculateSineBar({ unit: 'in', barLength: 5, angle: 10, stackHeight: 1 }).ok).toBe(false);
+      const r = calculateSineBar({ unit: 'in', barLength: 5, angle: 90 });
+      expect(r.ok || r.kind).toBe('invalid');
+    });
+    it('should refuse a set in the other unit', () => {
+      const r = calculateSineBar({ unit: 'in', barLength: 5, angle: 10, set: 'metric-112' });
+      expect(r.ok || r.fields.set).toMatch(/in mm but the unit is in/);
+    });
+    it('should never throw (property)', () => {
+      fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateSineBar(x).ok).toBe('boolean')));
+    });
+  });
+
+  describe('angle → stack → angle (property)', () => {
+    it('should come back within one resolution step\'s worth of angle', () => {
+      fc.assert(
+        fc.property(fc.integer({ min: 1, max: 80 * 3600 }), fc.constantFrom(2.5, 5, 10), (seconds, L) => {
+          const angle = new Dec(seconds).div(3600);
+          const there = bar({ unit: 'in', barLength: L, angle: angle.toString() });
+          const back = bar({ unit: 'in', barLength: L, stackHeight: there.stackHeight });
+          const diff = new Dec(back.exact.angleDeg).minus(angle).abs().mul(3600);
+          expect(diff.lte(new Dec(there.sensitivityArcSec).plus('0.01'))).toBe(true);
+        }),
+        { numRuns: 100 },
+      );
+    });
+  });
+});
+
+describe('calculateSineTable', () => {
+  it('should give 3601 rows for 0°–60° every 1′ with stacks that sum to the row height', () => {
+    const t = value(calculateSineTable({ unit: 'in', barLength: 5, from: 0, to: 60, step: "0°1'", set: 'inch-81' }));
+    expect(t.rows).toHaveLength(3601);
+    expect(t.rows[3600].stackHeight).toBe('4.3301');
+    for (const row of t.rows) {
+      if (row.blocks) expect(row.blocks.reduce((a, b) => a.plus(b), new Dec(0)).eq(row.stackHeight)).toBe(true);
+    }
+  }, 30_000);
+
+  it('should refuse a reversed range and too many rows', () => {
+    expect(calculateSineTable({ unit: 'in', barLength: 5, from: 10, to: 5, step: 1 }).ok).toBe(false);
+    const r = calculateSineTable({ unit: 'in', barLength: 5, from: 0, to: 60, step: '0.001' });
+    expect(r.ok || r.fields.step).toMatch(/rows/);
+  });
+});
+
+describe('calculateCompoundSinePlate', () => {
+  it('should give each axis its own stack and the resultant tilt cos φ = cos θA·cos θB (derived)', () => {
+    const r = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, angleA: 30, angleB: 30 }));
+    expect([r.axisA.stackHeight, r.axisB.stackHeight]).toEqual(['2.5000', '2.5000']);
+    // acos(0.75) = 41.4096° (derived).
+    expect(r.resultantTiltDeg).toBe('41.4096');
+  });
+
+  it('should turn two stacks into two angles', () => {
+    const r = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, stackA: '2.5', stackB: 1 }));
+    expect(r.axisA.angleDeg).toBe('30.0000');
+    expect(r.axisB.angleDeg).toBe('11.5370');
+  });
+});

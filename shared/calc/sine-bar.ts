@@ -1,0 +1,374 @@
+import { formatDegrees, formatDms } from '../angle/angle-text';
+import {
+  compoundSineRequestSchema,
+  parseRequest,
+  sineBarRequestSchema,
+  sineTableRequestSchema,
+  type CompoundSineRequest,
+  type SineBarRequest,
+  type SineTableRequest,
+} from '../api/calc';
+import { formatLength, roundToStep, unitResolution, type LengthUnit } from '../units/length-unit';
+import { Dec, acosDeg, asinDeg, cosDeg, exactText, fixedText, sinDeg, toRadians } from './decimal-math';
+import { fewestBlocks, formatBlock, formatStack, resolveBox, type GaugeBox } from './gauge-stack';
+import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
+
+/**
+ * Sine bar and sine plate: H = L·sin θ and θ = asin(H / L), with L the roll centre distance and H
+ * the gauge stack under one roll (US Army OD1642; TC 9-524 App. C; Machinery's Handbook 31 p. 695;
+ * REFERENCE.md §2.1). The stack is rounded to the box's (or the unit's) resolution and the angle
+ * it actually makes is reported with its error; the sensitivity dθ = dH / (L·cos θ) (REFERENCE.md
+ * §2.4) tells how much one resolution step moves the angle.
+ */
+
+/** Answer of {@link calculateSineBar}; lengths are decimal text, angles decimal degrees (0.0001°). */
+export interface SineBarResult {
+  /** Unit of every length. */
+  unit: LengthUnit;
+  /** Roll centre distance L. */
+  barLength: string;
+  /** Stack height H to put under the roll, at the resolution. */
+  stackHeight: string;
+  /** The angle asked for (or, from a stack, the angle it makes). */
+  angleDeg: string;
+  /** angleDeg as DMS. */
+  angleDms: string;
+  /** The angle the rounded stack actually makes. */
+  achievedAngleDeg: string;
+  /** achievedAngleDeg as DMS (0.1″). */
+  achievedAngleDms: string;
+  /** achieved − wanted, arc-seconds (2 decimals). */
+  errorArcSec: string;
+  /** Angle change for one resolution step of the stack, arc-seconds. */
+  sensitivityArcSec: string;
+  /** The step the stack is rounded to. */
+  resolution: string;
+  /** 90° − angle, for setting steep angles from the other side. */
+  complementDeg: string;
+  /** Fewest blocks for the stack in wringing order (largest first); null without a box or when unreachable. */
+  blocks: string[] | null;
+  /** Number of blocks, or null. */
+  blockCount: number | null;
+  /** Notes: steep angles, unreachable stacks. */
+  warnings: string[];
+  /** Published cautions for sine-bar work. */
+  cautions: string[];
+  /** The derivation. */
+  steps: Step[];
+  /** Full precision values. */
+  exact: { stackHeight: string; angleDeg: string; achievedAngleDeg: string };
+}
+
+/** Published sine-bar cautions (REFERENCE.md §7.6). */
+export const SINE_BAR_CAUTIONS: readonly string[] = [
+  'Repair scratches, nicks or other damage before the sine bar is used (US Army OD1642).',
+  'Keep every contact surface clean: swarf between the blocks or under a roll changes the angle (Sparber, "The Theory and Practice of Using a Sine Bar").',
+];
+
+const AREA = 'Sine bar';
+
+/** One setting: the stack for an angle, rounded, and what it really makes. */
+interface Setting {
+  wanted: Dec;
+  exactStack: Dec;
+  stack: Dec;
+  achieved: Dec;
+  errorArcSec: Dec;
+}
+
+/** Stack for angle θ on a bar of length L rounded to `resolution`, or null when it reaches L. */
+function settingForAngle(L: Dec, theta: Dec, resolution: Dec): Setting | null {
+  const exactStack = L.mul(sinDeg(theta));
+  const stack = roundToStep(exactStack, resolution);
+  if (stack.gte(L)) return null;
+  const achieved = stack.isZero() ? new Dec(0) : asinDeg(stack.div(L));
+  return { wanted: theta, exactStack, stack, achieved, errorArcSec: achieved.minus(theta).mul(3600) };
+}
+
+/** Angle change (arc-seconds) for one resolution step at θ: step / (L·cos θ) in radians. */
+function sensitivity(L: Dec, theta: Dec, resolution: Dec): Dec {
+  return resolution.div(L.mul(cosDeg(theta))).mul(new Dec(180).div(toRadians(new Dec(180)))).mul(3600);
+}
+
+/** Resolves an optional box and the rounding step for a sine-bar request. */
+function boxAndResolution(
+  area: string,
+  p: { unit: LengthUnit; set?: string | undefined; blocks?: Parameters<typeof resolveBox>[1]['blocks']; missing?: Dec[] | undefined; resolution?: Dec | undefined },
+): CalcResult<{ box: GaugeBox | null; resolution: Dec }> {
+  let box: GaugeBox | null = null;
+  if (p.set || p.blocks) {
+    const boxed = resolveBox(area, { set: p.set, blocks: p.blocks, missing: p.missing, unit: p.unit });
+    if (!boxed.ok) return boxed;
+    box = boxed.value;
+  }
+  return succeed({ box, resolution: p.resolution ?? box?.step ?? unitResolution(p.unit) });
+}
+
+function steepWarnings(theta: Dec): string[] {
+  const out: string[] = [];
+  if (theta.gt(45)) {
+    out.push(
+      `Above 45° a stack error moves the angle more and more (dθ = dH / (L·cos θ)); published practice limits sine bars to about 45°. Consider setting the complement, ${formatDms(new Dec(90).minus(theta))}, against an angle plate or square (common practice).`,
+    );
+  }
+  return out;
+}
+
+/**
+ * Sine bar or sine plate: the stack for an angle (rounded to the box's or the unit's resolution,
+ * with the angle it really makes and the error), or the angle a stack makes; with a box (`set` or
+ * `blocks`), the fewest blocks for the stack.
+ */
+export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<SineBarResult> {
+  return guarded<SineBarResult>(AREA, () => {
+    const parsed = parseRequest(AREA, sineBarRequestSchema, input);
+    if (!parsed.ok) return parsed;
+    const p = parsed.value;
+    const unit = p.unit;
+    const L = p.barLength;
+    const len = (x: Dec) => formatLength(x, unit);
+    if ((p.angle === undefined) === (p.stackHeight === undefined)) {
+      return invalid(AREA, p.angle === undefined ? 'angle' : 'stackHeight', 'give either angle or stackHeight, not both');
+    }
+    const chosen = boxAndResolution(AREA, p);
+    if (!chosen.ok) return chosen;
+    const { box, resolution } = chosen.value;
+    const res = (x: Dec) => (box ? formatStack(x, box) : formatLength(x, unit, resolution));
+    const steps: Step[] = [];
+    let setting: Setting;
+    if (p.angle !== undefined) {
+      const s = settingForAngle(L, p.angle, resolution);
+      if (!s) return impossible(AREA, 'angle', `needs a stack as tall as the bar (${len(L)} ${unit}); use a smaller angle or set the complement`);
+      setting = s;
+      steps.push(step('Stack height', 'H = L · sin θ', `H = ${len(L)} · sin ${formatDms(p.angle)}`, exactText(s.exactStack), unit));
+      steps.push(step('Stack at the resolution', `H rounded to ${resolution.toString()}`, exactText(s.exactStack), res(s.stack), unit));
+      steps.push(step('Angle the stack makes', 'θ′ = asin(H / L)', `θ′ = asin(${res(s.stack)} / ${len(L)})`, formatDegrees(s.achieved), '°'));
+      steps.push(step('Angle error', 'e = (θ′ − θ) · 3600', `e = (${formatDegrees(s.achieved, 6)} − ${formatDegrees(p.angle, 6)}) · 3600`, fixedText(s.errorArcSec, 2), '″'));
+    } else {
+      const H = p.stackHeight as Dec;
+      if (H.gt(L)) return impossible(AREA, 'stackHeight', `is taller than the bar (${len(L)} ${unit}): no angle fits`);
+      if (H.eq(L)) return impossible(AREA, 'stackHeight', 'equals the bar length: that stands the bar on end (90°)');
+      const theta = H.isZero() ? new Dec(0) : asinDeg(H.div(L));
+      setting = { wanted: theta, exactStack: H, stack: H, achieved: theta, errorArcSec: new Dec(0) };
+      steps.push(step('Angle', 'θ = asin(H / L)', `θ = asin(${res(H)} / ${len(L)})`, formatDegrees(theta), '°'));
+      steps.push(step('Angle (DMS)', 'θ', formatDegrees(theta) + '°', formatDms(theta, 1), ''));
+    }
+    const sens = sensitivity(L, setting.achieved, resolution);
+    steps.push(step('Sensitivity', 'Δθ = ΔH / (L · cos θ)', `Δθ = ${resolution.toString()} / (${len(L)} · cos ${formatDms(setting.achieved)})`, fixedText(sens, 2), '″'));
+
+    const warnings = steepWarnings(setting.wanted);
+    let blocks: string[] | null = null;
+    if (box) {
+      if (setting.stack.isZero()) {
+        blocks = [];
+      } else {
+        const found = fewestBlocks(box, setting.stack);
+        if (found) {
+          blocks = found.map((b) => formatBlock(b, box));
+          steps.push(step('Fewest blocks', 'Σ blocks = H', `${blocks.join(' + ')}`, String(blocks.length), 'blocks'));
+        } else {
+          warnings.push(`The box cannot make a ${res(setting.stack)} ${unit} stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.`);
+        }
+      }
+    }
+    return succeed({
+      unit,
+      barLength: len(L),
+      stackHeight: res(setting.stack),
+      angleDeg: formatDegrees(setting.wanted),
+      angleDms: formatDms(setting.wanted),
+      achievedAngleDeg: formatDegrees(setting.achieved),
+      achievedAngleDms: formatDms(setting.achieved, 1),
+      errorArcSec: fixedText(setting.errorArcSec, 2),
+      sensitivityArcSec: fixedText(sens, 2),
+      resolution: resolution.toString(),
+      complementDeg: formatDegrees(new Dec(90).minus(setting.wanted)),
+      blocks,
+      blockCount: blocks ? blocks.length : null,
+      warnings,
+      cautions: [...SINE_BAR_CAUTIONS],
+      steps,
+      exact: { stackHeight: exactText(setting.exactStack), angleDeg: exactText(setting.wanted), achievedAngleDeg: exactText(setting.achieved) },
+    });
+  });
+}
+
+/** One row of a sine-bar table. */
+export interface SineTableRow {
+  /** The angle, decimal degrees. */
+  angleDeg: string;
+  /** The angle as DMS. */
+  angleDms: string;
+  /** Stack at the resolution. */
+  stackHeight: string;
+  /** Angle the rounded stack makes. */
+  achievedAngleDeg: string;
+  /** achieved − wanted, arc-seconds. */
+  errorArcSec: string;
+  /** Fewest blocks, largest first; null without a box or when the box cannot make the stack. */
+  blocks: string[] | null;
+  /** Number of blocks, or null. */
+  count: number | null;
+}
+
+/** Answer of {@link calculateSineTable}. */
+export interface SineTableResult {
+  /** Unit of every length. */
+  unit: LengthUnit;
+  /** Roll centre distance. */
+  barLength: string;
+  /** Rounding step of the stacks. */
+  resolution: string;
+  /** The rows, from `from` to `to`. */
+  rows: SineTableRow[];
+  /** Rows whose stack the box cannot make. */
+  unreachable: number;
+  /** The formula used for every row. */
+  steps: Step[];
+}
+
+/** Most rows a table may have. */
+export const MAX_TABLE_ROWS = 20_000;
+
+/** A table of sine-bar stacks (and fewest blocks, with a box) from one angle to another in equal steps. */
+export function calculateSineTable(input: SineTableRequest | unknown): CalcResult<SineTableResult> {
+  const area = 'Sine table';
+  return guarded<SineTableResult>(area, () => {
+    const parsed = parseRequest(area, sineTableRequestSchema, input);
+    if (!parsed.ok) return parsed;
+    const p = parsed.value;
+    if (p.to.lt(p.from)) return invalid(area, 'to', 'must not be below from');
+    // The epsilon absorbs the last-digit rounding of steps such as 1′ = 0.01666…7°.
+    const count = p.to.minus(p.from).div(p.step).plus('1e-20').floor().toNumber() + 1;
+    if (count > MAX_TABLE_ROWS) return invalid(area, 'step', `gives ${count} rows; at most ${MAX_TABLE_ROWS}`);
+    const chosen = boxAndResolution(area, p);
+    if (!chosen.ok) return chosen;
+    const { box, resolution } = chosen.value;
+    const L = p.barLength;
+    const res = (x: Dec) => (box ? formatStack(x, box) : formatLength(x, p.unit, resolution));
+    const rows: SineTableRow[] = [];
+    let unreachable = 0;
+    for (let i = 0; i < count; i++) {
+      const theta = p.from.plus(p.step.mul(i)).toDecimalPlaces(30);
+      const s = settingForAngle(L, theta, resolution);
+      if (!s) return impossible(area, 'to', `${formatDms(theta)} needs a stack as tall as the bar`);
+      let blocks: string[] | null = null;
+      if (box) {
+        const found = s.stack.isZero() ? [] : fewestBlocks(box, s.stack);
+        if (found) blocks = found.map((b) => formatBlock(b, box));
+        else unreachable++;
+      }
+      rows.push({
+        angleDeg: formatDegrees(theta),
+        angleDms: formatDms(theta),
+        stackHeight: res(s.stack),
+        achievedAngleDeg: formatDegrees(s.achieved),
+        errorArcSec: fixedText(s.errorArcSec, 2),
+        blocks,
+        count: blocks ? blocks.length : null,
+      });
+    }
+    const steps = [
+      step('Stack height', 'H = L · sin θ', `H = ${formatLength(L, p.unit)} · sin θ`, `rounded to ${resolution.toString()}`, p.unit),
+      step('Angle the stack makes', 'θ′ = asin(H / L)', 'per row', '', '°'),
+    ];
+    return succeed({ unit: p.unit, barLength: formatLength(L, p.unit), resolution: resolution.toString(), rows, unreachable, steps });
+  });
+}
+
+/** One axis of a compound sine plate. */
+export interface CompoundAxis {
+  /** Roll centre distance of this plate. */
+  length: string;
+  /** The angle about this axis, decimal degrees. */
+  angleDeg: string;
+  /** The angle as DMS. */
+  angleDms: string;
+  /** The stack for this axis at the resolution. */
+  stackHeight: string;
+  /** Angle the rounded stack makes. */
+  achievedAngleDeg: string;
+  /** achieved − wanted, arc-seconds. */
+  errorArcSec: string;
+}
+
+/** Answer of {@link calculateCompoundSinePlate}. */
+export interface CompoundSineResult {
+  /** Unit of every length. */
+  unit: LengthUnit;
+  /** Lower plate (first tilt). */
+  axisA: CompoundAxis;
+  /** Upper plate (second tilt, about the perpendicular axis). */
+  axisB: CompoundAxis;
+  /** Tilt of the top face from horizontal: cos φ = cos θA · cos θB. */
+  resultantTiltDeg: string;
+  /** The resultant tilt as DMS. */
+  resultantTiltDms: string;
+  /** Notes on steep settings. */
+  warnings: string[];
+  /** The derivation. */
+  steps: Step[];
+}
+
+/**
+ * Compound (two-axis) sine plate: each axis is an independent sine bar (H = L·sin θ) — two angles
+ * give two stacks, two stacks give two angles; also the resulting tilt of the top face,
+ * cos φ = cos θA · cos θB (derived: the two rotations are about perpendicular axes).
+ */
+export function calculateCompoundSinePlate(input: CompoundSineRequest | unknown): CalcResult<CompoundSineResult> {
+  const area = 'Compound sine plate';
+  return guarded<CompoundSineResult>(area, () => {
+    const parsed = parseRequest(area, compoundSineRequestSchema, input);
+    if (!parsed.ok) return parsed;
+    const p = parsed.value;
+    const unit = p.unit;
+    const resolution = p.resolution ?? unitResolution(unit);
+    const steps: Step[] = [];
+    const axis = (name: 'A' | 'B', L: Dec, angle: Dec | undefined, stack: Dec | undefined): CalcResult<{ axis: CompoundAxis; achieved: Dec; wanted: Dec }> => {
+      if ((angle === undefined) === (stack === undefined)) {
+        return invalid(area, `angle${name}`, `give either angle${name} or stack${name}`);
+      }
+      let s: Setting;
+      if (angle !== undefined) {
+        const found = settingForAngle(L, angle, resolution);
+        if (!found) return impossible(area, `angle${name}`, 'needs a stack as tall as the plate');
+        s = found;
+        steps.push(step(`Stack ${name}`, `H${name} = L${name} · sin θ${name}`, `H${name} = ${formatLength(L, unit)} · sin ${formatDms(angle)}`, formatLength(s.stack, unit, resolution), unit));
+      } else {
+        const H = stack as Dec;
+        if (H.gte(L)) return impossible(area, `stack${name}`, `must be shorter than the plate's roll distance (${formatLength(L, unit)} ${unit})`);
+        const theta = H.isZero() ? new Dec(0) : asinDeg(H.div(L));
+        s = { wanted: theta, exactStack: H, stack: H, achieved: theta, errorArcSec: new Dec(0) };
+        steps.push(step(`Angle ${name}`, `θ${name} = asin(H${name} / L${name})`, `θ${name} = asin(${formatLength(H, unit, resolution)} / ${formatLength(L, unit)})`, formatDegrees(theta), '°'));
+      }
+      return succeed({
+        wanted: s.wanted,
+        achieved: s.achieved,
+        axis: {
+          length: formatLength(L, unit),
+          angleDeg: formatDegrees(s.wanted),
+          angleDms: formatDms(s.wanted),
+          stackHeight: formatLength(s.stack, unit, resolution),
+          achievedAngleDeg: formatDegrees(s.achieved),
+          errorArcSec: fixedText(s.errorArcSec, 2),
+        },
+      });
+    };
+    const a = axis('A', p.lengthA, p.angleA, p.stackA);
+    if (!a.ok) return a;
+    const b = axis('B', p.lengthB ?? p.lengthA, p.angleB, p.stackB);
+    if (!b.ok) return b;
+    const cosPhi = cosDeg(a.value.achieved).mul(cosDeg(b.value.achieved));
+    const phi = acosDeg(Dec.min(cosPhi, 1));
+    steps.push(step('Resultant tilt of the top face', 'cos φ = cos θA · cos θB', `cos φ = cos ${formatDms(a.value.achieved)} · cos ${formatDms(b.value.achieved)}`, formatDegrees(phi), '°'));
+    return succeed({
+      unit,
+      axisA: a.value.axis,
+      axisB: b.value.axis,
+      resultantTiltDeg: formatDegrees(phi),
+      resultantTiltDms: formatDms(phi),
+      warnings: [...steepWarnings(a.value.wanted), ...steepWarnings(b.value.wanted)],
+      steps,
+    });
+  });
+}

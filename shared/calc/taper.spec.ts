@@ -1,0 +1,163 @@
+import fc from 'fast-check';
+import { Dec, cosDeg, sinDeg, tanDeg } from './decimal-math';
+import type { CalcResult } from './step';
+import { calculateTaper, type TaperResult } from './taper';
+
+function value(r: CalcResult<TaperResult>): TaperResult {
+  if (!r.ok) throw new Error(r.error);
+  return r.value;
+}
+
+describe('calculateTaper', () => {
+  describe('published geometry checks (REFERENCE.md §1, right-triangle geometry, derived)', () => {
+    it('should plan L = 3.000 in, T = 0.750 in, α = 5°', () => {
+      // REFERENCE.md §1 [DER]: d = 0.2625; t = 0.4875; h = 0.2615; s = 3.0115.
+      const r = value(calculateTaper({ unit: 'in', thickness: '0.750', angle: 5, taperLength: '3.000' }));
+      expect(r.removedAtEnd).toBe('0.2625');
+      expect(r.endThickness).toBe('0.4875');
+      expect(r.depthToStop).toBe('0.2615');
+      expect(r.faceLength).toBe('3.0115');
+      expect(r.angleDms).toBe('5°00\'00"');
+    });
+
+    it('should plan L = 75 mm, α = 7°', () => {
+      // REFERENCE.md §1 [DER]: d = 9.209 mm; h = 9.140 mm; s = 75.563 mm.
+      const r = value(calculateTaper({ unit: 'mm', thickness: 20, angle: '7°', taperLength: 75 }));
+      expect([r.removedAtEnd, r.depthToStop, r.faceLength]).toEqual(['9.209', '9.140', '75.563']);
+    });
+
+    it('should find the angle for T = 1.000 → t = 0.750 over 4.000 in', () => {
+      // REFERENCE.md §1 [DER]: θ = 3.5763° (3°34'35"); s = 4.0078 in.
+      const r = value(calculateTaper({ unit: 'in', thickness: 1, endThickness: '0.750', taperLength: 4 }));
+      expect(r.angleDeg).toBe('3.5763');
+      expect(r.angleDms).toBe('3°34\'35"');
+      expect(r.faceLength).toBe('4.0078');
+    });
+
+    it('should solve from every pair of the four quantities to the same part (derived)', () => {
+      const base = value(calculateTaper({ unit: 'in', thickness: 1, angle: '7°30\'', taperLength: 2 }));
+      const e = base.exact;
+      const pairs = [
+        { angle: '7°30\'', endThickness: e.endThickness },
+        { angle: '7°30\'', faceLength: e.faceLength },
+        { taperLength: 2, endThickness: e.endThickness },
+        { taperLength: 2, faceLength: e.faceLength },
+        { endThickness: e.endThickness, faceLength: e.faceLength },
+        { angle: '7.5', removedAtEnd: e.removedAtEnd },
+      ];
+      for (const pair of pairs) {
+        const r = value(calculateTaper({ unit: 'in', thickness: 1, ...pair }));
+        expect([r.angleDeg, r.taperLength, r.endThickness, r.faceLength, r.depthToStop]).toEqual([base.angleDeg, base.taperLength, base.endThickness, base.faceLength, base.depthToStop]);
+      }
+    });
+  });
+
+  describe('passes and warnings', () => {
+    it('should list passes with the DRO reading after each, the last one partial', () => {
+      const r = value(calculateTaper({ unit: 'in', thickness: 0.75, angle: 5, taperLength: 3, depthPerPass: 0.1 }));
+      expect(r.passes).toEqual([
+        { pass: 1, cut: '0.1000', reading: '0.1000' },
+        { pass: 2, cut: '0.1000', reading: '0.2000' },
+        { pass: 3, cut: '0.0615', reading: '0.2615' },
+      ]);
+    });
+
+    it('should warn when the depth to stop is beyond the flute length', () => {
+      const r = value(calculateTaper({ unit: 'in', thickness: 0.75, angle: 5, taperLength: 3, fluteLength: 0.25 }));
+      expect(r.warnings.join(' ')).toMatch(/flute length/);
+    });
+
+    it('should warn of a knife edge when the taper runs out exactly at the bottom edge', () => {
+      const r = value(calculateTaper({ unit: 'in', thickness: 0.5, removedAtEnd: 0.5, taperLength: 4 }));
+      expect(r.endThickness).toBe('0.0000');
+      expect(r.warnings.join(' ')).toMatch(/knife edge/);
+    });
+
+    it('should add the cutter diameter to the table travel', () => {
+      const r = value(calculateTaper({ unit: 'in', thickness: 0.75, angle: 5, taperLength: 3, cutterDiameter: 0.5 }));
+      expect(r.tableTravel).toBe('3.5115');
+    });
+  });
+
+  describe('chamfer', () => {
+    it('should work from two legs without a thickness (45° by 0.1 in, derived)', () => {
+      const r = value(calculateTaper({ unit: 'in', shape: 'chamfer', taperLength: 0.1, removedAtEnd: 0.1 }));
+      expect([r.angleDeg, r.faceLength, r.depthToStop, r.endThickness]).toEqual(['45.0000', '0.1414', '0.0707', null]);
+    });
+  });
+
+  describe('impossible and invalid input', () => {
+    it('should refuse a taper that needs more than the stock, saying where it runs out', () => {
+      const r = calculateTaper({ unit: 'in', thickness: 0.5, angle: 30, taperLength: 3 });
+      expect(r.ok).toBe(false);
+      if (r.ok) return;
+      expect(r.kind).toBe('impossible');
+      // Runs out T / tan α = 0.5 / tan 30° = 0.8660 in from the taper start (derived).
+      expect(r.fields.taperLength).toMatch(/runs out through the bottom face 0\.8660 in from where the taper starts/);
+    });
+
+    it('should name the field for each kind of bad input', () => {
+      const cases: [unknown, string][] = [
+        [{ unit: 'in', thickness: 0, angle: 5, taperLength: 3 }, 'thickness'],
+        [{ unit: 'in', thickness: -1, angle: 5, taperLength: 3 }, 'thickness'],
+        [{ unit: 'in', thickness: 'abc', angle: 5, taperLength: 3 }, 'thickness'],
+        [{ unit: 'in', thickness: 1, angle: 90, taperLength: 3 }, 'angle'],
+        [{ unit: 'in', thickness: 1, angle: '7°75\'', taperLength: 3 }, 'angle'],
+        [{ unit: 'ft', thickness: 1, angle: 5, taperLength: 3 }, 'unit'],
+        [{ unit: 'in', angle: 5, taperLength: 3 }, 'thickness'],
+        [{ unit: 'in', thickness: 1, endThickness: 1.2, taperLength: 3 }, 'endThickness'],
+        [{ unit: 'in', thickness: 1, taperLength: 3, faceLength: 2 }, 'faceLength'],
+        [{ unit: 'in', thickness: 1, angle: 5, taperLength: 3, depthPerPass: 0.00001 }, 'depthPerPass'],
+      ];
+      for (const [input, field] of cases) {
+        const r = calculateTaper(input);
+        expect(r.ok).toBe(false);
+        if (!r.ok) expect(Object.keys(r.fields)).toContain(field);
+      }
+    });
+
+    it('should ask for exactly two of the defining quantities', () => {
+      const r = calculateTaper({ unit: 'in', thickness: 1, angle: 5 });
+      expect(!r.ok && r.error).toMatch(/exactly two of angle, taperLength, endThickness, faceLength/);
+    });
+
+    it('should return an error value, never throw, for any input (property)', () => {
+      fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateTaper(x).ok).toBe('boolean')));
+      fc.assert(
+        fc.property(
+          fc.record({ unit: fc.constantFrom('in', 'mm', 'x'), thickness: fc.oneof(fc.double(), fc.string()), angle: fc.oneof(fc.double(), fc.string()), taperLength: fc.oneof(fc.double(), fc.constant(null)) }, { requiredKeys: [] }),
+          (x) => {
+            const r = calculateTaper(x);
+            expect(JSON.stringify(r)).not.toMatch(/NaN|Infinity/);
+          },
+        ),
+      );
+    });
+  });
+
+  describe('identities (property, derived)', () => {
+    it('should satisfy t = T − L·tan α, F = L / cos α, h = L·sin α for random valid input', () => {
+      fc.assert(
+        fc.property(
+          fc.integer({ min: 1, max: 8900 }),
+          fc.integer({ min: 1, max: 100_000 }),
+          fc.integer({ min: 1, max: 100_000 }),
+          (alphaHundredths, lengthThousandths, extraThousandths) => {
+            const alpha = new Dec(alphaHundredths).div(100);
+            const L = new Dec(lengthThousandths).div(1000);
+            const d = L.mul(tanDeg(alpha));
+            const T = d.plus(new Dec(extraThousandths).div(1000));
+            const r = calculateTaper({ unit: 'in', thickness: T.toString(), angle: alpha.toString(), taperLength: L.toString() });
+            if (!r.ok) throw new Error(r.error);
+            const ex = r.value.exact;
+            const tol = '1e-24';
+            expect(new Dec(ex.endThickness as string).minus(T.minus(L.mul(tanDeg(alpha)))).abs().lt(tol)).toBe(true);
+            expect(new Dec(ex.faceLength).minus(L.div(cosDeg(alpha))).abs().lt(tol)).toBe(true);
+            expect(new Dec(ex.depthToStop).minus(L.mul(sinDeg(alpha))).abs().lt(tol)).toBe(true);
+          },
+        ),
+        { numRuns: 150 },
+      );
+    });
+  });
+});
