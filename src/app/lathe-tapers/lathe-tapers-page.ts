@@ -1,0 +1,242 @@
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
+import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
+import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
+import { startWith } from 'rxjs';
+
+import type { LatheTaperRequest } from '../../../shared/api/calc';
+import { type LatheTaperResult, calculateLatheTaper } from '../../../shared/calc/lathe-taper';
+import { invalid, type CalcResult } from '../../../shared/calc/step';
+import { MACHINE_TAPERS, type MachineTaper } from '../../../shared/data/machine-tapers';
+import type { LengthUnit } from '../../../shared/units/length-unit';
+import { CalcPageLayout } from '../workbench/calc-page-layout';
+import { CautionPanel } from '../workbench/caution-panel';
+import { DerivationPanel } from '../workbench/derivation-panel';
+import { controlMessage } from '../workbench/field-errors';
+import { liveCalc } from '../workbench/live-calc';
+import { bindQueryState } from '../workbench/query-state';
+import { type ResultItem, ResultList } from '../workbench/result-list';
+import { SaveSetup } from '../workbench/save-setup';
+import { UnitToggle, convertLengthControls, convertLengthText } from '../workbench/unit-toggle';
+import { WarningList } from '../workbench/warning-list';
+import { type LatheDimensionTexts, LatheWorkDrawing } from './lathe-work-drawing';
+import type { LatheWorkInput } from './lathe-work-geometry';
+
+/** How the taper is given. */
+export type TaperDefinition = 'standard' | 'tpf' | 'angle' | 'diameters';
+/** How it is turned. */
+export type TurningMethod = 'compound' | 'offset';
+
+/** The form's values, all as typed. */
+export interface LatheTapersForm {
+  unit: LengthUnit;
+  define: TaperDefinition;
+  standard: string;
+  taperPerFoot: string;
+  includedAngle: string;
+  largeDiameter: string;
+  smallDiameter: string;
+  length: string;
+  workLength: string;
+  method: TurningMethod;
+  /** Distances from the large end, separated by commas or spaces. */
+  stations: string;
+}
+
+const AREA = 'Lathe taper';
+
+/** Default set-up: the arbor with a Morse No. 3 shank on an 8 in bar, turned with the compound. */
+export const LATHE_DEFAULTS: LatheTapersForm = {
+  unit: 'in',
+  define: 'standard',
+  standard: 'morse-3',
+  taperPerFoot: '0.600',
+  includedAngle: "3°",
+  largeDiameter: '0.938',
+  smallDiameter: '0.778',
+  length: '3.1875',
+  workLength: '8',
+  method: 'compound',
+  stations: '0.5, 1, 2',
+};
+
+/** Lengths converted when the unit changes (stations are converted item by item). */
+const LENGTH_CONTROLS = ['largeDiameter', 'smallDiameter', 'length', 'workLength'] as const;
+
+/** Family names for the taper picker's groups. */
+const FAMILY_NAMES: Record<MachineTaper['family'], string> = {
+  morse: 'Morse',
+  'brown-sharpe': 'Brown & Sharpe',
+  jarno: 'Jarno',
+  steep: 'Steep (7:24)',
+  'taper-pin': 'Taper pins',
+  metric: 'Metric 1:20',
+};
+
+/** Splits the stations text into distances; empty parts are left out. */
+export function splitStations(text: string): string[] {
+  return text.split(/[\s,;]+/).filter((s) => s !== '');
+}
+
+/** Turns the form's values into the engine's request, sending only what the chosen definition uses. */
+export function latheRequest(v: LatheTapersForm): LatheTaperRequest {
+  const base: LatheTaperRequest = { unit: v.unit, workLength: v.workLength, stations: splitStations(v.stations) };
+  switch (v.define) {
+    case 'standard':
+      return { ...base, standard: v.standard };
+    case 'tpf':
+      return { ...base, taperPerFoot: v.taperPerFoot, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
+    case 'angle':
+      return { ...base, includedAngle: v.includedAngle, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
+    default:
+      return { ...base, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
+  }
+}
+
+/** Runs the engine on the form's values; the offset method needs the work length. */
+export function latheCalc(v: LatheTapersForm): CalcResult<LatheTaperResult> {
+  if (v.method === 'offset' && !v.workLength.trim()) return invalid(AREA, 'workLength', 'is required for the tail-stock offset');
+  return calculateLatheTaper(latheRequest(v));
+}
+
+/** The lathe-taper page: taper per foot, angles, tail-stock offset and diameters along the taper. */
+@Component({
+  selector: 'sw-lathe-tapers-page',
+  imports: [
+    ReactiveFormsModule, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatOptgroup, MatIcon,
+    MatButtonToggleGroup, MatButtonToggle, CalcPageLayout, LatheWorkDrawing, ResultList, WarningList, DerivationPanel,
+    CautionPanel, SaveSetup, UnitToggle,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './lathe-tapers-page.html',
+  styleUrl: './lathe-tapers-page.scss',
+})
+export default class LatheTapersPage {
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  /** The inputs, as typed. */
+  protected readonly form = this.fb.group({
+    unit: this.fb.control<LengthUnit>(LATHE_DEFAULTS.unit),
+    define: this.fb.control<TaperDefinition>(LATHE_DEFAULTS.define),
+    standard: LATHE_DEFAULTS.standard,
+    taperPerFoot: LATHE_DEFAULTS.taperPerFoot,
+    includedAngle: LATHE_DEFAULTS.includedAngle,
+    largeDiameter: LATHE_DEFAULTS.largeDiameter,
+    smallDiameter: LATHE_DEFAULTS.smallDiameter,
+    length: LATHE_DEFAULTS.length,
+    workLength: LATHE_DEFAULTS.workLength,
+    method: this.fb.control<TurningMethod>(LATHE_DEFAULTS.method),
+    stations: LATHE_DEFAULTS.stations,
+  });
+  /** Standard tapers, grouped by family. */
+  protected readonly families = Object.entries(FAMILY_NAMES).map(([family, name]) => ({
+    name,
+    tapers: MACHINE_TAPERS.filter((t) => t.family === family),
+  }));
+  protected readonly query = bindQueryState(this.form, 'lathe-taper');
+  protected readonly calc = liveCalc<LatheTapersForm, LatheTaperResult>(this.form, latheCalc);
+  protected readonly controlMessage = controlMessage;
+
+  private readonly values = toSignal(this.form.valueChanges.pipe(startWith(null)), { initialValue: null });
+  private readonly raw = computed(() => {
+    this.values();
+    return this.form.getRawValue();
+  });
+  /** The unit in use. */
+  protected readonly unit = computed(() => this.raw().unit);
+  /** How the taper is given. */
+  protected readonly define = computed(() => this.raw().define);
+  /** The form values to save as a set-up. */
+  protected readonly inputs = computed(() => this.raw() as unknown as Record<string, unknown>);
+
+  /** What the drawing shows: the user's taper, or a 1-unit bar when no diameter is known. */
+  protected readonly work = computed<{ input: LatheWorkInput; nominal: boolean } | null>(() => {
+    const r = this.calc.value();
+    if (!r) return null;
+    const k = Number(r.taperPerInch);
+    const method = this.raw().method;
+    const L = r.tailstockOffset !== null ? Number(this.raw().workLength) : undefined;
+    const offset = r.tailstockOffset !== null ? Number(r.tailstockOffset) : undefined;
+    if (r.largeDiameter !== null && r.smallDiameter !== null && r.length !== null) {
+      return {
+        input: { largeDiameter: Number(r.largeDiameter), smallDiameter: Number(r.smallDiameter), taperLength: Number(r.length), workLength: L, method, offset },
+        nominal: false,
+      };
+    }
+    // Only the taper is known: draw a bar 1 across with the taper over 3, from the same taper per inch.
+    const D = 1;
+    const l = 3;
+    return { input: { largeDiameter: D, smallDiameter: Math.max(D - k * l, 0.05), taperLength: l, workLength: L, method, offset }, nominal: true };
+  });
+
+  /** Dimension texts for the drawing. */
+  protected readonly dimensionTexts = computed<LatheDimensionTexts>(() => {
+    const r = this.calc.value();
+    const w = this.work();
+    if (!r || !w) return {};
+    const u = r.unit;
+    const texts: LatheDimensionTexts = {};
+    if (!w.nominal) {
+      texts.large = `Ø ${r.largeDiameter} ${u}`;
+      texts.small = `Ø ${r.smallDiameter} ${u}`;
+      texts.taper = `${r.length} ${u}`;
+    }
+    if (r.tailstockOffset !== null) texts.work = `L ${this.raw().workLength} ${u}`;
+    if (r.tailstockOffset !== null && this.raw().method === 'offset') texts.offset = `offset ${r.tailstockOffset} ${u}`;
+    return texts;
+  });
+
+  /** The arc's text: the half angle for the compound, the offset's tilt otherwise. */
+  protected readonly angleText = computed(() => {
+    const r = this.calc.value();
+    if (!r) return '';
+    return this.raw().method === 'compound' ? `α/2 = ${r.halfAngleDms}` : `tilt ≈ α/2 = ${r.halfAngleDms}`;
+  });
+
+  /** The numbers to show. */
+  protected readonly results = computed<ResultItem[]>(() => {
+    const r = this.calc.value();
+    if (!r) return [];
+    const u = r.unit;
+    const compound = this.raw().method === 'compound';
+    const items: ResultItem[] = [];
+    const half: ResultItem = {
+      label: 'Half angle (compound setting)', value: r.halfAngleDms, unit: '', note: `${r.halfAngleDeg}° from the lathe axis`, emphasis: compound,
+    };
+    if (r.tailstockOffset !== null) {
+      const offset: ResultItem = {
+        label: 'Tail-stock offset', value: r.tailstockOffset, unit: u, note: `For ${this.raw().workLength} ${u} between centres`, emphasis: !compound,
+      };
+      items.push(...(compound ? [half, offset] : [offset, half]));
+    } else {
+      items.push(half);
+    }
+    items.push(
+      { label: 'Taper per foot', value: r.taperPerFoot, unit: 'in/ft', note: u === 'mm' ? 'Diameter change per 12 units of length' : undefined },
+      { label: 'Taper per inch', value: r.taperPerInch, unit: `${u}/${u}` },
+      { label: 'Ratio', value: r.ratio, unit: '' },
+      { label: 'Included angle', value: r.includedAngleDms, unit: '', note: `${r.includedAngleDeg}°` },
+    );
+    if (r.largeDiameter !== null) items.push({ label: 'Large diameter', value: r.largeDiameter, unit: u });
+    if (r.smallDiameter !== null) items.push({ label: 'Small diameter', value: r.smallDiameter, unit: u });
+    if (r.length !== null) items.push({ label: 'Taper length', value: r.length, unit: u });
+    for (const s of r.stations) items.push({ label: `Ø at ${s.distance} ${u} from the large end`, value: s.diameter, unit: u });
+    return items;
+  });
+
+  /** Messages that belong to no single field. */
+  protected readonly problems = computed(() => this.calc.messages().general);
+
+  /** Converts every entered length to the new unit and switches to it. */
+  protected changeUnit(to: LengthUnit): void {
+    const from = this.form.controls.unit.value;
+    convertLengthControls(this.form.controls, LENGTH_CONTROLS, from, to);
+    const stations = splitStations(this.form.controls.stations.value).map((s) => convertLengthText(s, from, to));
+    this.form.controls.stations.setValue(stations.join(', '), { emitEvent: false });
+    this.form.controls.unit.setValue(to);
+  }
+}
