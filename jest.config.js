@@ -9,6 +9,8 @@ const tsJest = {
 };
 
 module.exports = {
+  // Global (Jest applies testTimeout only at the top level): browser and database tests need more than 5 s.
+  testTimeout: 60000,
   projects: [
     {
       displayName: 'unit',
@@ -37,7 +39,6 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.e2e.ts'],
       transform: tsJest,
-      testTimeout: 60000,
     },
     {
       displayName: 'faults',
@@ -45,7 +46,6 @@ module.exports = {
       roots: ['<rootDir>/tests/faults'],
       testMatch: ['**/*.test.ts'],
       transform: tsJest,
-      testTimeout: 120000,
     },
   ],
 };

@@ -44,6 +44,7 @@ export const teamPaths = {
     },
   },
   '/api/auth/logout': { post: { summary: 'Sign out', parameters: csrf, responses: { 204: { description: 'Session destroyed' }, 403: errorResponse('Missing CSRF token') } } },
+  '/api/auth/session': { get: { summary: 'Who is signed in, for the app\'s start-up (never 401)', responses: { 200: { description: '{"user": User | null}', ...json({ type: 'object', properties: { user: { oneOf: [user, { type: 'null' }] } } }) } } } },
   '/api/auth/me': { get: { summary: 'The signed-in user', responses: { 200: { description: 'User', ...json(user) }, 401: errorResponse('Not signed in') } } },
   '/api/setups': {
     get: { summary: 'The team\'s set-ups visible to you', responses: { 200: { description: 'List', ...json({ type: 'object', properties: { setups: { type: 'array', items: setup } } }) }, 401: errorResponse('Not signed in') } },

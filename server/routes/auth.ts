@@ -63,6 +63,11 @@ export function createAuthRouter(throttle: LoginThrottle): Router {
     res.status(204).end();
   });
 
+  // For the app's start-up: who is signed in, without a 401 for an anonymous visit.
+  router.get('/session', (req, res) => {
+    res.json({ user: req.user ? req.user.toPublic() : null });
+  });
+
   router.get('/me', (req, res) => {
     res.json(currentUser(req).toPublic());
   });

@@ -14,7 +14,9 @@ describe('routes', () => {
     for (const area of AREAS) {
       const matching = routes.filter(r => r.path === area.path);
       expect(matching).toHaveLength(1);
-      expect(matching[0].loadComponent).toBeDefined();
+      // An area is one page (loadComponent) or a small set of child pages (loadChildren), never eager.
+      expect(matching[0].loadComponent ?? matching[0].loadChildren).toBeDefined();
+      expect(matching[0].component).toBeUndefined();
       expect((matching[0].canActivate ?? []).includes(signedIn)).toBe(area.needsSignIn);
     }
   });
@@ -42,7 +44,7 @@ describe('routes', () => {
       const navigation = harness.navigateByUrl('/library');
       // The guard asks who is signed in once the router reaches it.
       await new Promise(resolve => setTimeout(resolve));
-      http.expectOne('/api/auth/me').flush({ error: 'Not signed in.' }, { status: 401, statusText: 'Unauthorized' });
+      http.expectOne('/api/auth/session').flush({ user: null });
       await navigation;
       expect(TestBed.inject(Router).url).toBe('/sign-in?next=%2Flibrary');
     });

@@ -101,6 +101,12 @@ describe('sign-in', () => {
 });
 
 describe('sign-out and /me', () => {
+  it('tells the app who is signed in on /session, 200 with null for nobody', async () => {
+    expect((await request(t.app).get('/api/auth/session').expect(200)).body).toEqual({ user: null });
+    const c = await client(t.app, m.lead);
+    expect((await c.agent.get('/api/auth/session').expect(200)).body).toEqual({ user: { id: m.lead.id, email: m.lead.email, name: m.lead.name, role: 'lead' } });
+  });
+
   it('answers 401 on /me when nobody is signed in', async () => {
     const res = await request(t.app).get('/api/auth/me').expect(401);
     expect(res.body.error).toMatch(/Sign in/);

@@ -20,22 +20,33 @@ describe('Auth', () => {
   afterEach(() => http.verify());
 
   describe('load', () => {
-    it('should set the user from GET /api/auth/me', async () => {
+    it('should set the user from GET /api/auth/session', async () => {
       const loaded = auth.load();
-      const req = http.expectOne('/api/auth/me');
+      const req = http.expectOne('/api/auth/session');
       expect(req.request.method).toBe('GET');
-      req.flush(LEAD);
+      req.flush({ user: LEAD });
       await expect(loaded).resolves.toEqual(LEAD);
       expect(auth.user()).toEqual(LEAD);
       expect(auth.signedIn()).toBe(true);
       expect(auth.loaded()).toBe(true);
     });
 
-    it('should mean nobody on a 401', async () => {
+    it('should mean nobody when the session has no user', async () => {
       expect(auth.loaded()).toBe(false);
       const loaded = auth.load();
-      http.expectOne('/api/auth/me').flush({ error: 'Not signed in.' }, { status: 401, statusText: 'Unauthorized' });
+      http.expectOne('/api/auth/session').flush({ user: null });
       await expect(loaded).resolves.toBeNull();
+      expect(auth.user()).toBeNull();
+      expect(auth.signedIn()).toBe(false);
+      expect(auth.loaded()).toBe(true);
+    });
+
+    it('should mean nobody when the server fails', async () => {
+      const warn = jest.spyOn(console, 'warn').mockImplementation(() => undefined);
+      const loaded = auth.load();
+      http.expectOne('/api/auth/session').flush({ error: 'The database is not answering.' }, { status: 503, statusText: 'Service Unavailable' });
+      await expect(loaded).resolves.toBeNull();
+      expect(warn).toHaveBeenCalled();
       expect(auth.user()).toBeNull();
       expect(auth.signedIn()).toBe(false);
       expect(auth.loaded()).toBe(true);
@@ -44,7 +55,7 @@ describe('Auth', () => {
     it('should mean nobody when the server sends a user of the wrong shape', async () => {
       const warn = jest.spyOn(console, 'warn').mockImplementation(() => undefined);
       const loaded = auth.load();
-      http.expectOne('/api/auth/me').flush({ id: 2, email: 'lead@demo.test', name: 'Morgan Vale', role: 'owner' });
+      http.expectOne('/api/auth/session').flush({ user: { id: 2, email: 'lead@demo.test', name: 'Morgan Vale', role: 'owner' } });
       await expect(loaded).resolves.toBeNull();
       expect(warn).toHaveBeenCalled();
     });
@@ -54,11 +65,11 @@ describe('Auth', () => {
     it('should ask the server only once', async () => {
       const first = auth.ready();
       const second = auth.ready();
-      http.expectOne('/api/auth/me').flush(LEAD);
+      http.expectOne('/api/auth/session').flush({ user: LEAD });
       await expect(first).resolves.toEqual(LEAD);
       await expect(second).resolves.toEqual(LEAD);
       await expect(auth.ready()).resolves.toEqual(LEAD);
-      http.expectNone('/api/auth/me');
+      http.expectNone('/api/auth/session');
     });
   });
 

@@ -1,4 +1,4 @@
-import { HttpClient, HttpErrorResponse } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 
@@ -34,14 +34,15 @@ export class Auth {
   /** Whether someone is signed in. */
   readonly signedIn = computed(() => this._user() !== null);
 
-  /** Asks the server who is signed in (GET /api/auth/me); a 401 or any failure means nobody. */
+  /**
+   * Asks the server who is signed in (GET /api/auth/session, which answers 200 with `user: null`
+   * for nobody, so an anonymous visit logs no failed request); any failure means nobody.
+   */
   load(): Promise<AuthUser | null> {
-    const request = firstValueFrom(this.http.get<unknown>('/api/auth/me', { context: quietErrors() }))
-      .then(parseAuthUser)
+    const request = firstValueFrom(this.http.get<{ user?: unknown }>('/api/auth/session', { context: quietErrors() }))
+      .then(body => (body?.user === null ? null : parseAuthUser(body?.user)))
       .catch((err: unknown) => {
-        if (!(err instanceof HttpErrorResponse && err.status === 401)) {
-          console.warn('Auth: could not load the signed-in user.', err);
-        }
+        console.warn('Auth: could not load the signed-in user.', err);
         return null;
       })
       .then(user => {
