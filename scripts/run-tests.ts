@@ -3,7 +3,7 @@
  * the demo seed, the SMTP catcher and the built app on a free port; then type checks and every
  * jest project (unit, web, api, e2e). Extra arguments go to jest, e.g. `npm test -- --selectProjects unit`.
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
@@ -35,6 +35,19 @@ function step(name: string, cmd: string, args: string[]): boolean {
   const r = spawnSync(cmd, args, { stdio: 'inherit', env: process.env });
   console.log(`=== ${name}: ${r.status === 0 ? 'ok' : 'FAILED'} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   return r.status === 0;
+}
+
+/** Like `step`, but keeps this process's event loop free: the SMTP catcher and the app answer jest meanwhile. */
+function stepAsync(name: string, cmd: string, args: string[]): Promise<boolean> {
+  const started = Date.now();
+  console.log(`\n=== ${name}`);
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { stdio: 'inherit', env: process.env });
+    child.on('close', (code) => {
+      console.log(`=== ${name}: ${code === 0 ? 'ok' : 'FAILED'} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+      resolve(code === 0);
+    });
+  });
 }
 
 async function main(): Promise<number> {
@@ -78,7 +91,7 @@ async function main(): Promise<number> {
     env['E2E_BASE_URL'] = server.url;
     console.log(`[test] app for end-to-end tests at ${server.url}`);
 
-    ok = step('jest (unit, web, api, e2e)', process.execPath, ['node_modules/jest/bin/jest.js', '--ci', ...jestArgs]) && ok;
+    ok = (await stepAsync('jest (unit, web, api, e2e)', process.execPath, ['node_modules/jest/bin/jest.js', '--ci', ...jestArgs])) && ok;
   } catch (err) {
     console.error('[test] set-up failed:', err);
     ok = false;

@@ -1,6 +1,10 @@
 import type { QueryInterface } from 'sequelize';
 import * as initial from './20261201-0001-initial';
 import * as capturedMails from './20261201-0002-captured-mails';
+import * as library from './20261201-0501-library';
+import * as inventories from './20261201-0502-inventories';
+import * as batchRuns from './20261201-0503-batch-runs';
+import * as trainingAndTeamMail from './20261201-0601-training-and-team-mail';
 
 export interface Migration {
   readonly name: string;
@@ -12,4 +16,8 @@ export interface Migration {
 export const migrations: readonly Migration[] = [
   { name: '20261201-0001-initial', ...initial },
   { name: '20261201-0002-captured-mails', ...capturedMails },
+  { name: '20261201-0601-training-and-team-mail', ...trainingAndTeamMail },
+  { name: '20261201-0501-library', ...library },
+  { name: '20261201-0502-inventories', ...inventories },
+  { name: '20261201-0503-batch-runs', ...batchRuns },
 ];

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { SetupDto, SetupStatus } from '../../shared/api/setup';
+import type { SetupCheck, SetupDto, SetupStatus } from '../../shared/api/setup';
 import type { Team } from './team';
 import type { User } from './user';
 
@@ -15,10 +15,14 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
   declare job: CreationOptional<string | null>;
   declare status: CreationOptional<SetupStatus>;
   declare version: CreationOptional<number>;
+  declare checks: CreationOptional<SetupCheck[]>;
+  declare releasedAt: CreationOptional<Date | null>;
+  declare releasedById: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
   declare owner?: User;
+  declare releasedBy?: User | null;
 
   toDto(): SetupDto {
     return {
@@ -30,8 +34,11 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
       job: this.job ?? null,
       status: this.status,
       version: this.version,
+      checks: this.checks ?? [],
       ownerId: this.ownerId,
       ownerName: this.owner?.name ?? null,
+      releasedAt: this.releasedAt ? this.releasedAt.toISOString() : null,
+      releasedByName: this.releasedBy?.name ?? null,
       createdAt: this.createdAt.toISOString(),
       updatedAt: this.updatedAt.toISOString(),
     };
@@ -58,6 +65,20 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
         job: { type: DataTypes.STRING(80), allowNull: true },
         status: { type: DataTypes.ENUM('draft', 'released', 'archived'), allowNull: false, defaultValue: 'draft' },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
+        checks: {
+          type: DataTypes.TEXT,
+          allowNull: true,
+          get(): SetupCheck[] {
+            const raw = this.getDataValue('checks') as unknown;
+            if (raw === null || raw === undefined || raw === '') return [];
+            return typeof raw === 'string' ? (JSON.parse(raw) as SetupCheck[]) : (raw as SetupCheck[]);
+          },
+          set(value: SetupCheck[]) {
+            this.setDataValue('checks', JSON.stringify(value ?? []) as unknown as SetupCheck[]);
+          },
+        },
+        releasedAt: { type: DataTypes.DATE, allowNull: true },
+        releasedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,5 +1,8 @@
 import { calcPaths } from './calc';
+import { libraryPaths } from './library';
 import { teamPaths, teamSchemas } from './team';
+import { teamAdminPaths } from './team-admin';
+import { trainingPaths } from './training';
 
 /** The OpenAPI 3.1 description of the API, served at GET /api/openapi.json. */
 export const openApiDocument = {
@@ -13,6 +16,6 @@ export const openApiDocument = {
       'Errors are always JSON: {"error": "message", "fields"?: {"field": "message"}}.',
   },
   servers: [{ url: '/' }],
-  paths: { ...teamPaths, ...calcPaths },
+  paths: { ...teamPaths, ...calcPaths, ...teamAdminPaths, ...trainingPaths, ...libraryPaths },
   components: { schemas: { ...teamSchemas } },
 } as const;

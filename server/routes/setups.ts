@@ -1,81 +1,235 @@
-import { Router } from 'express';
-import { setupCreateBody, setupUpdateBody } from '../../shared/api/setup';
+import { Router, type Request, type Response } from 'express';
+import { Op, type Order, type Sequelize, type WhereOptions } from 'sequelize';
+import {
+  SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
+  type SetupExportDto, type SetupPageDto, type SetupStatus,
+} from '../../shared/api/setup';
+import type { AppConfig } from '../config';
 import { currentUser } from '../middleware/auth';
 import { HttpError } from '../middleware/http-error';
 import { parseBody, parseId } from '../middleware/validate';
+import { Attachment } from '../models/attachment';
+import { BatchRun } from '../models/batch-run';
 import { Setup } from '../models/setup';
+import { SetupRevision } from '../models/setup-revision';
+import { Team } from '../models/team';
 import { User } from '../models/user';
-import { canChangeSetup, canSeeSetup } from '../services/setup-access';
+import { canChangeSetup, canReleaseSetup, findVisibleSetup, SETUP_PEOPLE } from '../services/setup-access';
+import { contentOf, diffContent, recordRevision } from '../services/setup-history';
+import { renderSetupSheet } from '../services/setup-sheet';
+import { notifySetupReleased } from '../services/team-mail';
+import type { ObjectStorage } from '../services/storage/object-storage';
+import { createAttachmentsRouter } from './attachments';
 
-async function findVisible(id: number, user: User): Promise<Setup> {
-  const setup = await Setup.findOne({ where: { id, teamId: user.teamId }, include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }] });
-  if (!setup || !canSeeSetup(user, setup)) throw new HttpError(404, 'No set-up with that id in your team.');
-  return setup;
+/** What the library routes need from the app. */
+export interface LibraryDeps {
+  readonly sequelize: Sequelize;
+  readonly storage: ObjectStorage;
+  readonly config: AppConfig;
 }
 
-/** /api/setups: the team's saved set-ups. */
-export function createSetupsRouter(): Router {
+const DEFAULT_PAGE_SIZE = 50;
+const CONFLICT = 'Someone changed this set-up since you opened it. Reload it and apply your edit again.';
+
+/** Parses the list query (all strings), naming each bad parameter with a 400. */
+function listQuery(req: Request) {
+  const parsed = setupListQuery.safeParse(req.query);
+  if (!parsed.success) {
+    const fields: Record<string, string> = {};
+    for (const issue of parsed.error.issues) fields[issue.path.join('.') || '_'] ??= issue.message;
+    throw new HttpError(400, 'Some query parameters are not valid.', fields);
+  }
+  return parsed.data;
+}
+
+/** Escapes LIKE wildcards so a search for "50%" means those characters. */
+function likeText(word: string): string {
+  return `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+/** /api/setups: the team's set-up library. */
+export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps): Router {
   const router = Router();
 
   router.get('/', async (req, res) => {
     const user = currentUser(req);
-    const rows = await Setup.findAll({
-      where: { teamId: user.teamId },
-      include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
-      order: [['updatedAt', 'DESC'], ['id', 'DESC']],
-    });
-    res.json({ setups: rows.filter((s) => canSeeSetup(user, s)).map((s) => s.toDto()) });
+    const q = listQuery(req);
+    const and: WhereOptions[] = [{ teamId: user.teamId }];
+    // Visibility in SQL, so totals and pages count only what this user may see.
+    if (user.role !== 'admin' && user.role !== 'lead') and.push({ [Op.or]: [{ status: { [Op.ne]: 'draft' } }, { ownerId: user.id }] });
+    if (q.kind) and.push({ kind: q.kind });
+    if (q.status) and.push({ status: q.status });
+    if (q.ownerId) and.push({ ownerId: q.ownerId });
+    if (q.job) and.push({ job: q.job });
+    for (const word of (q.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
+      const like = likeText(word);
+      and.push({ [Op.or]: [{ name: { [Op.like]: like } }, { job: { [Op.like]: like } }, { notes: { [Op.like]: like } }] });
+    }
+    const sort = q.sort ?? 'updatedAt';
+    const dir = (q.dir ?? (sort === 'updatedAt' || sort === 'createdAt' ? 'desc' : 'asc')).toUpperCase();
+    const order: Order = sort === 'owner' ? [[{ model: User, as: 'owner' }, 'name', dir], ['id', dir]] : [[sort, dir], ['id', dir]];
+    const pageSize = q.pageSize ?? DEFAULT_PAGE_SIZE;
+    const page = q.page ?? 1;
+    const { rows, count } = await Setup.findAndCountAll({ where: { [Op.and]: and }, include: SETUP_PEOPLE, order, limit: pageSize, offset: (page - 1) * pageSize, distinct: true });
+    const body: SetupPageDto = { setups: rows.map((s) => s.toDto()), total: count, page, pageSize };
+    res.json(body);
   });
 
   router.post('/', async (req, res) => {
     const user = currentUser(req);
     const body = parseBody(setupCreateBody, req.body);
-    const created = await Setup.create({
-      teamId: user.teamId,
-      ownerId: user.id,
-      name: body.name,
-      kind: body.kind,
-      inputs: body.inputs,
-      notes: body.notes ?? '',
-      job: body.job ?? null,
+    const id = await sequelize.transaction(async (transaction) => {
+      const created = await Setup.create(
+        { teamId: user.teamId, ownerId: user.id, name: body.name, kind: body.kind, inputs: body.inputs, notes: body.notes ?? '', job: body.job || null, checks: body.checks ?? [] },
+        { transaction },
+      );
+      await recordRevision(created, 'created', user, [], transaction);
+      return created.id;
     });
-    const setup = await findVisible(created.id, user);
+    const setup = await findVisibleSetup(id, user);
+    res.status(201).location(`/api/setups/${setup.id}`).json(setup.toDto());
+  });
+
+  router.post('/import', async (req, res) => {
+    const user = currentUser(req);
+    const body = parseBody(setupImportBody, req.body);
+    const s = body.setup;
+    const id = await sequelize.transaction(async (transaction) => {
+      const created = await Setup.create(
+        { teamId: user.teamId, ownerId: user.id, name: s.name, kind: s.kind, inputs: s.inputs, notes: s.notes ?? '', job: s.job || null, checks: s.checks ?? [] },
+        { transaction },
+      );
+      await recordRevision(created, 'imported', user, [], transaction);
+      return created.id;
+    });
+    const setup = await findVisibleSetup(id, user);
     res.status(201).location(`/api/setups/${setup.id}`).json(setup.toDto());
   });
 
   router.get('/:id', async (req, res) => {
     const user = currentUser(req);
-    res.json((await findVisible(parseId(req.params['id']), user)).toDto());
+    res.json((await findVisibleSetup(parseId(req.params['id']), user)).toDto());
   });
 
   router.put('/:id', async (req, res) => {
     const user = currentUser(req);
-    const setup = await findVisible(parseId(req.params['id']), user);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
     if (!canChangeSetup(user, setup)) throw new HttpError(403, 'You may only change your own set-ups.');
     const body = parseBody(setupUpdateBody, req.body);
-    if (body.version !== undefined && body.version !== setup.version) {
-      res.status(409).json({ error: 'Someone changed this set-up since you opened it. Reload it and apply your edit again.', version: setup.version, setup: setup.toDto() });
+    if (body.version !== setup.version) {
+      res.status(409).json({ error: CONFLICT, version: setup.version, setup: setup.toDto() });
       return;
     }
-    const [count] = await Setup.update(
-      { name: body.name, kind: body.kind, inputs: body.inputs, notes: body.notes ?? setup.notes, job: body.job === undefined ? setup.job : body.job, version: setup.version + 1 },
-      { where: { id: setup.id, version: setup.version } },
-    );
-    const fresh = await findVisible(setup.id, user);
-    if (count === 0) {
-      res.status(409).json({ error: 'Someone changed this set-up since you opened it. Reload it and apply your edit again.', version: fresh.version, setup: fresh.toDto() });
+    if (setup.status === 'archived') throw new HttpError(409, 'This set-up is archived and read-only. A lead can release it again before it is changed.');
+    const before = contentOf(setup);
+    const after = { name: body.name, kind: body.kind, inputs: body.inputs, notes: body.notes ?? setup.notes, job: body.job === undefined ? (setup.job ?? null) : body.job || null, checks: body.checks ?? setup.checks };
+    const changes = diffContent(before, after);
+    if (changes.length === 0) {
+      res.json(setup.toDto());
+      return;
+    }
+    // Changing released content makes a new draft for a lead to release; the released content
+    // stays in the history.
+    const status: SetupStatus = 'draft';
+    if (setup.status !== status) changes.push({ field: 'status', from: setup.status, to: status });
+    const stale = await sequelize.transaction(async (transaction) => {
+      const [count] = await Setup.update(
+        { ...after, status, releasedAt: null, releasedById: null, version: setup.version + 1 },
+        { where: { id: setup.id, version: setup.version }, transaction },
+      );
+      if (count === 0) return true;
+      const fresh = await Setup.findByPk(setup.id, { transaction });
+      if (fresh) await recordRevision(fresh, 'edited', user, changes, transaction);
+      return false;
+    });
+    const fresh = await findVisibleSetup(setup.id, user);
+    if (stale) {
+      res.status(409).json({ error: CONFLICT, version: fresh.version, setup: fresh.toDto() });
       return;
     }
     res.json(fresh.toDto());
   });
 
+  /** Moves a set-up to a new status (lead or admin), stamping and recording it; answers the request. */
+  async function changeStatus(req: Request, res: Response, to: 'released' | 'archived'): Promise<void> {
+    const user = currentUser(req);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
+    if (!canReleaseSetup(user, setup)) throw new HttpError(403, `Only a lead or an admin may ${to === 'released' ? 'release' : 'archive'} set-ups.`);
+    const raw: unknown = req.body;
+    const body = raw === undefined || raw === null || (typeof raw === 'object' && Object.keys(raw).length === 0) ? {} : parseBody(setupStatusBody, raw);
+    if (body.version !== undefined && body.version !== setup.version) {
+      res.status(409).json({ error: CONFLICT, version: setup.version, setup: setup.toDto() });
+      return;
+    }
+    if (setup.status === to) throw new HttpError(409, `This set-up is already ${to}.`);
+    const stamp = to === 'released' ? { releasedAt: new Date(), releasedById: user.id } : {};
+    const stale = await sequelize.transaction(async (transaction) => {
+      const [count] = await Setup.update({ status: to, version: setup.version + 1, ...stamp }, { where: { id: setup.id, version: setup.version }, transaction });
+      if (count === 0) return true;
+      const fresh = await Setup.findByPk(setup.id, { transaction });
+      if (fresh) await recordRevision(fresh, to, user, [{ field: 'status', from: setup.status, to }], transaction);
+      return false;
+    });
+    const fresh = await findVisibleSetup(setup.id, user);
+    if (stale) res.status(409).json({ error: CONFLICT, version: fresh.version, setup: fresh.toDto() });
+    else res.json(fresh.toDto());
+    // Tell the owner their set-up was released (e-mail; a mail failure is logged, never fails the release).
+    if (!stale && to === 'released') void notifySetupReleased(fresh, user);
+  }
+
+  router.post('/:id/release', async (req, res) => {
+    await changeStatus(req, res, 'released');
+  });
+
+  router.post('/:id/archive', async (req, res) => {
+    await changeStatus(req, res, 'archived');
+  });
+
+  router.get('/:id/revisions', async (req, res) => {
+    const user = currentUser(req);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
+    const rows = await SetupRevision.findAll({ where: { setupId: setup.id }, include: [{ model: User, as: 'user', attributes: ['id', 'name'] }], order: [['id', 'DESC']] });
+    res.json({ revisions: rows.map((r) => r.toDto()) });
+  });
+
+  router.get('/:id/export', async (req, res) => {
+    const user = currentUser(req);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
+    const team = await Team.findByPk(user.teamId);
+    const body: SetupExportDto = {
+      format: SETUP_EXPORT_FORMAT,
+      exportedAt: new Date().toISOString(),
+      source: { team: team?.name ?? '', id: setup.id, version: setup.version, status: setup.status },
+      setup: contentOf(setup),
+    };
+    res.attachment(`setup-${setup.id}-v${setup.version}.json`).json(body);
+  });
+
+  router.get('/:id/sheet.pdf', async (req, res) => {
+    const user = currentUser(req);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
+    const attachments = await Attachment.findAll({ where: { setupId: setup.id }, order: [['id', 'ASC']] });
+    const pdf = await renderSetupSheet({ setup, attachments, storage, link: `${config.publicUrl.replace(/\/$/, '')}/library/${setup.id}` });
+    res.type('application/pdf').attachment(`setup-sheet-${setup.id}-v${setup.version}.pdf`).send(pdf);
+  });
+
   router.delete('/:id', async (req, res) => {
     const user = currentUser(req);
-    const setup = await findVisible(parseId(req.params['id']), user);
+    const setup = await findVisibleSetup(parseId(req.params['id']), user);
     if (!canChangeSetup(user, setup)) throw new HttpError(403, 'You may only delete your own set-ups.');
+    if ((await BatchRun.count({ where: { setupId: setup.id } })) > 0) {
+      throw new HttpError(409, 'This set-up has batch runs on record; archive it instead of deleting it.');
+    }
+    const files = await Attachment.findAll({ where: { setupId: setup.id } });
     await setup.destroy();
+    for (const f of files) {
+      await storage.delete(f.storageKey);
+      if (f.thumbnailKey) await storage.delete(f.thumbnailKey);
+    }
     res.status(204).end();
   });
+
+  router.use('/:id/attachments', createAttachmentsRouter({ sequelize, storage, maxBytes: config.uploads.maxBytes }));
 
   return router;
 }

@@ -4,6 +4,8 @@ import type { SetupStatus } from '../../shared/api/setup';
 import demo from '../../fixtures/demo.json';
 import { Setup, Team, User } from '../models';
 import { BCRYPT_COST } from '../routes/auth';
+import { seedTraining, type DemoTraining } from './training';
+import { seedLibrary, type DemoLibrary } from './library';
 
 interface DemoSetup {
   name: string;
@@ -41,5 +43,7 @@ export async function seedDemo(password: string): Promise<{ teamId: number; crea
     await Setup.create({ teamId: team.id, ownerId: owner.id, name: s.name, kind: s.kind, inputs: s.inputs, notes: s.notes, job: s.job, status: s.status as SetupStatus });
     created++;
   }
+  created += await seedTraining(team.id, demo.training as DemoTraining, byEmail);
+  created += await seedLibrary(team.id, demo.library as DemoLibrary, byEmail);
   return { teamId: team.id, created };
 }

@@ -1,5 +1,19 @@
-import type { Setup } from '../models/setup';
-import type { User } from '../models/user';
+import { HttpError } from '../middleware/http-error';
+import { Setup } from '../models/setup';
+import { User } from '../models/user';
+
+/** The people a set-up response names (owner and releaser). */
+export const SETUP_PEOPLE = [
+  { model: User, as: 'owner', attributes: ['id', 'name'] },
+  { model: User, as: 'releasedBy', attributes: ['id', 'name'] },
+];
+
+/** A set-up of the user's team that the user may see, or a 404 (never a hint that it exists). */
+export async function findVisibleSetup(id: number, user: User): Promise<Setup> {
+  const setup = await Setup.findOne({ where: { id, teamId: user.teamId }, include: SETUP_PEOPLE });
+  if (!setup || !canSeeSetup(user, setup)) throw new HttpError(404, 'No set-up with that id in your team.');
+  return setup;
+}
 
 /**
  * Who may see a team set-up: leads and admins see all; machinists and apprentices see released
@@ -15,4 +29,9 @@ export function canSeeSetup(user: User, setup: Setup): boolean {
 export function canChangeSetup(user: User, setup: Setup): boolean {
   if (setup.teamId !== user.teamId) return false;
   return user.role === 'admin' || user.role === 'lead' || setup.ownerId === user.id;
+}
+
+/** Who may release or archive a set-up: a lead or an admin of the team (not the owner as such). */
+export function canReleaseSetup(user: User, setup: Setup): boolean {
+  return setup.teamId === user.teamId && (user.role === 'admin' || user.role === 'lead');
 }

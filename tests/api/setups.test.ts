@@ -2,6 +2,8 @@ import request from 'supertest';
 import { Setup } from '../../server/models';
 import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
 
+jest.setTimeout(30_000);
+
 let t: TestApp;
 let m: Members;
 let foreign: Members;
@@ -76,13 +78,16 @@ describe('/api/setups', () => {
   it('lets the owner, a lead and an admin change a set-up; others get 403', async () => {
     const own = await create(c.machinist, { name: 'Owned', kind: 'taper', inputs: taper }).expect(201);
     await Setup.update({ status: 'released' }, { where: { id: own.body.id } });
-    const put = (who: Client, name: string) =>
-      who.agent.put(`/api/setups/${own.body.id}`).set('X-CSRF-Token', who.token).send({ name, kind: 'taper', inputs: taper });
-    await put(c.apprentice, 'by apprentice').expect(403);
-    await put(c.other, 'by other machinist').expect(403);
-    expect((await put(c.machinist, 'by owner').expect(200)).body.name).toBe('by owner');
-    expect((await put(c.lead, 'by lead').expect(200)).body.name).toBe('by lead');
-    expect((await put(c.admin, 'by admin').expect(200)).body).toMatchObject({ name: 'by admin', version: 4 });
+    const put = async (who: Client, name: string) => {
+      const version = (await Setup.findByPk(own.body.id))?.version;
+      return who.agent.put(`/api/setups/${own.body.id}`).set('X-CSRF-Token', who.token).send({ name, kind: 'taper', inputs: taper, version });
+    };
+    expect((await put(c.apprentice, 'by apprentice')).status).toBe(403);
+    expect((await put(c.other, 'by other machinist')).status).toBe(403);
+    expect((await put(c.machinist, 'by owner')).status).toBe(200);
+    expect((await put(c.lead, 'by lead')).body).toMatchObject({ name: 'by lead', status: 'draft' });
+    expect((await put(c.admin, 'by admin')).body).toMatchObject({ name: 'by admin', version: 4 });
+    await Setup.update({ status: 'released' }, { where: { id: own.body.id } });
     await c.apprentice.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.apprentice.token).expect(403);
     await c.other.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.other.token).expect(403);
     await c.lead.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.lead.token).expect(204);
@@ -103,5 +108,12 @@ describe('/api/setups', () => {
     const stale = await c.lead.agent.put(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.lead.token).send({ name: 'Edit B', kind: 'taper', inputs: taper, version: 1 }).expect(409);
     expect(stale.body.version).toBe(2);
     expect((await Setup.findByPk(s.body.id))?.name).toBe('Edit A');
+  });
+
+  it('requires the version an edit is based on', async () => {
+    const s = await create(c.machinist, { name: 'Needs version', kind: 'taper', inputs: taper }).expect(201);
+    const res = await c.machinist.agent.put(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.machinist.token).send({ name: 'No version', kind: 'taper', inputs: taper }).expect(400);
+    expect(res.body.fields.version).toMatch(/version/);
+    expect((await Setup.findByPk(s.body.id))?.name).toBe('Needs version');
   });
 });

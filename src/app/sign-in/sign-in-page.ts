@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
@@ -19,7 +19,7 @@ export const DEMO_ACCOUNTS = ['admin@demo.test', 'lead@demo.test', 'machinist@de
   selector: 'app-sign-in-page',
   imports: [
     ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule,
-    MatProgressBarModule,
+    MatProgressBarModule, RouterLink,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './sign-in-page.html',

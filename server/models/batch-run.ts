@@ -1,0 +1,130 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { BatchPartDto, BatchRunDto, BatchStatus } from '../../shared/api/batch';
+import type { SetupCheck } from '../../shared/api/setup';
+import { jsonText } from './setup-revision';
+import type { User } from './user';
+
+/** A released set-up made on N parts; its checks are copied in when the run starts. */
+export class BatchRun extends Model<InferAttributes<BatchRun>, InferCreationAttributes<BatchRun>> {
+  declare id: CreationOptional<number>;
+  declare teamId: number;
+  declare setupId: number;
+  declare setupVersion: number;
+  declare setupName: string;
+  declare label: string;
+  declare partCount: number;
+  declare status: CreationOptional<BatchStatus>;
+  declare checks: SetupCheck[];
+  declare startedById: number | null;
+  declare closedById: CreationOptional<number | null>;
+  declare closedAt: CreationOptional<Date | null>;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare startedBy?: User | null;
+  declare closedBy?: User | null;
+  declare parts?: BatchPart[];
+
+  /** The run without parts and statistics; `summary` comes from the loaded parts or the given counts. */
+  toDto(summary?: BatchRunDto['summary']): BatchRunDto {
+    const parts = this.parts ?? [];
+    return {
+      id: this.id,
+      setupId: this.setupId,
+      setupName: this.setupName,
+      setupVersion: this.setupVersion,
+      label: this.label,
+      partCount: this.partCount,
+      status: this.status,
+      checks: this.checks,
+      startedById: this.startedById,
+      startedByName: this.startedBy?.name ?? null,
+      closedAt: this.closedAt ? this.closedAt.toISOString() : null,
+      closedByName: this.closedBy?.name ?? null,
+      version: this.version,
+      summary: summary ?? { entered: parts.length, passed: parts.filter((p) => p.pass).length, failed: parts.filter((p) => !p.pass).length },
+      createdAt: this.createdAt.toISOString(),
+      updatedAt: this.updatedAt.toISOString(),
+    };
+  }
+
+  static initModel(sequelize: Sequelize): void {
+    BatchRun.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        teamId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        setupId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        setupVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        setupName: { type: DataTypes.STRING(160), allowNull: false },
+        label: { type: DataTypes.STRING(120), allowNull: false },
+        partCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        status: { type: DataTypes.ENUM('open', 'closed'), allowNull: false, defaultValue: 'open' },
+        checks: jsonText<SetupCheck[]>('checks', []),
+        startedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        closedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        closedAt: { type: DataTypes.DATE, allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'batch_runs' },
+    );
+  }
+}
+
+/** One part of a run: its readings, pass/fail, operator and time. */
+export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAttributes<BatchPart>> {
+  declare id: CreationOptional<number>;
+  declare runId: number;
+  declare partNo: number;
+  declare touchOff: string | null;
+  declare droAtStop: string | null;
+  declare readings: Record<string, string>;
+  declare pass: boolean;
+  declare outOfBand: string;
+  declare operatorId: number | null;
+  declare measuredAt: Date;
+  declare note: CreationOptional<string>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare operator?: User | null;
+
+  toDto(): BatchPartDto {
+    return {
+      id: this.id,
+      partNo: this.partNo,
+      touchOff: this.touchOff,
+      droAtStop: this.droAtStop,
+      values: this.readings,
+      pass: this.pass,
+      outOfBand: this.outOfBand ? this.outOfBand.split(',') : [],
+      operatorId: this.operatorId,
+      operatorName: this.operator?.name ?? null,
+      measuredAt: this.measuredAt.toISOString(),
+      note: this.note,
+    };
+  }
+
+  static initModel(sequelize: Sequelize): void {
+    BatchPart.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        runId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        partNo: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        touchOff: { type: DataTypes.STRING(20), allowNull: true },
+        droAtStop: { type: DataTypes.STRING(20), allowNull: true },
+        readings: jsonText<Record<string, string>>('readings', {}),
+        pass: { type: DataTypes.BOOLEAN, allowNull: false },
+        outOfBand: { type: DataTypes.STRING(600), allowNull: false, defaultValue: '' },
+        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        measuredAt: { type: DataTypes.DATE, allowNull: false },
+        note: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'batch_parts' },
+    );
+  }
+}

@@ -1,0 +1,185 @@
+import { Router, type Request } from 'express';
+import { Transaction, type Sequelize, type WhereOptions } from 'sequelize';
+import { batchCreateBody, batchPartBody, BATCH_STATUSES, type BatchPartBody, type BatchRunDto } from '../../shared/api/batch';
+import { DECIMAL_TEXT, type SetupCheck } from '../../shared/api/setup';
+import { checkStats, partVerdict } from '../../shared/batch/batch-stats';
+import { currentUser } from '../middleware/auth';
+import { HttpError } from '../middleware/http-error';
+import { parseBody, parseId } from '../middleware/validate';
+import { BatchPart, BatchRun } from '../models/batch-run';
+import { User } from '../models/user';
+import { findVisibleSetup } from '../services/setup-access';
+
+const PEOPLE = [
+  { model: User, as: 'startedBy', attributes: ['id', 'name'] },
+  { model: User, as: 'closedBy', attributes: ['id', 'name'] },
+];
+
+function mayRun(user: User): void {
+  if (user.role === 'apprentice') throw new HttpError(403, 'Apprentices may watch batch runs but not record them; ask a machinist or a lead.');
+}
+
+/** Checks a part's values against the run's checks: every check once, each a decimal number. */
+function readings(checks: readonly SetupCheck[], body: BatchPartBody): Record<string, string> {
+  const fields: Record<string, string> = {};
+  const out: Record<string, string> = {};
+  const known = new Set(checks.map((c) => c.key));
+  for (const key of Object.keys(body.values)) if (!known.has(key)) fields[`values.${key}`] = `This run has no check "${key}".`;
+  for (const check of checks) {
+    const raw = body.values[check.key];
+    const text = raw === undefined ? '' : String(raw).trim();
+    if (text === '') fields[`values.${check.key}`] = `Enter the ${check.label.toLowerCase()}.`;
+    else if (!DECIMAL_TEXT.test(text)) fields[`values.${check.key}`] = `${check.label} must be a decimal number such as ${check.nominal}.`;
+    else out[check.key] = text;
+  }
+  if (Object.keys(fields).length) throw new HttpError(400, 'Some readings are not valid.', fields);
+  return out;
+}
+
+function csvCell(value: string | number | null | undefined, text = false): string {
+  let s = value === null || value === undefined ? '' : String(value);
+  // A text cell starting like a formula is neutralised for spreadsheet programs.
+  if (text && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** The batch run as CSV: one row per part, a column per check value (band in the header). */
+export function batchCsv(run: BatchRun, parts: readonly BatchPart[]): string {
+  const checks = run.checks;
+  const header = ['part', 'measured_at_utc', 'operator', 'touch_off', 'dro_at_stop', ...checks.map((c) => `${c.label} (${c.unit}) [${c.nominal} +${c.plus}/-${c.minus}]`), 'pass', 'out_of_band', 'note'];
+  const lines = [header.map((h) => csvCell(h, true)).join(',')];
+  for (const p of [...parts].sort((a, b) => a.partNo - b.partNo)) {
+    lines.push([
+      csvCell(p.partNo), csvCell(p.measuredAt.toISOString()), csvCell(p.operator?.name ?? '', true), csvCell(p.touchOff), csvCell(p.droAtStop),
+      ...checks.map((c) => csvCell(p.readings[c.key] ?? '')),
+      csvCell(p.pass ? 'pass' : 'fail'), csvCell(p.outOfBand, true), csvCell(p.note, true),
+    ].join(','));
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}
+
+/** /api/batches: batch runs of released set-ups, part by part. */
+export function createBatchesRouter(sequelize: Sequelize): Router {
+  const router = Router();
+
+  async function loadRun(teamId: number, id: number, withParts = false): Promise<BatchRun> {
+    const run = await BatchRun.findOne({
+      where: { id, teamId },
+      include: withParts ? [...PEOPLE, { model: BatchPart, as: 'parts', include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }] }] : PEOPLE,
+    });
+    if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
+    return run;
+  }
+
+  const findRun = (req: Request, withParts = false) => loadRun(currentUser(req).teamId, parseId(req.params['id'], 'batch run'), withParts);
+
+  function fullDto(run: BatchRun): BatchRunDto {
+    const parts = [...(run.parts ?? [])].sort((a, b) => a.partNo - b.partNo);
+    return { ...run.toDto(), parts: parts.map((p) => p.toDto()), stats: checkStats(run.checks, parts.map((p) => ({ partNo: p.partNo, values: p.readings }))) };
+  }
+
+  router.get('/', async (req, res) => {
+    const user = currentUser(req);
+    const where: WhereOptions = { teamId: user.teamId };
+    const setupId = req.query['setupId'];
+    const status = req.query['status'];
+    if (setupId !== undefined) {
+      if (typeof setupId !== 'string' || !/^\d{1,10}$/.test(setupId)) throw new HttpError(400, 'Some query parameters are not valid.', { setupId: 'setupId must be a whole number.' });
+      Object.assign(where, { setupId: Number(setupId) });
+    }
+    if (status !== undefined) {
+      if (typeof status !== 'string' || !(BATCH_STATUSES as readonly string[]).includes(status)) throw new HttpError(400, 'Some query parameters are not valid.', { status: 'Status must be open or closed.' });
+      Object.assign(where, { status });
+    }
+    const runs = await BatchRun.findAll({ where, include: [...PEOPLE, { model: BatchPart, as: 'parts', attributes: ['id', 'partNo', 'pass'] }], order: [['status', 'DESC'], ['createdAt', 'DESC'], ['id', 'DESC']], limit: 200 });
+    res.json({ batches: runs.map((r) => r.toDto()) });
+  });
+
+  router.post('/', async (req, res) => {
+    const user = currentUser(req);
+    mayRun(user);
+    const body = parseBody(batchCreateBody, req.body);
+    const setup = await findVisibleSetup(body.setupId, user).catch(() => {
+      throw new HttpError(400, 'Some fields are not valid.', { setupId: 'No set-up with that id in your team.' });
+    });
+    if (setup.status !== 'released') throw new HttpError(409, 'Only a released set-up can be run; ask a lead to release it first.', { setupId: 'This set-up is not released.' });
+    if (setup.checks.length === 0) throw new HttpError(409, 'This set-up names no check values to measure; add them to the set-up first.', { setupId: 'The set-up has no check values.' });
+    const run = await BatchRun.create({
+      teamId: user.teamId, setupId: setup.id, setupVersion: setup.version, setupName: setup.name,
+      label: body.label || `${setup.job ?? setup.name} × ${body.partCount}`, partCount: body.partCount, checks: setup.checks, startedById: user.id,
+    });
+    const fresh = await loadRun(user.teamId, run.id, true);
+    res.status(201).location(`/api/batches/${run.id}`).json(fullDto(fresh));
+  });
+
+  router.get('/:id', async (req, res) => {
+    res.json(fullDto(await findRun(req, true)));
+  });
+
+  router.get('/:id/export.csv', async (req, res) => {
+    const run = await findRun(req, true);
+    res.type('text/csv; charset=utf-8').attachment(`batch-${run.id}.csv`).send(batchCsv(run, run.parts ?? []));
+  });
+
+  /** Writes one part inside a transaction that holds the run's row: no half records, no duplicate numbers. */
+  async function savePart(req: Request, partNo: number | undefined, replace: boolean): Promise<{ run: BatchRun; partNo: number }> {
+    const user = currentUser(req);
+    mayRun(user);
+    const runId = parseId(req.params['id'], 'batch run');
+    const body = parseBody(batchPartBody, req.body);
+    const number = await sequelize.transaction(async (transaction) => {
+      const run = await BatchRun.findOne({ where: { id: runId, teamId: user.teamId }, lock: Transaction.LOCK.UPDATE, transaction });
+      if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
+      if (run.status === 'closed') throw new HttpError(409, 'This batch run is closed and read-only.');
+      const values = readings(run.checks, body);
+      const verdict = partVerdict(run.checks, values);
+      const existing = await BatchPart.findAll({ where: { runId: run.id }, attributes: ['id', 'partNo'], transaction });
+      const wanted = partNo ?? body.partNo ?? existing.reduce((m, p) => Math.max(m, p.partNo), 0) + 1;
+      if (wanted > run.partCount) throw new HttpError(409, `This run is for ${run.partCount} parts; part ${wanted} is beyond it.`, { partNo: `At most ${run.partCount}.` });
+      const row = {
+        touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass,
+        outOfBand: verdict.outOfBand.join(','), operatorId: user.id, measuredAt: new Date(), note: body.note ?? '',
+      };
+      const already = existing.find((p) => p.partNo === wanted);
+      if (replace) {
+        if (!already) throw new HttpError(404, `Part ${wanted} has not been entered yet.`);
+        await BatchPart.update(row, { where: { id: already.id }, transaction });
+      } else {
+        if (already) throw new HttpError(409, `Part ${wanted} is already entered; correct it instead of adding it again.`, { partNo: 'Already entered.' });
+        await BatchPart.create({ runId: run.id, partNo: wanted, ...row }, { transaction });
+      }
+      await run.update({ version: run.version + 1 }, { transaction });
+      return wanted;
+    });
+    return { run: await findRun(req, true), partNo: number };
+  }
+
+  router.post('/:id/parts', async (req, res) => {
+    const { run, partNo } = await savePart(req, undefined, false);
+    const dto = fullDto(run);
+    res.status(201).location(`/api/batches/${run.id}/parts/${partNo}`).json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+  });
+
+  router.put('/:id/parts/:partNo', async (req, res) => {
+    const partNo = parseId(req.params['partNo'], 'part');
+    const { run } = await savePart(req, partNo, true);
+    const dto = fullDto(run);
+    res.json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+  });
+
+  router.post('/:id/close', async (req, res) => {
+    const user = currentUser(req);
+    mayRun(user);
+    const runId = parseId(req.params['id'], 'batch run');
+    await sequelize.transaction(async (transaction) => {
+      const run = await BatchRun.findOne({ where: { id: runId, teamId: user.teamId }, lock: Transaction.LOCK.UPDATE, transaction });
+      if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
+      if (run.status === 'closed') throw new HttpError(409, 'This batch run is already closed.');
+      if (user.role === 'machinist' && run.startedById !== user.id) throw new HttpError(403, 'Only the machinist who started the run, a lead or an admin may close it.');
+      await run.update({ status: 'closed', closedAt: new Date(), closedById: user.id, version: run.version + 1 }, { transaction });
+    });
+    res.json(fullDto(await findRun(req, true)));
+  });
+
+  return router;
+}

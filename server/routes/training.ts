@@ -1,0 +1,185 @@
+import { Router, type Request } from 'express';
+import { Op } from 'sequelize';
+import { assignmentCreateBody, attemptBody, MAX_ATTEMPTS, type ScoreTableDto } from '../../shared/api/training';
+import { checkAnswer } from '../../shared/training/exercise';
+import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
+import { generateExercise } from '../../shared/training/generators';
+import { newSeed } from '../../shared/training/prng';
+import { currentUser, requireRole } from '../middleware/auth';
+import { HttpError } from '../middleware/http-error';
+import { parseBody, parseId } from '../middleware/validate';
+import { Assignment, AssignmentWork, TrainingAttempt, TrainingProblem, User } from '../models';
+import { sendMail } from '../services/mailer';
+import { assignmentMail } from '../services/team-mail';
+import { assignmentDto, plannedProblems, problemDto, workSummary } from '../services/training';
+
+const canAssign = (user: User) => user.role === 'lead' || user.role === 'admin';
+
+const workInclude = [
+  { model: User, as: 'user', attributes: ['id', 'name'] },
+  { model: TrainingProblem, as: 'problems', include: [{ model: TrainingAttempt, as: 'attempts' }] },
+];
+
+/** The assignment of the caller's team, or 404. */
+async function teamAssignment(id: number, user: User): Promise<Assignment> {
+  const assignment = await Assignment.findOne({ where: { id, teamId: user.teamId }, include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }] });
+  if (!assignment) throw new HttpError(404, 'No assignment with that id in your team.');
+  return assignment;
+}
+
+/** The caller's own copy of an assignment (with problems and attempts), or 404. */
+async function ownWork(req: Request): Promise<{ assignment: Assignment; work: AssignmentWork }> {
+  const user = currentUser(req);
+  const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), user);
+  const work = await AssignmentWork.findOne({ where: { assignmentId: assignment.id, userId: user.id }, include: workInclude });
+  if (!work) throw new HttpError(404, 'No assignment with that id for you.');
+  return { assignment, work };
+}
+
+function positionParam(raw: string | string[] | undefined): number {
+  return parseId(raw, 'problem');
+}
+
+/** /api/training: exercise types, assignments, the apprentice's own work and the lead's score table. */
+export function createTrainingRouter(): Router {
+  const router = Router();
+  const leadOnly = requireRole('lead', 'admin');
+
+  router.get('/exercise-types', (_req, res) => {
+    res.json({ types: EXERCISE_TYPES.map((type) => ({ type, ...EXERCISE_INFO[type] })) });
+  });
+
+  router.get('/assignments', async (req, res) => {
+    const user = currentUser(req);
+    const now = new Date();
+    if (canAssign(user)) {
+      const rows = await Assignment.findAll({
+        where: { teamId: user.teamId },
+        include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }, { model: AssignmentWork, as: 'work', include: workInclude }],
+        order: [['dueAt', 'DESC'], ['id', 'DESC']],
+      });
+      res.json({ assignments: rows.map((a) => assignmentDto(a, a.work ?? [], now)) });
+      return;
+    }
+    // Everyone else sees only the assignments given to them, with only their own work.
+    const own = await AssignmentWork.findAll({
+      where: { userId: user.id },
+      include: [...workInclude, { model: Assignment, as: 'assignment', where: { teamId: user.teamId }, include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }] }],
+    });
+    const list = own.map((w) => assignmentDto(w.assignment!, [w], now)).sort((a, b) => a.dueAt.localeCompare(b.dueAt));
+    res.json({ assignments: list });
+  });
+
+  router.post('/assignments', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const body = parseBody(assignmentCreateBody, req.body);
+    const ids = [...new Set(body.assigneeIds)];
+    const apprentices = await User.findAll({ where: { id: { [Op.in]: ids }, teamId: lead.teamId, role: 'apprentice', active: true } });
+    if (apprentices.length !== ids.length) {
+      throw new HttpError(400, 'Some fields are not valid.', { assigneeIds: 'Choose active apprentices of your team only.' });
+    }
+    const dueAt = new Date(body.dueAt);
+    const assignment = await Assignment.sequelize!.transaction(async (transaction) => {
+      const created = await Assignment.create(
+        { teamId: lead.teamId, createdById: lead.id, title: body.title, instructions: body.instructions ?? '', items: body.items, dueAt },
+        { transaction },
+      );
+      for (const apprentice of apprentices) {
+        const work = await AssignmentWork.create({ assignmentId: created.id, userId: apprentice.id, seed: newSeed() }, { transaction });
+        await TrainingProblem.bulkCreate(plannedProblems(body.items, work.seed).map((p) => ({ ...p, workId: work.id })), { transaction });
+      }
+      return created;
+    });
+    const total = body.items.reduce((n, i) => n + i.count, 0);
+    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id))));
+    const fresh = await teamAssignment(assignment.id, lead);
+    const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
+    res.status(201).location(`/api/training/assignments/${assignment.id}`).json({ ...assignmentDto(fresh, work), mailSent: sent.filter(Boolean).length });
+  });
+
+  router.get('/assignments/:id', async (req, res) => {
+    const user = currentUser(req);
+    const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), user);
+    const where = canAssign(user) ? { assignmentId: assignment.id } : { assignmentId: assignment.id, userId: user.id };
+    const work = await AssignmentWork.findAll({ where, include: workInclude });
+    if (!canAssign(user) && work.length === 0) throw new HttpError(404, 'No assignment with that id for you.');
+    res.json(assignmentDto(assignment, work));
+  });
+
+  router.delete('/assignments/:id', leadOnly, async (req, res) => {
+    const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), currentUser(req));
+    await assignment.destroy();
+    res.status(204).end();
+  });
+
+  router.get('/assignments/:id/work', async (req, res) => {
+    const { assignment, work } = await ownWork(req);
+    const problems = [...(work.problems ?? [])].sort((a, b) => a.position - b.position);
+    res.json({ assignment: assignmentDto(assignment, [work]), problems: problems.map(problemDto) });
+  });
+
+  router.post('/assignments/:id/problems/:position/hints', async (req, res) => {
+    const { work } = await ownWork(req);
+    const position = positionParam(req.params['position']);
+    const problem = (work.problems ?? []).find((p) => p.position === position);
+    if (!problem) throw new HttpError(404, 'No problem at that position.');
+    if (problem.closedAt) throw new HttpError(409, 'This problem is closed; its worked solution is shown.');
+    const available = generateExercise(problem.type, problem.seed).steps.length;
+    if (problem.hintsUsed >= available) throw new HttpError(409, 'Every hint of this problem is already shown.');
+    await TrainingProblem.increment('hintsUsed', { by: 1, where: { id: problem.id, hintsUsed: problem.hintsUsed } });
+    await problem.reload({ include: [{ model: TrainingAttempt, as: 'attempts' }] });
+    res.json(problemDto(problem));
+  });
+
+  router.post('/assignments/:id/problems/:position/attempts', async (req, res) => {
+    const { work } = await ownWork(req);
+    const position = positionParam(req.params['position']);
+    const { answer } = parseBody(attemptBody, req.body);
+    const sequelize = TrainingProblem.sequelize!;
+    const result = await sequelize.transaction(async (transaction) => {
+      // Lock the problem row so two quick submissions cannot both use the last attempt.
+      const problem = await TrainingProblem.findOne({ where: { workId: work.id, position }, transaction, lock: transaction.LOCK.UPDATE });
+      if (!problem) throw new HttpError(404, 'No problem at that position.');
+      if (problem.closedAt) throw new HttpError(409, 'This problem is closed; no more answers are taken.');
+      // Graded here from the stored seed: a grade sent by the browser is never trusted.
+      const check = checkAnswer(generateExercise(problem.type, problem.seed), answer);
+      if (!check.ok) throw new HttpError(400, 'Some fields are not valid.', { answer: check.error });
+      await TrainingAttempt.create({ problemId: problem.id, answer: check.given.slice(0, 60), correct: check.correct }, { transaction });
+      const used = await TrainingAttempt.count({ where: { problemId: problem.id }, transaction });
+      const now = new Date();
+      if (check.correct || used >= MAX_ATTEMPTS) {
+        await problem.update({ closedAt: now, correct: check.correct }, { transaction });
+        const open = await TrainingProblem.count({ where: { workId: work.id, closedAt: null }, transaction });
+        if (open === 0) await AssignmentWork.update({ completedAt: now }, { where: { id: work.id }, transaction });
+      }
+      return { correct: check.correct, problemId: problem.id };
+    });
+    const problem = await TrainingProblem.findByPk(result.problemId, { include: [{ model: TrainingAttempt, as: 'attempts' }] });
+    res.status(201).json({ correct: result.correct, problem: problemDto(problem!) });
+  });
+
+  router.get('/scores', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const now = new Date();
+    const assignments = await Assignment.findAll({
+      where: { teamId: lead.teamId },
+      include: [{ model: AssignmentWork, as: 'work', include: workInclude }],
+      order: [['dueAt', 'ASC'], ['id', 'ASC']],
+    });
+    const apprentices = await User.findAll({ where: { teamId: lead.teamId, role: 'apprentice' }, order: [['name', 'ASC'], ['id', 'ASC']] });
+    const table: ScoreTableDto = {
+      assignments: assignments.map((a) => ({ id: a.id, title: a.title, dueAt: a.dueAt.toISOString() })),
+      rows: apprentices.map((u) => ({
+        userId: u.id,
+        name: u.name,
+        cells: assignments.map((a) => {
+          const work = (a.work ?? []).find((w) => w.userId === u.id);
+          return { assignmentId: a.id, assigned: !!work, summary: work ? workSummary(work, a.dueAt, now) : null };
+        }),
+      })),
+    };
+    res.json(table);
+  });
+
+  return router;
+}

@@ -1,0 +1,251 @@
+import PDFDocument from 'pdfkit';
+import { parseAngle } from '../../shared/angle/angle-text';
+import type { Attachment } from '../models/attachment';
+import type { Setup } from '../models/setup';
+import { setupResults, type SetupResults } from '../../shared/library/setup-results';
+import { angleSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
+import type { ObjectStorage } from './storage/object-storage';
+
+/** What a set-up sheet is made from. */
+export interface SheetSource {
+  setup: Setup;
+  attachments: readonly Attachment[];
+  storage: ObjectStorage;
+  /** Address of the set-up in the app, printed and linked at the foot of the sheet. */
+  link: string;
+}
+
+// The standard PDF fonts only cover Windows-1252; these stand in for the symbols derivations use.
+const STAND_INS: Record<string, string> = {
+  'α': 'alpha', 'β': 'beta', 'γ': 'gamma', 'θ': 'theta', 'φ': 'phi', 'Δ': 'delta ', 'δ': 'delta', 'π': 'pi', 'μ': 'µ',
+  '√': 'sqrt', '′': "'", '″': '"', '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '⟂': 'perp.', '→': '->', '∠': 'angle ', '⋅': '·', '∑': 'sum ',
+};
+
+/** Text the standard PDF fonts can print: known symbols spelled out, anything else outside Windows-1252 as "?". */
+export function pdfText(text: string): string {
+  let out = '';
+  for (const ch of text) {
+    const sub = STAND_INS[ch];
+    if (sub !== undefined) out += sub;
+    else if (ch.codePointAt(0)! <= 0xff || '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ'.includes(ch)) out += ch;
+    else out += '?';
+  }
+  return out;
+}
+
+/** General cautions printed on every sheet (common practice; defer to shop rules). */
+const SHEET_CAUTIONS = [
+  'Clamp the work and any angle block, sine plate or vise securely before cutting; measure only with the spindle stopped.',
+  'Wear eye protection and keep guards in place; deburr sharp edges after the cut.',
+  'Your shop rules, local regulations and the machine maker\'s instructions come first; this sheet does not replace them.',
+];
+
+const INK = '#1d2a33';
+const MUTED = '#5b6b75';
+const ACCENT = '#1f6f8b';
+
+function num(value: unknown): number | null {
+  if (typeof value === 'number') return Number.isFinite(value) ? value : null;
+  if (typeof value === 'string' && /^-?\d+(\.\d+)?$/.test(value.trim())) return Number(value);
+  return null;
+}
+
+function angleOf(value: unknown): number | null {
+  const parsed = parseAngle(value);
+  return parsed.ok ? parsed.degrees.toNumber() : null;
+}
+
+/** The sketch that fits the set-up's kind, from the engine's answer where there is one. */
+export function sketchFor(kind: string, inputs: Record<string, unknown>, results: SetupResults): Sketch | null {
+  const v = results.ok ? results.value : {};
+  if (kind === 'taper') {
+    const T = num(v['thickness']) ?? num(inputs['thickness']);
+    const L = num(v['taperLength']) ?? num(inputs['taperLength']);
+    const a = num(v['angleDeg']) ?? angleOf(inputs['angle']);
+    if (T && L && a && a > 0 && a < 90) return taperSketch(T, L, a, `${String(v['depthToStop'] ?? '')} ${String(v['unit'] ?? inputs['unit'] ?? '')}`.trim());
+  }
+  if (kind === 'sine-bar') {
+    const L = num(v['barLength']) ?? num(inputs['barLength']);
+    const a = num(v['angleDeg']) ?? angleOf(inputs['angle']);
+    if (L && a !== null && a >= 0 && a < 90) return sineBarSketch(L, a, `${String(v['stackHeight'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+  }
+  const a = num(v['angleDeg']) ?? num(v['includedAngleDeg']) ?? angleOf(inputs['angle']);
+  return a !== null && a > 0 && a < 90 ? angleSketch(a, `${a}°`) : null;
+}
+
+function drawSketch(doc: PDFKit.PDFDocument, sketch: Sketch, x: number, y: number, w: number, h: number): void {
+  const { minX, minY, maxX, maxY } = sketch.box;
+  const scale = Math.min(w / (maxX - minX || 1), h / (maxY - minY || 1)) * 0.9;
+  const ox = x + (w - (maxX - minX) * scale) / 2;
+  const oy = y + h - (h - (maxY - minY) * scale) / 2;
+  const at = (p: { x: number; y: number }): [number, number] => [ox + (p.x - minX) * scale, oy - (p.y - minY) * scale];
+  doc.save().lineWidth(0.8).rect(x, y, w, h).strokeColor('#c9d3d9').stroke().restore();
+  const fills: Record<SketchShape['style'], [string, string]> = {
+    part: ['#dfe9ee', INK], block: ['#c7cfd4', INK], removed: ['#f3c9a6', '#b65a1b'], cut: ['#ffffff', '#b65a1b'], tool: ['#ffffff', INK], mark: ['#ffffff', ACCENT],
+  };
+  for (const s of sketch.shapes) {
+    const [fill, stroke] = fills[s.style];
+    doc.save().lineWidth(1).strokeColor(stroke).fillColor(fill);
+    if (s.kind === 'polygon') {
+      const [first, ...rest] = s.points.map(at);
+      if (first) {
+        doc.moveTo(...first);
+        for (const p of rest) doc.lineTo(...p);
+        doc.closePath().fillAndStroke(fill, stroke);
+      }
+    } else if (s.kind === 'line') {
+      const [a, b] = s.points.map(at);
+      if (a && b) doc.dash(4, { space: 3 }).moveTo(...a).lineTo(...b).stroke().undash();
+    } else if (s.kind === 'circle' && s.r) {
+      const [c] = s.points.map(at);
+      if (c) doc.circle(c[0], c[1], Math.max(2, s.r * scale)).fillAndStroke(fill, stroke);
+    } else if (s.kind === 'dimension') {
+      const [a, b] = s.points.map(at);
+      if (a && b) {
+        doc.moveTo(...a).lineTo(...b).stroke();
+        for (const [p, q] of [[a, b], [b, a]] as const) {
+          const ang = Math.atan2(q[1] - p[1], q[0] - p[0]);
+          doc.moveTo(...p).lineTo(p[0] + 6 * Math.cos(ang + 0.4), p[1] + 6 * Math.sin(ang + 0.4)).moveTo(...p).lineTo(p[0] + 6 * Math.cos(ang - 0.4), p[1] + 6 * Math.sin(ang - 0.4)).stroke();
+        }
+      }
+    }
+    doc.restore();
+    if (s.label && (s.kind === 'dimension' || s.kind === 'circle' || s.style === 'block')) {
+      const p = s.kind === 'dimension' ? at({ x: ((s.points[0]?.x ?? 0) + (s.points[1]?.x ?? 0)) / 2, y: ((s.points[0]?.y ?? 0) + (s.points[1]?.y ?? 0)) / 2 }) : at(s.points[0] ?? { x: 0, y: 0 });
+      doc.fillColor(s.style === 'block' ? MUTED : ACCENT).fontSize(8).text(pdfText(s.label), p[0] + 5, p[1] - 4, { lineBreak: false });
+    }
+  }
+  doc.fillColor(MUTED).fontSize(8).text(pdfText(sketch.title), x + 6, y + 6, { width: w - 12 });
+}
+
+function heading(doc: PDFKit.PDFDocument, text: string): void {
+  if (doc.y > doc.page.height - 120) doc.addPage();
+  doc.moveDown(0.6).fillColor(ACCENT).font('Helvetica-Bold').fontSize(11).text(pdfText(text)).font('Helvetica').fillColor(INK).fontSize(9.5).moveDown(0.2);
+}
+
+function rows(doc: PDFKit.PDFDocument, pairs: ReadonlyArray<readonly [string, string]>): void {
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+  for (const [k, v] of pairs) {
+    if (doc.y > doc.page.height - 80) doc.addPage();
+    const y = doc.y;
+    doc.fillColor(MUTED).text(pdfText(k), left, y, { width: width * 0.38 });
+    const after = doc.y;
+    doc.fillColor(INK).text(pdfText(v), left + width * 0.4, y, { width: width * 0.6 });
+    doc.y = Math.max(after, doc.y);
+    doc.x = left;
+  }
+}
+
+function inputText(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
+  return JSON.stringify(value);
+}
+
+/**
+ * The printable set-up sheet: heading, sketch, inputs, results and gauge stack from the shared
+ * engine, check values, derivation, notes, attached drawings, cautions and a link back. Streams are
+ * left uncompressed (the sheets are small), so the text stays searchable.
+ */
+export async function renderSetupSheet({ setup, attachments, storage, link }: SheetSource): Promise<Buffer> {
+  const inputs = setup.inputs;
+  const results = setupResults(setup.kind, inputs);
+  const metric = inputs['unit'] === 'mm';
+  const doc = new PDFDocument({
+    size: metric ? 'A4' : 'LETTER',
+    margin: 48,
+    compress: false,
+    info: { Title: pdfText(`Set-up sheet: ${setup.name}`), Author: 'Slantwise', Subject: pdfText(`${setup.kind} set-up, version ${setup.version}`) },
+  });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+  doc.fillColor(MUTED).font('Helvetica').fontSize(9).text('SLANTWISE SET-UP SHEET');
+  doc.fillColor(INK).font('Helvetica-Bold').fontSize(18).text(pdfText(setup.name));
+  const released = setup.releasedAt ? `released ${setup.releasedAt.toISOString().slice(0, 10)}${setup.releasedBy ? ` by ${setup.releasedBy.name}` : ''}` : 'not released';
+  doc.font('Helvetica').fontSize(9.5).fillColor(MUTED)
+    .text(pdfText(`${setup.kind} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`));
+  if (setup.status !== 'released') {
+    doc.moveDown(0.3).fillColor('#b3261e').font('Helvetica-Bold').text('NOT RELEASED: check with a lead before running this set-up.').font('Helvetica');
+  }
+
+  const sketch = sketchFor(setup.kind, inputs, results);
+  if (sketch) {
+    doc.moveDown(0.6);
+    const top = doc.y;
+    drawSketch(doc, sketch, left, top, width, 190);
+    doc.x = left;
+    doc.y = top + 198;
+  }
+
+  heading(doc, 'Inputs');
+  rows(doc, Object.entries(inputs).map(([k, v]) => [k, inputText(v)] as const));
+
+  heading(doc, 'Results');
+  if (results.ok) {
+    rows(doc, results.lines.map((l) => [l.label, l.value] as const));
+    if (results.warnings.length) {
+      doc.moveDown(0.3).fillColor('#8a4b00');
+      for (const w of results.warnings) doc.text(pdfText(`Warning: ${w}`));
+      doc.fillColor(INK);
+    }
+  } else {
+    doc.fillColor('#b3261e').text(pdfText(results.error)).fillColor(INK);
+  }
+
+  if (results.ok && results.stack?.length) {
+    heading(doc, 'Gauge-block stack (wringing order)');
+    doc.text(pdfText(`${results.stack.join(' + ')}  (${results.stack.length} blocks)`));
+  }
+
+  if (setup.checks.length) {
+    heading(doc, 'Check values for each part');
+    rows(doc, setup.checks.map((c) => [c.label, `${c.nominal} ${c.unit}  +${c.plus} / -${c.minus}`] as const));
+  }
+
+  if (results.ok && results.steps.length) {
+    heading(doc, 'Derivation');
+    for (const s of results.steps) {
+      if (doc.y > doc.page.height - 80) doc.addPage();
+      doc.fillColor(INK).font('Helvetica-Bold').text(pdfText(s.label), { continued: true }).font('Helvetica').fillColor(MUTED)
+        .text(pdfText(`   ${s.formula};  ${s.substituted} = ${s.value} ${s.unit}`));
+    }
+    doc.fillColor(INK);
+  }
+
+  if (setup.notes.trim()) {
+    heading(doc, 'Notes');
+    doc.text(pdfText(setup.notes));
+  }
+
+  const images = attachments.filter((a) => a.contentType !== 'application/pdf');
+  if (attachments.length) {
+    heading(doc, 'Attached drawings and photos');
+    for (const a of attachments) doc.text(pdfText(`${a.fileName} (${a.contentType}, ${a.size} bytes, sha256 ${a.sha256.slice(0, 16)}…)`));
+    for (const a of images.slice(0, 2)) {
+      const key = a.size <= 5 * 1024 * 1024 ? a.storageKey : a.thumbnailKey;
+      if (!key) continue;
+      const bytes = await storage.get(key).catch(() => null);
+      if (!bytes) continue;
+      if (doc.y > doc.page.height - 260) doc.addPage();
+      doc.moveDown(0.4).image(bytes, { fit: [width, 200] });
+      doc.moveDown(0.4);
+    }
+  }
+
+  heading(doc, 'Cautions');
+  const cautions = [...(results.ok ? results.cautions : []), ...SHEET_CAUTIONS];
+  for (const c of cautions) doc.text(pdfText(`• ${c}`), { paragraphGap: 2 });
+
+  doc.moveDown(0.8).fillColor(MUTED).fontSize(8.5).text('Open this set-up in Slantwise: ', { continued: true }).fillColor(ACCENT).text(link, { link, underline: true });
+  doc.fillColor(MUTED).text(`Printed ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC`);
+  doc.end();
+  return done;
+}

@@ -1,0 +1,107 @@
+import { z } from 'zod';
+import { DECIMAL_TEXT } from './setup';
+
+/** The two kinds of block set a team keeps. */
+export const INVENTORY_TYPES = ['gauge-blocks', 'angle-blocks'] as const;
+export type InventoryType = (typeof INVENTORY_TYPES)[number];
+
+/** Unit of a set's block sizes: gauge blocks in inch or mm, angle blocks in seconds of arc (exact integers). */
+export type InventoryUnit = 'in' | 'mm' | 'arcsec';
+
+/** One size of block in a team's box, with how many the box should hold and how many are out of use. */
+export interface InventoryBlockDto {
+  id: number;
+  /** Size as decimal text: length in the set's unit, or an angle in seconds of arc. */
+  size: string;
+  /** The size as people read it ("0.1005 in", "27′"). */
+  label: string;
+  count: number;
+  missing: number;
+  damaged: number;
+  /** count − missing − damaged: what the solver may use. */
+  available: number;
+  note: string;
+}
+
+/** A team's gauge-block or angle-block set. */
+export interface InventorySetDto {
+  id: number;
+  type: InventoryType;
+  name: string;
+  unit: InventoryUnit;
+  /** Id of the standard composition it started from, or null for a custom set. */
+  standardSet: string | null;
+  /** Accuracy grade of the set (gauge blocks: ISO 3650 K, 0, 1, 2; angle blocks: free text). */
+  grade: string | null;
+  /** Thickness of the wear blocks kept with the set (gauge blocks only), or null. */
+  wearBlockSize: string | null;
+  wearBlockCount: number;
+  notes: string;
+  version: number;
+  totals: { sizes: number; blocks: number; missing: number; damaged: number; available: number };
+  blocks?: InventoryBlockDto[];
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** GET /api/inventories. */
+export interface InventoryListDto {
+  gaugeSets: InventorySetDto[];
+  angleSets: InventorySetDto[];
+}
+
+const count = (what: string) => z.number({ error: `${what} must be a whole number.` }).int(`${what} must be a whole number.`).min(0, `${what} must be 0 or more.`).max(50, `${what} must be at most 50.`);
+const sizeText = z
+  .union([z.string(), z.number()], { error: 'Size must be a number.' })
+  .transform((v) => (typeof v === 'number' ? String(v) : v.trim()))
+  .refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Size must be a positive decimal number (at most 6 decimals).');
+
+/** A block size with its count, for a custom set. */
+export const inventoryBlockInput = z.object({ size: sizeText, count: count('Count').refine((n) => n >= 1, 'Count must be at least 1.') });
+
+/** POST /api/inventories/gauge-sets and /angle-sets. Give `standardSet` to start from a standard composition, or `blocks`. */
+export const inventoryCreateBody = z.object({
+  name: z.string({ error: 'Give the set a name.' }).trim().min(1, 'Give the set a name.').max(120, 'Keep the name under 120 characters.'),
+  standardSet: z.string({ error: 'Standard set must be a set id.' }).min(1).max(40).optional(),
+  /** Custom composition (used when no standard set is given). Gauge sizes need `unit`. */
+  blocks: z.array(inventoryBlockInput, { error: 'Blocks must be a list of {size, count}.' }).min(1, 'List at least one block.').max(200, 'At most 200 sizes.').optional(),
+  unit: z.enum(['in', 'mm'], { error: 'Unit must be in or mm.' }).optional(),
+  grade: z.string({ error: 'Grade must be text.' }).trim().max(20, 'Keep the grade under 20 characters.').nullable().optional(),
+  wearBlockSize: sizeText.nullable().optional(),
+  wearBlockCount: count('Wear block count').optional(),
+  notes: z.string({ error: 'Notes must be text.' }).max(4_000, 'Keep the notes under 4,000 characters.').optional(),
+});
+export type InventoryCreateBody = z.infer<typeof inventoryCreateBody>;
+
+/** PUT /api/inventories/{gauge,angle}-sets/:id: the set's own fields, with the version it was based on. */
+export const inventoryUpdateBody = z.object({
+  name: inventoryCreateBody.shape.name,
+  grade: inventoryCreateBody.shape.grade,
+  wearBlockSize: inventoryCreateBody.shape.wearBlockSize,
+  wearBlockCount: inventoryCreateBody.shape.wearBlockCount,
+  notes: inventoryCreateBody.shape.notes,
+  version: z.number({ error: 'Send the version your edit is based on.' }).int().positive(),
+});
+
+/** PATCH …/blocks/:blockId: mark blocks missing or damaged, or change the count. */
+export const inventoryBlockPatch = z
+  .object({
+    count: count('Count').optional(),
+    missing: count('Missing').optional(),
+    damaged: count('Damaged').optional(),
+    note: z.string({ error: 'Note must be text.' }).max(200, 'Keep the note under 200 characters.').optional(),
+  })
+  .refine((b) => Object.keys(b).length > 0, 'Send count, missing, damaged or note.');
+export type InventoryBlockPatch = z.infer<typeof inventoryBlockPatch>;
+
+/** Query of GET /api/inventories/gauge-sets/:id/stack. */
+export const inventoryStackQuery = z.object({
+  target: z.string({ error: 'Give the target length.' }).trim().refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Target must be a positive decimal number such as 2.0084.'),
+  grade: z.enum(['K', '0', '1', '2'], { error: 'Grade must be one of K, 0, 1, 2.' }).optional(),
+  wear: z.enum(['yes', 'no'], { error: 'Wear must be yes or no.' }).optional(),
+});
+
+/** Query of GET /api/inventories/angle-sets/:id/combination. */
+export const inventoryAngleQuery = z.object({
+  angle: z.string({ error: 'Give the angle, e.g. 17°35\'.' }).trim().min(1, 'Give the angle, e.g. 17°35\'.').max(40),
+});

@@ -1,0 +1,137 @@
+import { z } from 'zod';
+import { EXERCISE_TYPES, type ExerciseType } from '../training/exercise-types';
+
+export { EXERCISE_TYPES, type ExerciseType };
+
+/** Problems per exercise type in one assignment, at most. */
+export const MAX_PER_TYPE = 10;
+/** Problems in one assignment, at most. */
+export const MAX_PROBLEMS = 30;
+/** Answers an apprentice may give to one assignment problem before it closes. */
+export const MAX_ATTEMPTS = 3;
+
+/** Where an apprentice's work on one assignment stands. */
+export type WorkStatus = 'not-started' | 'in-progress' | 'done' | 'late' | 'missing';
+
+/** One line of a derivation as training shows it (the engine's Step). */
+export interface StepDto {
+  label: string;
+  formula: string;
+  substituted: string;
+  value: string;
+  unit: string;
+}
+
+/** A given value of a problem. */
+export interface GivenDto {
+  label: string;
+  value: string;
+  unit: string;
+}
+
+/** One problem of an apprentice's assignment, as the apprentice sees it. */
+export interface ProblemDto {
+  position: number;
+  type: ExerciseType;
+  title: string;
+  prompt: string;
+  givens: GivenDto[];
+  answerLabel: string;
+  unit: string;
+  /** Accepted distance from the exact answer, in `unit`. */
+  tolerance: string;
+  attempts: Array<{ answer: string; correct: boolean; at: string }>;
+  attemptsLeft: number;
+  hintsAvailable: number;
+  hints: StepDto[];
+  closed: boolean;
+  correct: boolean;
+  /** Safety cautions for the set-up the problem is about (each naming its source). */
+  cautions: string[];
+  /** The answer and the full worked solution, once the problem is closed. */
+  solution: { answer: string; steps: StepDto[] } | null;
+}
+
+/** An assignment's items: how many problems of each exercise type. */
+export interface AssignmentItem {
+  type: ExerciseType;
+  count: number;
+}
+
+/** Summary of one apprentice's work on an assignment. */
+export interface WorkSummaryDto {
+  userId: number;
+  name: string;
+  status: WorkStatus;
+  correct: number;
+  closed: number;
+  total: number;
+  /** Percent of problems answered correctly (0–100), whole number. */
+  score: number;
+  completedAt: string | null;
+}
+
+/** An assignment as the list and detail views show it. */
+export interface AssignmentDto {
+  id: number;
+  title: string;
+  instructions: string;
+  items: AssignmentItem[];
+  dueAt: string;
+  createdAt: string;
+  createdBy: string | null;
+  /** Leads and admins: every assignee's summary. Apprentices: only their own. */
+  work: WorkSummaryDto[];
+}
+
+/** One row of the lead's score table. */
+export interface ScoreRowDto {
+  userId: number;
+  name: string;
+  cells: Array<{ assignmentId: number; assigned: boolean; summary: WorkSummaryDto | null }>;
+}
+
+/** The lead's score table: assignments as columns, apprentices as rows. */
+export interface ScoreTableDto {
+  assignments: Array<{ id: number; title: string; dueAt: string }>;
+  rows: ScoreRowDto[];
+}
+
+/** The answer to an attempt. */
+export interface AttemptResultDto {
+  correct: boolean;
+  problem: ProblemDto;
+}
+
+const itemSchema = z.object({
+  type: z.enum(EXERCISE_TYPES, { error: `Type must be one of: ${EXERCISE_TYPES.join(', ')}.` }),
+  count: z
+    .number({ error: 'Count must be a whole number.' })
+    .int('Count must be a whole number.')
+    .min(1, 'Count must be at least 1.')
+    .max(MAX_PER_TYPE, `Count must be at most ${MAX_PER_TYPE}.`),
+});
+
+/** POST /api/training/assignments */
+export const assignmentCreateBody = z.object({
+  title: z.string({ error: 'Give the assignment a title.' }).trim().min(1, 'Give the assignment a title.').max(160, 'Keep the title under 160 characters.'),
+  instructions: z.string({ error: 'Instructions must be text.' }).max(4000, 'Keep the instructions under 4,000 characters.').optional(),
+  items: z
+    .array(itemSchema, { error: 'Choose at least one exercise type.' })
+    .min(1, 'Choose at least one exercise type.')
+    .max(EXERCISE_TYPES.length, 'List each exercise type once.')
+    .refine((items) => new Set(items.map((i) => i.type)).size === items.length, 'List each exercise type once.')
+    .refine((items) => items.reduce((n, i) => n + i.count, 0) <= MAX_PROBLEMS, `An assignment holds at most ${MAX_PROBLEMS} problems.`),
+  dueAt: z.iso.datetime({ offset: true, error: 'Give the due date as an ISO date-time, e.g. 2026-12-20T16:00:00Z.' }),
+  assigneeIds: z
+    .array(z.number().int().positive(), { error: 'Choose at least one apprentice.' })
+    .min(1, 'Choose at least one apprentice.')
+    .max(200, 'Choose at most 200 apprentices.'),
+});
+export type AssignmentCreateBody = z.infer<typeof assignmentCreateBody>;
+
+/** POST /api/training/assignments/:id/problems/:position/attempts */
+export const attemptBody = z.object({
+  answer: z.string({ error: 'Type your answer.' }).trim().min(1, 'Type your answer.').max(60, 'That answer is too long.'),
+});
+export type AttemptBody = z.infer<typeof attemptBody>;

@@ -1,0 +1,82 @@
+import { parseAngle } from '../angle/angle-text';
+import { Dec } from '../calc/decimal-math';
+import type { Step } from '../calc/step';
+import type { ExerciseType } from './exercise-types';
+
+/** What kind of number an answer is, which decides how typed text is read. */
+export type AnswerKind = 'length' | 'angle' | 'count';
+
+/** A value given in a problem. */
+export interface Given {
+  /** Trade name of the value, e.g. "Taper length L". */
+  label: string;
+  /** The value as printed (decimal text or DMS). */
+  value: string;
+  /** Unit ("in", "mm", "°", "in/ft", or ""). */
+  unit: string;
+}
+
+/** A generated problem with its answer, worked solution and tolerance. Pure data, reproducible from type + seed. */
+export interface Exercise {
+  type: ExerciseType;
+  seed: number;
+  /** Short name of the exercise type. */
+  title: string;
+  /** The question, in shop words. */
+  prompt: string;
+  givens: Given[];
+  /** What to type, e.g. "Depth to stop h". */
+  answerLabel: string;
+  answerKind: AnswerKind;
+  /** Unit of the answer ("in", "mm", "°", "blocks"). */
+  unit: string;
+  /** The answer at the unit's resolution, as the engine reports it. */
+  answer: string;
+  /** The answer to full precision, which typed answers are checked against. */
+  exact: string;
+  /** Accepted distance from `exact`, in `unit`. */
+  tolerance: string;
+  /** The engine's derivation up to and including the step that gives the answer. */
+  steps: Step[];
+  /** Safety cautions for the set-up, when the work can hurt someone. */
+  cautions: string[];
+}
+
+/** The outcome of checking typed text against an exercise. */
+export type CheckResult =
+  | { ok: true; correct: boolean; given: string; difference: string }
+  | { ok: false; error: string };
+
+const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
+
+/** Reads typed text as a number of the answer's kind (angles also as DMS, e.g. 7°30'). */
+export function readAnswer(kind: AnswerKind, text: string): { ok: true; value: Dec } | { ok: false; error: string } {
+  const trimmed = text.trim().replace(/,/g, '.');
+  if (trimmed === '') return { ok: false, error: 'Type your answer.' };
+  if (kind === 'angle') {
+    const parsed = parseAngle(trimmed);
+    return parsed.ok ? { ok: true, value: parsed.degrees } : { ok: false, error: `The angle ${parsed.error}.` };
+  }
+  const number = trimmed.replace(/\s*(in|mm|blocks?|")$/i, '');
+  if (!DECIMAL.test(number)) return { ok: false, error: `Type a number such as ${kind === 'count' ? '4' : '0.2615'}.` };
+  return { ok: true, value: new Dec(number) };
+}
+
+/**
+ * Checks an answer: correct when it lies within the stated tolerance of the exact answer.
+ * Unreadable text is not an answer at all (ok: false), so it never costs an attempt.
+ */
+export function checkAnswer(exercise: Exercise, text: string): CheckResult {
+  const read = readAnswer(exercise.answerKind, text);
+  if (!read.ok) return read;
+  const difference = read.value.minus(new Dec(exercise.exact)).abs();
+  return { ok: true, correct: difference.lte(new Dec(exercise.tolerance)), given: text.trim(), difference: difference.toSignificantDigits(6).toString() };
+}
+
+/**
+ * The hints of an exercise: the derivation one step at a time. The last step (the one that gives
+ * the answer) keeps its formula and substitution but hides its value.
+ */
+export function hintsOf(exercise: Exercise): Step[] {
+  return exercise.steps.map((s, i) => (i === exercise.steps.length - 1 ? { ...s, value: '?' } : s));
+}

@@ -1,0 +1,215 @@
+import { EXERCISE_TYPES, type ExerciseType } from './exercise-types';
+import { checkAnswer, hintsOf, readAnswer } from './exercise';
+import { buildExercise, drawInputs, generateExercise } from './generators';
+
+const SEEDS = Array.from({ length: 40 }, (_, i) => (i * 2_654_435_761) >>> 0);
+const rad = (deg: number) => (deg * Math.PI) / 180;
+const deg = (r: number) => (r * 180) / Math.PI;
+const num = (text: string) => Number(text);
+/** Angle text as decimal degrees ("7.5" or "14°30'00\""). */
+function degreesOf(text: string): number {
+  const m = /^(\d+)°(\d+)'(\d+(?:\.\d+)?)"$/.exec(text);
+  return m ? num(m[1]!) + num(m[2]!) / 60 + num(m[3]!) / 3600 : num(text);
+}
+
+/**
+ * An independent double-precision answer for drawn inputs, straight from the published formulas
+ * (derived): checks the generators wire the engine to the right question.
+ */
+function formulaAnswer(type: ExerciseType, seed: number): number | null {
+  switch (type) {
+    case 'taper-depth': { // h = L·sin α, REFERENCE.md §1 (derived)
+      const i = drawInputs(type, seed);
+      return num(i.taperLength) * Math.sin(rad(num(i.angle)));
+    }
+    case 'taper-end-thickness': { // t = T − L·tan α, REFERENCE.md §1 (derived)
+      const i = drawInputs(type, seed);
+      return num(i.thickness) - num(i.taperLength) * Math.tan(rad(num(i.angle)));
+    }
+    case 'taper-angle': { // α = atan((T − t)/L), REFERENCE.md §1 (derived)
+      const i = drawInputs(type, seed);
+      return deg(Math.atan((num(i.thickness) - num(i.endThickness)) / num(i.taperLength)));
+    }
+    case 'sine-stack': { // H = L·sin θ, Army OD1642 sine-bar lesson (REFERENCE.md §2.1)
+      const i = drawInputs(type, seed);
+      return num(i.barLength) * Math.sin(rad(degreesOf(i.angle)));
+    }
+    case 'sine-angle': { // θ = asin(H/L), Army OD1642 (REFERENCE.md §2.1)
+      const i = drawInputs(type, seed);
+      return deg(Math.asin(num(i.stackHeight) / num(i.barLength)));
+    }
+    case 'lathe-half-angle': { // α/2 = atan(TPF/24), REFERENCE.md §4.1 (derived)
+      const i = drawInputs(type, seed);
+      return deg(Math.atan(num(i.taperPerFoot) / 24));
+    }
+    case 'lathe-offset': { // offset = (D − d)/2 · L/l, Rose; US Navy "Using the Compound Rest" (REFERENCE.md §4.1)
+      const i = drawInputs(type, seed);
+      return ((num(i.largeDiameter) - num(i.smallDiameter)) / 2) * (num(i.workLength) / num(i.length));
+    }
+    case 'dovetail-pins': { // x = a + D·(1 + cot(α/2)), Machinery's Handbook "Measuring dovetail slides" (REFERENCE.md §5.1)
+      const i = drawInputs(type, seed);
+      return num(i.width) + num(i.rollDiameter) * (1 + 1 / Math.tan(rad(num(i.angle) / 2)));
+    }
+    case 'gauge-fewest':
+      return null;
+  }
+}
+
+describe('generateExercise', () => {
+  describe.each(EXERCISE_TYPES.map((t) => [t]))('%s', (type) => {
+    it('should reproduce the same problem from the same seed', () => {
+      for (const seed of SEEDS.slice(0, 5)) expect(generateExercise(type, seed)).toEqual(generateExercise(type, seed));
+    });
+
+    it('should give different problems for different seeds', () => {
+      const prompts = new Set(SEEDS.map((s) => generateExercise(type, s).prompt));
+      expect(prompts.size).toBeGreaterThan(SEEDS.length / 3);
+    });
+
+    it('should agree with the published formula worked independently', () => {
+      for (const seed of SEEDS) {
+        const expected = formulaAnswer(type, seed);
+        if (expected === null) continue;
+        const exercise = generateExercise(type, seed);
+        expect(Math.abs(num(exercise.exact) - expected)).toBeLessThan(1e-9);
+        expect(Number.isFinite(num(exercise.answer.split(/[°\s]/)[0]!))).toBe(true);
+      }
+    });
+
+    it('should accept its own answer and refuse one just outside the tolerance', () => {
+      for (const seed of SEEDS.slice(0, 10)) {
+        const e = generateExercise(type, seed);
+        expect(checkAnswer(e, e.exact)).toMatchObject({ ok: true, correct: true });
+        const off = (num(e.exact) + num(e.tolerance) + (e.answerKind === 'count' ? 1 : 0.0002)).toString();
+        expect(checkAnswer(e, off)).toMatchObject({ ok: true, correct: false });
+      }
+    });
+
+    it('should end its worked solution on the step that gives the answer, hidden in the hints', () => {
+      const e = generateExercise(type, SEEDS[3]!);
+      expect(e.steps.length).toBeGreaterThan(0);
+      const hints = hintsOf(e);
+      expect(hints).toHaveLength(e.steps.length);
+      expect(hints[hints.length - 1]!.value).toBe('?');
+      expect(hints[hints.length - 1]!.formula).toBe(e.steps[e.steps.length - 1]!.formula);
+    });
+
+    it('should draw values in realistic shop ranges', () => {
+      for (const seed of SEEDS) {
+        const e = generateExercise(type, seed);
+        for (const g of e.givens) {
+          if (!/^\d/.test(g.value)) continue;
+          const v = degreesOf(g.value);
+          if (g.unit === 'in') expect(v > 0 && v <= 20).toBe(true);
+          if (g.unit === 'mm') expect(v > 0 && v <= 300).toBe(true);
+          if (g.unit === '°') expect(v > 0 && v < 90).toBe(true);
+        }
+      }
+    });
+  });
+
+  it('should refuse an unknown type', () => {
+    expect(() => generateExercise('knurling' as ExerciseType, 1)).toThrow(/unknown exercise type/);
+  });
+});
+
+describe('fewest gauge blocks', () => {
+  it('should match the blocks of the engine\'s own stack and never beat the published minimum', () => {
+    // 3.9762 in: Starrett-Webber GB49 builds it from 4 blocks of the 81 set (REFERENCE.md §3.5 G1, published).
+    expect(buildExercise('gauge-fewest', { target: '3.9762' }).answer).toBe('4');
+    // 2.8260 in: 3 blocks (.126 + .700 + 2.000), REFERENCE.md §3.5 G7 (derived by exhaustive search).
+    expect(buildExercise('gauge-fewest', { target: '2.8260' }).answer).toBe('3');
+    // 0.2000 in is one block of the .050 series (REFERENCE.md §3.2 and §3.5 G15).
+    expect(buildExercise('gauge-fewest', { target: '0.2000' }).answer).toBe('1');
+  });
+});
+
+describe('published worked examples', () => {
+  it('should build the sine-bar stack of 23°41\' on a 5 in bar: 2.0084 in', () => {
+    // US Army TC 9-524 App. C "Sine bar or sine plate setting" (REFERENCE.md §2.2 #1, published).
+    const e = buildExercise('sine-stack', { unit: 'in', barLength: '5', angle: "23°41'" });
+    expect(e.answer).toBe('2.0084');
+    expect(checkAnswer(e, '2.0084')).toMatchObject({ correct: true });
+    expect(checkAnswer(e, '2.0086')).toMatchObject({ correct: false });
+  });
+
+  it('should build the stack of 12° on a 5 in bar: 1.03956 in, to 1.0396', () => {
+    // Machinery's Handbook 31st ed. p. 695; Sparber, "The Theory and Practice of Using a Sine Bar" (REFERENCE.md §2.2 #3).
+    expect(buildExercise('sine-stack', { unit: 'in', barLength: '5', angle: '12' }).answer).toBe('1.0396');
+  });
+
+  it('should find 11.537° from a 1 in stack on a 5 in bar', () => {
+    // Sparber, "The Theory and Practice of Using a Sine Bar, v2" (REFERENCE.md §2.2 reverse examples, published).
+    const e = buildExercise('sine-angle', { unit: 'in', barLength: '5', stackHeight: '1.0000' });
+    expect(checkAnswer(e, '11.537')).toMatchObject({ correct: true });
+    expect(checkAnswer(e, "11°32'13\"")).toMatchObject({ correct: true });
+    expect(checkAnswer(e, '11.56')).toMatchObject({ correct: false });
+  });
+
+  it('should find 31°15\' from a 2.5939 in stack on a 5 in bar', () => {
+    // Machinery's Handbook 31st ed. p. 695 (REFERENCE.md §2.2 reverse examples, published).
+    expect(checkAnswer(buildExercise('sine-angle', { unit: 'in', barLength: '5', stackHeight: '2.5939' }), "31°15'")).toMatchObject({ correct: true });
+  });
+
+  it('should set the compound to 1°11\'37" for 1/2 in per foot', () => {
+    // Half angle of 1/2 in/ft: 1.19349° (REFERENCE.md §4.3 check and §4.6 table, derived; forum value 1°11'36" is a cross-check).
+    const e = buildExercise('lathe-half-angle', { taperPerFoot: '0.5000' });
+    expect(e.answer).toContain("1°11'37\"");
+    expect(checkAnswer(e, '1.1935')).toMatchObject({ correct: true });
+  });
+
+  it('should set the compound to 1.4321° for a Jarno taper (0.600 in/ft)', () => {
+    // Jarno taper 0.600 in/ft (Army OD1645), half angle atan(0.6/24) = 1.43210° (REFERENCE.md §4.4, derived).
+    expect(checkAnswer(buildExercise('lathe-half-angle', { taperPerFoot: '0.6000' }), "1°25'56\"")).toMatchObject({ correct: true });
+  });
+
+  it('should offset the tail stock 1/2 in for 3 in to 2 in over a 12 in piece', () => {
+    // US Navy training manual "Using the Compound Rest" (REFERENCE.md §4.1 tail-stock examples, published).
+    const e = buildExercise('lathe-offset', { largeDiameter: '3.000', smallDiameter: '2.000', length: '12.000', workLength: '12.000' });
+    expect(e.answer).toBe('0.5000');
+  });
+
+  it('should offset 1/3 in for 1.250 to 1.000 over 3 in on an 8 in shaft', () => {
+    // sciemce.com question (REFERENCE.md §4.1, secondary: cross-check) — 8 × 0.25 / (2 × 3) = 0.3333 (derived).
+    expect(buildExercise('lathe-offset', { largeDiameter: '1.250', smallDiameter: '1.000', length: '3.000', workLength: '8.000' }).answer).toBe('0.3333');
+  });
+
+  it('should give the depth to stop and end thickness of the 3 in, 5° taper', () => {
+    // L = 3.000, T = 0.750, θ = 5° → h = 0.2615, t = 0.4875 (REFERENCE.md §1 check values, derived).
+    const inputs = { unit: 'in' as const, thickness: '0.750', taperLength: '3.000', angle: '5' };
+    expect(buildExercise('taper-depth', inputs).answer).toBe('0.2615');
+    expect(buildExercise('taper-end-thickness', inputs).answer).toBe('0.4875');
+  });
+
+  it('should find 3.5763° for 1.000 tapering to 0.750 over 4 in', () => {
+    // REFERENCE.md §1 check values (derived): θ = 3.5763° (3°34'35").
+    const e = buildExercise('taper-angle', { unit: 'in', thickness: '1.000', endThickness: '0.750', taperLength: '4.000' });
+    expect(checkAnswer(e, "3°34'35\"")).toMatchObject({ correct: true });
+  });
+
+  it('should read 3.3660 in over 0.500 in pins on a 2.000 in, 60° dovetail', () => {
+    // Machinery's Handbook "Measuring dovetail slides": x = a + D(1 + cot α/2) (REFERENCE.md §5.1 check values, derived).
+    expect(buildExercise('dovetail-pins', { unit: 'in', angle: '60', rollDiameter: '0.500', width: '2.000' }).answer).toBe('3.3660');
+    expect(buildExercise('dovetail-pins', { unit: 'mm', angle: '60', rollDiameter: '8', width: '50' }).answer).toBe('71.856');
+  });
+});
+
+describe('readAnswer', () => {
+  it('should read decimals, a comma as the decimal mark, and a trailing unit', () => {
+    expect(readAnswer('length', '0.2615').ok).toBe(true);
+    expect(readAnswer('length', '0,2615')).toMatchObject({ ok: true });
+    expect(readAnswer('length', '0.2615 in')).toMatchObject({ ok: true });
+    expect(readAnswer('count', '4 blocks')).toMatchObject({ ok: true });
+  });
+
+  it('should read angles as decimal degrees or DMS', () => {
+    const a = readAnswer('angle', "7°30'");
+    expect(a.ok && a.value.toString()).toBe('7.5');
+  });
+
+  it('should refuse empty and non-numeric text with a message', () => {
+    expect(readAnswer('length', '  ')).toMatchObject({ ok: false, error: expect.stringMatching(/Type/) });
+    expect(readAnswer('length', 'about half')).toMatchObject({ ok: false });
+    expect(readAnswer('angle', 'steep')).toMatchObject({ ok: false });
+  });
+});

@@ -1,0 +1,210 @@
+/**
+ * Geometry of the lesson drawings: pure functions from the lesson's slider value to SVG
+ * coordinates in a fixed 480 × 300 view box (y grows downward). Drawing only — every number a
+ * lesson prints comes from the calculation engine, not from here.
+ */
+
+/** A point in view-box units. */
+export interface Pt {
+  x: number;
+  y: number;
+}
+
+/** Width and height of every lesson drawing's view box. */
+export const LESSON_VIEW = { width: 480, height: 300 } as const;
+
+const rad = (deg: number) => (deg * Math.PI) / 180;
+const r2 = (v: number) => Math.round(v * 100) / 100;
+const pt = (x: number, y: number): Pt => ({ x: r2(x), y: r2(y) });
+
+/** An SVG arc path for an angle mark from `fromDeg` to `toDeg` (counter-clockwise on screen, 0° = +x). */
+export function arcPath(center: Pt, radius: number, fromDeg: number, toDeg: number): string {
+  const a = pt(center.x + radius * Math.cos(rad(fromDeg)), center.y - radius * Math.sin(rad(fromDeg)));
+  const b = pt(center.x + radius * Math.cos(rad(toDeg)), center.y - radius * Math.sin(rad(toDeg)));
+  const large = Math.abs(toDeg - fromDeg) > 180 ? 1 : 0;
+  const sweep = toDeg > fromDeg ? 0 : 1;
+  return `M${a.x},${a.y} A${radius},${radius} 0 ${large} ${sweep} ${b.x},${b.y}`;
+}
+
+/** The taper lesson: a part on an angle block, tilted by `angleDeg`, and its right triangle. */
+export interface TaperTriangle {
+  /** The block under the part (a wedge of the set angle). */
+  block: Pt[];
+  /** The part outline after the cut (a pentagon), tilted with the block. */
+  part: Pt[];
+  /** The stock the cut removes (triangle: adjacent = taper length, opposite = stock removed). */
+  removed: Pt[];
+  /** Corners of the right triangle: where the taper starts (the angle), the right angle, the end corner. */
+  corner: { angle: Pt; right: Pt; far: Pt };
+  /** The level cutting line (the face once cut). */
+  cutY: number;
+  /** The angle mark at the taper start. */
+  arc: string;
+}
+
+/**
+ * Part of length `length` and thickness `thickness` (drawing units) on a wedge of `angleDeg`
+ * (0–40°); the taper starts `taperLength` from the raised end, so the cut is level.
+ */
+export function taperTriangle(angleDeg: number, length = 300, thickness = 70, taperLength = 150): TaperTriangle {
+  const a = Math.min(Math.max(angleDeg, 0.5), 40);
+  const base = pt(90, 250);
+  const c = Math.cos(rad(a));
+  const s = Math.sin(rad(a));
+  // Part frame: u along the part's base (toward the raised end), v across it (up, square to the base).
+  const at = (u: number, v: number) => pt(base.x + u * c - v * s, base.y - u * s - v * c);
+  const d = taperLength * Math.tan(rad(a));
+  const start = at(length - taperLength, thickness);
+  const endTop = at(length, thickness);
+  const endCut = at(length, thickness - d);
+  return {
+    block: [base, pt(base.x + length * c, base.y), at(length, 0)],
+    part: [at(0, 0), at(length, 0), endCut, start, at(0, thickness)],
+    removed: [start, endTop, endCut],
+    corner: { angle: start, right: endTop, far: endCut },
+    cutY: start.y,
+    arc: arcPath(start, 40, 0, a),
+  };
+}
+
+/** The sine-bar lesson: a bar of roll centres `barLength` on a stack under one roll. */
+export interface SineBarScene {
+  /** Roll centres (left on the plate, right on the stack). */
+  rolls: [Pt, Pt];
+  rollRadius: number;
+  /** The bar's top edge, between the roll centres lifted by the roll radius. */
+  bar: Pt[];
+  /** The gauge stack under the raised roll. */
+  stack: Pt[];
+  /** Stack height in view units (H = L · sin θ). */
+  stackHeight: number;
+  /** The right triangle: roll centre, point under the raised roll, raised roll centre. */
+  triangle: Pt[];
+  arc: string;
+}
+
+/** Sine bar set to `angleDeg` (0–60°), drawn with a 320-unit roll centre distance. */
+export function sineBarScene(angleDeg: number, barLength = 320): SineBarScene {
+  const a = Math.min(Math.max(angleDeg, 0), 60);
+  const radius = 14;
+  const plate = 270;
+  const left = pt(70, plate - radius);
+  const H = barLength * Math.sin(rad(a));
+  const right = pt(left.x + barLength * Math.cos(rad(a)), left.y - H);
+  const ux = Math.cos(rad(a));
+  const uy = -Math.sin(rad(a));
+  // The bar sits on the rolls: its underside is tangent to both, offset by the radius.
+  const nx = uy;
+  const ny = -ux;
+  const bar = [
+    pt(left.x - 20 * ux + radius * nx, left.y - 20 * uy + radius * ny),
+    pt(right.x + 20 * ux + radius * nx, right.y + 20 * uy + radius * ny),
+    pt(right.x + 20 * ux + (radius + 22) * nx, right.y + 20 * uy + (radius + 22) * ny),
+    pt(left.x - 20 * ux + (radius + 22) * nx, left.y - 20 * uy + (radius + 22) * ny),
+  ];
+  const stack = [pt(right.x - 24, plate), pt(right.x + 24, plate), pt(right.x + 24, plate - H), pt(right.x - 24, plate - H)];
+  return { rolls: [left, right], rollRadius: radius, bar, stack, stackHeight: r2(H), triangle: [left, pt(right.x, left.y), right], arc: arcPath(left, 50, 0, a) };
+}
+
+/** One block of a drawn stack: its rectangle and label. */
+export interface StackBlock {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+  label: string;
+}
+
+/**
+ * Gauge blocks stacked from the plate at y = 280 up, each drawn `scale` view units per unit of
+ * length, but never thinner than `minHeight` so every block stays readable.
+ */
+export function stackBlocks(sizes: readonly string[], scale: number, x = 0, width = 120, minHeight = 18): StackBlock[] {
+  let y = 280;
+  return sizes.map((label) => {
+    const height = Math.max(minHeight, Number(label) * scale);
+    y -= height;
+    return { x, y: r2(y), width, height: r2(height), label };
+  });
+}
+
+/** The lathe-taper lesson: a tapered shaft seen from above, with the compound's half angle. */
+export interface LatheTaperScene {
+  /** Outline of the taper (large end left). */
+  outline: Pt[];
+  /** The axis line. */
+  axis: [Pt, Pt];
+  /** The line of the compound's travel along the top flank. */
+  flank: [Pt, Pt];
+  /** The half angle, degrees, as drawn (exaggerated by `exaggerate`). */
+  drawnHalfAngle: number;
+  arc: string;
+}
+
+/**
+ * A taper of `taperPerFoot` (in/ft on the diameter) over one foot, drawn 360 units long with a
+ * 120-unit large diameter; the angle is drawn `exaggerate` times steeper so small tapers show.
+ */
+export function latheTaperScene(taperPerFoot: number, exaggerate = 4): LatheTaperScene {
+  const length = 360;
+  const D = 140;
+  const half = Math.atan(Math.max(taperPerFoot, 0) / 24) * exaggerate;
+  const drop = Math.min(length * Math.tan(half), D / 2 - 8);
+  const cy = 150;
+  const x0 = 60;
+  const outline = [pt(x0, cy - D / 2), pt(x0 + length, cy - D / 2 + drop), pt(x0 + length, cy + D / 2 - drop), pt(x0, cy + D / 2)];
+  const drawn = (Math.atan(drop / length) * 180) / Math.PI;
+  return {
+    outline,
+    axis: [pt(x0 - 30, cy), pt(x0 + length + 30, cy)],
+    flank: [outline[0]!, outline[1]!],
+    drawnHalfAngle: r2(drawn),
+    arc: arcPath(outline[1]!, 60, 180, 180 + drawn),
+  };
+}
+
+/** The over-pins lesson: a male dovetail with a pin in each corner and the reading over them. */
+export interface DovetailScene {
+  /** Dovetail outline (base on the bottom, flanks leaning in). */
+  outline: Pt[];
+  pins: [Pt, Pt];
+  pinRadius: number;
+  /** The measurement line over the pins (outer tangents). */
+  measure: [Pt, Pt];
+  /** The sharp-corner width line at the base. */
+  width: [Pt, Pt];
+  arc: string;
+}
+
+/**
+ * Male dovetail of flank angle `angleDeg` (to the base, 30–80°), sharp-corner width 260 and
+ * height 110, with pins of diameter `pinDiameter` sitting in the corners at the base.
+ */
+export function dovetailScene(angleDeg: number, pinDiameter = 44): DovetailScene {
+  const a = Math.min(Math.max(angleDeg, 30), 80);
+  const width = 260;
+  const height = 110;
+  const baseY = 230;
+  const x0 = 110;
+  const run = height / Math.tan(rad(a));
+  // The dovetail overhangs: it is narrow at the base and wide at the top, so pins lie in the acute corners.
+  const outline = [pt(x0, baseY), pt(x0 + width, baseY), pt(x0 + width + run, baseY - height), pt(x0 - run, baseY - height)];
+  const r = pinDiameter / 2;
+  // A pin touching the base and the flank: its centre is r/tan(α/2) from the corner along the base.
+  const offset = r / Math.tan(rad(a / 2));
+  const left = pt(x0 - offset, baseY - r);
+  const right = pt(x0 + width + offset, baseY - r);
+  return {
+    outline,
+    pins: [left, right],
+    pinRadius: r,
+    measure: [pt(left.x - r, baseY + 34), pt(right.x + r, baseY + 34)],
+    width: [pt(x0, baseY + 14), pt(x0 + width, baseY + 14)],
+    arc: arcPath(pt(x0 + width, baseY), 36, 180 - a, 180),
+  };
+}
+
+/** Points as an SVG polygon `points` attribute. */
+export function pointsAttr(points: readonly Pt[]): string {
+  return points.map((p) => `${p.x},${p.y}`).join(' ');
+}

@@ -1,0 +1,87 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
+import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+
+import type { BatchRunDto } from '../../../shared/api/batch';
+import { checkStats } from '../../../shared/batch/batch-stats';
+import { Auth, type AuthUser } from '../core/auth';
+import BatchRunPage from './batch-run-page';
+
+const ME: AuthUser = { id: 7, email: 'm@example.test', name: 'Ines', role: 'machinist' };
+const CHECK = { key: 'end-thickness', label: 'End thickness', unit: 'in' as const, nominal: '0.5854', plus: '0.0010', minus: '0.0010' };
+
+function run(parts: Array<[number, string, boolean]>, status: 'open' | 'closed' = 'open'): BatchRunDto {
+  const p = parts.map(([partNo, value, pass]) => ({ id: partNo, partNo, touchOff: null, droAtStop: null, values: { 'end-thickness': value }, pass, outOfBand: pass ? [] : ['end-thickness'], operatorId: 7, operatorName: 'Ines', measuredAt: '2026-12-01T10:00:00.000Z', note: '' }));
+  return {
+    id: 3, setupId: 1, setupName: 'Fixture wedge', setupVersion: 2, label: 'Lot A', partCount: 3, status, checks: [CHECK],
+    startedById: 7, startedByName: 'Ines', closedAt: null, closedByName: null, version: 1,
+    summary: { entered: p.length, passed: p.filter((x) => x.pass).length, failed: p.filter((x) => !x.pass).length },
+    createdAt: '2026-12-01T09:00:00.000Z', updatedAt: '2026-12-01T09:00:00.000Z',
+    parts: p, stats: checkStats([CHECK], p.map((x) => ({ partNo: x.partNo, values: x.values }))),
+  };
+}
+
+describe('BatchRunPage', () => {
+  let fixture: ComponentFixture<BatchRunPage>;
+  let http: HttpTestingController;
+  const el = () => fixture.nativeElement as HTMLElement;
+
+  async function open(dto: BatchRunDto): Promise<void> {
+    TestBed.configureTestingModule({
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal(ME) } }],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(BatchRunPage);
+    fixture.componentRef.setInput('id', 3);
+    fixture.detectChanges();
+    http.expectOne('/api/batches/3').flush(dto);
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  afterEach(() => http.verify());
+
+  async function type(label: string, value: string): Promise<void> {
+    const field = Array.from(el().querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')?.textContent?.includes(label));
+    const input = field?.querySelector('input') as HTMLInputElement;
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  it('should show each part with a pass or fail chip, the spread and a chart', async () => {
+    await open(run([[1, '0.5856', true], [2, '0.5870', false]]));
+    expect(Array.from(el().querySelectorAll('.verdict')).map((v) => v.textContent)).toEqual(['Pass', 'Fail']);
+    // 0.5870 − 0.5856 = 0.0014 (derived).
+    expect(el().querySelector('.figures')?.textContent).toContain('0.0014');
+    expect(el().querySelectorAll('app-batch-chart circle')).toHaveLength(2);
+    expect(el().querySelectorAll('app-batch-chart circle.fail')).toHaveLength(1);
+  });
+
+  it('should tell live whether a typed value is in band, then post the part', async () => {
+    await open(run([[1, '0.5856', true]]));
+    expect(el().querySelector('form h2')?.textContent).toBe('Part 2');
+    await type('End thickness', '0.5899');
+    expect(el().querySelector('mat-form-field.fail')).not.toBeNull();
+    await type('End thickness', '0.5855');
+    expect(el().querySelector('mat-form-field.pass')).not.toBeNull();
+    await type('DRO at stop', '-0.1632');
+    (el().querySelector('button[type=submit]') as HTMLButtonElement).click();
+    const req = http.expectOne('/api/batches/3/parts');
+    expect(req.request.method).toBe('POST');
+    expect(req.request.body).toEqual({ touchOff: null, droAtStop: '-0.1632', values: { 'end-thickness': '0.5855' }, note: undefined });
+    req.flush({ part: {}, run: run([[1, '0.5856', true], [2, '0.5855', true]]) });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('form h2')?.textContent).toBe('Part 3');
+  });
+
+  it('should show a closed run read-only', async () => {
+    await open(run([[1, '0.5856', true]], 'closed'));
+    expect(el().querySelector('form')).toBeNull();
+    expect(Array.from(el().querySelectorAll('button')).some((b) => b.textContent?.includes('Close run'))).toBe(false);
+  });
+});

@@ -1,0 +1,120 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { toObservable } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+
+import type { BatchRunDto } from '../../../shared/api/batch';
+import { DECIMAL_TEXT } from '../../../shared/api/setup';
+import { inBand } from '../../../shared/batch/batch-stats';
+import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { BatchChart } from './batch-chart';
+import { BatchesApi, csvUrl } from './batches-api';
+
+/** Entry of one part: readings as typed. */
+interface PartEntry {
+  touchOff: string;
+  droAtStop: string;
+  values: Record<string, string>;
+  note: string;
+}
+
+const EMPTY: PartEntry = { touchOff: '', droAtStop: '', values: {}, note: '' };
+
+/** A batch run at the machine: enter each part's readings, see pass/fail, the spread and the charts; close the run. */
+@Component({
+  selector: 'app-batch-run-page',
+  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, BatchChart],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './batch-run-page.html',
+  styleUrl: './batch-run-page.scss',
+})
+export default class BatchRunPage {
+  private readonly api = inject(BatchesApi);
+  private readonly auth = inject(Auth);
+
+  /** Route parameter `:id`. */
+  readonly id = input.required({ transform: numberAttribute });
+
+  protected readonly run = signal<BatchRunDto | null>(null);
+  protected readonly loadError = signal<string | null>(null);
+  protected readonly entry = signal<PartEntry>(EMPTY);
+  protected readonly saving = signal(false);
+  protected readonly saveError = signal<string | null>(null);
+  protected readonly fieldErrors = signal<Readonly<Record<string, string>>>({});
+  protected readonly csvUrl = csvUrl;
+
+  protected readonly isOpen = computed(() => this.run()?.status === 'open');
+  protected readonly nextPart = computed(() => {
+    const r = this.run();
+    return r ? (r.parts ?? []).reduce((m, p) => Math.max(m, p.partNo), 0) + 1 : 1;
+  });
+  protected readonly full = computed(() => !!this.run() && this.nextPart() > (this.run()?.partCount ?? 0));
+  protected readonly mayRecord = computed(() => this.isOpen() && !this.full() && this.auth.user()?.role !== 'apprentice');
+  protected readonly mayClose = computed(() => {
+    const u = this.auth.user();
+    const r = this.run();
+    return !!u && !!r && r.status === 'open' && (u.role === 'lead' || u.role === 'admin' || (u.role === 'machinist' && r.startedById === u.id));
+  });
+  /** Live verdict of each typed value: in band, out of band, or not yet a number. */
+  protected readonly liveVerdict = computed(() => {
+    const r = this.run();
+    const values = this.entry().values;
+    const out: Record<string, 'pass' | 'fail' | null> = {};
+    for (const c of r?.checks ?? []) {
+      const v = (values[c.key] ?? '').trim();
+      out[c.key] = DECIMAL_TEXT.test(v) ? (inBand(c, v) ? 'pass' : 'fail') : null;
+    }
+    return out;
+  });
+
+  constructor() {
+    toObservable(this.id).subscribe((id) => this.load(id));
+  }
+
+  protected load(id: number): void {
+    this.api.get(id).subscribe({ next: (r) => this.run.set(r), error: (err: unknown) => this.loadError.set(apiErrorMessage(err)) });
+  }
+
+  protected setValue(key: string, value: string): void {
+    this.entry.update((e) => ({ ...e, values: { ...e.values, [key]: value } }));
+  }
+
+  protected setField(field: 'touchOff' | 'droAtStop' | 'note', value: string): void {
+    this.entry.update((e) => ({ ...e, [field]: value }));
+  }
+
+  /** Records the next part; on success the form clears for the one after. */
+  protected record(): void {
+    const r = this.run();
+    if (!r) return;
+    const e = this.entry();
+    this.saving.set(true);
+    this.saveError.set(null);
+    this.fieldErrors.set({});
+    this.api.addPart(r.id, { touchOff: e.touchOff || null, droAtStop: e.droAtStop || null, values: e.values, note: e.note || undefined }).subscribe({
+      next: (res) => {
+        this.run.set(res.run);
+        this.entry.set({ ...EMPTY, touchOff: e.touchOff });
+        this.saving.set(false);
+      },
+      error: (err: unknown) => {
+        this.saving.set(false);
+        this.fieldErrors.set(apiFieldErrors(err));
+        this.saveError.set(apiErrorMessage(err));
+      },
+    });
+  }
+
+  protected close(): void {
+    const r = this.run();
+    if (!r) return;
+    this.api.close(r.id).subscribe((fresh) => this.run.set(fresh));
+  }
+}

@@ -1,0 +1,48 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { type Observable, map } from 'rxjs';
+
+import type { BatchCreateBody, BatchPartBody, BatchPartDto, BatchRunDto, BatchStatus } from '../../../shared/api/batch';
+import { quietErrors } from '../core/api-error';
+
+/** Checks the JSON of a batch run. */
+export function parseRun(json: unknown): BatchRunDto {
+  const r = json as Partial<BatchRunDto> | null;
+  if (!r || typeof r.id !== 'number' || typeof r.setupId !== 'number' || !Array.isArray(r.checks) || typeof r.status !== 'string') {
+    throw new Error('BatchesApi: the server sent a batch run without id, setupId, checks and status.');
+  }
+  return r as BatchRunDto;
+}
+
+/** Batch runs over HTTP. */
+@Injectable({ providedIn: 'root' })
+export class BatchesApi {
+  private readonly http = inject(HttpClient);
+
+  list(filter: { setupId?: number; status?: BatchStatus } = {}): Observable<BatchRunDto[]> {
+    let params = new HttpParams();
+    if (filter.setupId) params = params.set('setupId', filter.setupId);
+    if (filter.status) params = params.set('status', filter.status);
+    return this.http.get<{ batches: unknown[] }>('/api/batches', { params }).pipe(map((r) => (r.batches ?? []).map(parseRun)));
+  }
+
+  get(id: number): Observable<BatchRunDto> {
+    return this.http.get<unknown>(`/api/batches/${id}`).pipe(map(parseRun));
+  }
+
+  start(body: BatchCreateBody): Observable<BatchRunDto> {
+    return this.http.post<unknown>('/api/batches', body, { context: quietErrors() }).pipe(map(parseRun));
+  }
+
+  /** Records the next part; field errors come back to the caller to show beside the inputs. */
+  addPart(runId: number, body: BatchPartBody): Observable<{ part: BatchPartDto; run: BatchRunDto }> {
+    return this.http.post<{ part: BatchPartDto; run: unknown }>(`/api/batches/${runId}/parts`, body, { context: quietErrors() }).pipe(map((r) => ({ part: r.part, run: parseRun(r.run) })));
+  }
+
+  close(runId: number): Observable<BatchRunDto> {
+    return this.http.post<unknown>(`/api/batches/${runId}/close`, {}).pipe(map(parseRun));
+  }
+}
+
+/** Address of a run's CSV export. */
+export const csvUrl = (id: number) => `/api/batches/${id}/export.csv`;

@@ -1,0 +1,154 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatChipsModule } from '@angular/material/chips';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
+
+import { SETUP_KINDS, SETUP_STATUSES, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
+import { apiErrorMessage } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { ErrorNotice } from '../core/error-notice';
+import { KIND_AREAS, LibraryApi, STATUS_LABELS, type LibraryQuery } from './library-api';
+
+/** Page sizes the paginator offers. */
+const PAGE_SIZES = [10, 25, 50];
+
+/** The set-up library: the team's set-ups with search, filters, sort and server-side paging. */
+@Component({
+  selector: 'app-library-page',
+  imports: [
+    DatePipe, FormsModule, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule,
+    MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatSlideToggleModule, MatSortModule, MatTableModule,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './library-page.html',
+  styleUrl: './library-page.scss',
+})
+export default class LibraryPage {
+  private readonly api = inject(LibraryApi);
+  private readonly auth = inject(Auth);
+  private readonly router = inject(Router);
+  private readonly notice = inject(ErrorNotice);
+
+  protected readonly kinds = SETUP_KINDS;
+  protected readonly statuses = SETUP_STATUSES;
+  protected readonly pageSizes = PAGE_SIZES;
+  protected readonly columns = ['name', 'kind', 'status', 'job', 'owner', 'updatedAt'];
+
+  protected readonly search = signal('');
+  protected readonly kind = signal('');
+  protected readonly status = signal<SetupStatus | ''>('');
+  protected readonly job = signal('');
+  protected readonly mineOnly = signal(false);
+  protected readonly sort = signal<Sort>({ active: 'updatedAt', direction: 'desc' });
+  protected readonly pageIndex = signal(0);
+  protected readonly pageSize = signal(25);
+  protected readonly importing = signal(false);
+
+  /** The query the filters make; any change goes back to page 1 except paging itself. */
+  protected readonly query = computed<LibraryQuery>(() => ({
+    q: this.search().trim(),
+    kind: this.kind(),
+    status: this.status(),
+    job: this.job().trim(),
+    ownerId: this.mineOnly() ? (this.auth.user()?.id ?? null) : null,
+    sort: (this.sort().direction ? this.sort().active : 'updatedAt') as SetupSort,
+    dir: this.sort().direction || 'desc',
+    page: this.pageIndex() + 1,
+    pageSize: this.pageSize(),
+  }));
+
+  private readonly result = toSignal(
+    toObservable(this.query).pipe(
+      debounceTime(250),
+      switchMap((q) =>
+        this.api.list(q).pipe(
+          map((page) => ({ loading: false, page, error: null as string | null })),
+          catchError((err: unknown) => of({ loading: false, page: null, error: apiErrorMessage(err) })),
+          startWith({ loading: true, page: null as SetupPageDto | null, error: null as string | null }),
+        ),
+      ),
+    ),
+    { initialValue: { loading: true, page: null, error: null } },
+  );
+  private readonly lastPage = signal<SetupPageDto | null>(null);
+
+  /** Rows shown: the latest page, kept while the next one loads. */
+  protected readonly page = computed(() => this.result().page ?? this.lastPage());
+  protected readonly loading = computed(() => this.result().loading);
+  protected readonly error = computed(() => this.result().error);
+  protected readonly rows = computed(() => this.page()?.setups ?? []);
+  protected readonly total = computed(() => this.page()?.total ?? 0);
+
+  constructor() {
+    toObservable(this.result).subscribe((r) => {
+      if (r.page) this.lastPage.set(r.page);
+    });
+  }
+
+  protected kindLabel(kind: string): string {
+    return KIND_AREAS[kind]?.label ?? kind;
+  }
+
+  protected statusLabel(status: string): string {
+    return STATUS_LABELS[status as SetupStatus] ?? status;
+  }
+
+  /** Sets a filter and goes back to the first page. */
+  protected setFilter(apply: () => void): void {
+    apply();
+    this.pageIndex.set(0);
+  }
+
+  protected changeSort(sort: Sort): void {
+    this.sort.set(sort);
+    this.pageIndex.set(0);
+  }
+
+  protected changePage(event: PageEvent): void {
+    this.pageSize.set(event.pageSize);
+    this.pageIndex.set(event.pageIndex);
+  }
+
+  protected clearFilters(): void {
+    this.search.set('');
+    this.kind.set('');
+    this.status.set('');
+    this.job.set('');
+    this.mineOnly.set(false);
+    this.pageIndex.set(0);
+  }
+
+  /** Reads an exported set-up file and imports it as a draft of this team. */
+  protected async importFile(input: HTMLInputElement): Promise<void> {
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    this.importing.set(true);
+    try {
+      const json: unknown = JSON.parse(await file.text());
+      this.api.import(json).subscribe({
+        next: (setup) => void this.router.navigate(['/library', setup.id]),
+        error: (err: unknown) => {
+          this.importing.set(false);
+          void this.notice.show(`Import failed: ${apiErrorMessage(err)}`);
+        },
+      });
+    } catch {
+      this.importing.set(false);
+      void this.notice.show('Import failed: the file is not a set-up exported from Slantwise (not valid JSON).');
+    }
+  }
+}

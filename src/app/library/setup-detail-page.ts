@@ -1,0 +1,228 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { toObservable } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import { forkJoin } from 'rxjs';
+
+import type { BatchRunDto } from '../../../shared/api/batch';
+import { CHECK_UNITS, type AttachmentDto, type RevisionDto, type SetupCheck, type SetupDto } from '../../../shared/api/setup';
+import { setupResults, type ResultLine } from '../../../shared/library/setup-results';
+import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { ErrorNotice } from '../core/error-notice';
+import { BatchesApi } from '../batches/batches-api';
+import { checkFromResult, checkKey, DEFAULT_TOLERANCE } from './check-suggestions';
+import { attachmentUrl, exportUrl, KIND_AREAS, LibraryApi, sheetUrl, STATUS_LABELS, thumbnailUrl } from './library-api';
+
+/** Largest upload the page lets through before asking the server (the server has the final say). */
+const MAX_UPLOAD_MB = 20;
+
+/** One set-up: inputs, results, checks, notes, attachments, history and batch runs, with the actions the role allows. */
+@Component({
+  selector: 'app-setup-detail-page',
+  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatExpansionModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './setup-detail-page.html',
+  styleUrl: './setup-detail-page.scss',
+})
+export default class SetupDetailPage {
+  private readonly api = inject(LibraryApi);
+  private readonly batches = inject(BatchesApi);
+  private readonly auth = inject(Auth);
+  private readonly notice = inject(ErrorNotice);
+  private readonly router = inject(Router);
+
+  /** Route parameter `:id`. */
+  readonly id = input.required({ transform: numberAttribute });
+
+  protected readonly setup = signal<SetupDto | null>(null);
+  protected readonly revisions = signal<RevisionDto[]>([]);
+  protected readonly attachments = signal<AttachmentDto[]>([]);
+  protected readonly runs = signal<BatchRunDto[]>([]);
+  protected readonly loadError = signal<string | null>(null);
+  protected readonly uploadPercent = signal<number | null>(null);
+  protected readonly uploadError = signal<string | null>(null);
+  protected readonly editing = signal(false);
+  protected readonly saveError = signal<string | null>(null);
+  protected readonly fieldErrors = signal<Readonly<Record<string, string>>>({});
+  protected readonly draft = signal<{ name: string; job: string; notes: string; checks: SetupCheck[] }>({ name: '', job: '', notes: '', checks: [] });
+  protected readonly partCount = signal(8);
+  protected readonly startError = signal<string | null>(null);
+
+  protected readonly units = CHECK_UNITS;
+  protected readonly statusLabels = STATUS_LABELS;
+  protected readonly sheetUrl = sheetUrl;
+  protected readonly exportUrl = exportUrl;
+  protected readonly attachmentUrl = attachmentUrl;
+  protected readonly thumbnailUrl = thumbnailUrl;
+
+  protected readonly area = computed(() => KIND_AREAS[this.setup()?.kind ?? ''] ?? null);
+  protected readonly inputs = computed(() => Object.entries(this.setup()?.inputs ?? {}).map(([k, v]) => ({ key: k, value: typeof v === 'object' ? JSON.stringify(v) : String(v) })));
+  protected readonly results = computed(() => {
+    const s = this.setup();
+    return s ? setupResults(s.kind, s.inputs) : null;
+  });
+  protected readonly role = computed(() => this.auth.user()?.role ?? null);
+  protected readonly isLead = computed(() => this.role() === 'lead' || this.role() === 'admin');
+  protected readonly mayEdit = computed(() => {
+    const s = this.setup();
+    const u = this.auth.user();
+    return !!s && !!u && s.status !== 'archived' && (this.isLead() || s.ownerId === u.id);
+  });
+  protected readonly mayRun = computed(() => this.setup()?.status === 'released' && (this.setup()?.checks.length ?? 0) > 0 && this.role() !== 'apprentice');
+
+  constructor() {
+    toObservable(this.id).subscribe((id) => this.load(id));
+  }
+
+  /** Loads the set-up and everything shown with it. */
+  protected load(id: number): void {
+    this.loadError.set(null);
+    forkJoin({ setup: this.api.get(id), revisions: this.api.revisions(id), attachments: this.api.attachments(id), runs: this.batches.list({ setupId: id }) }).subscribe({
+      next: (r) => {
+        this.setup.set(r.setup);
+        this.revisions.set(r.revisions);
+        this.attachments.set(r.attachments);
+        this.runs.set(r.runs);
+      },
+      error: (err: unknown) => this.loadError.set(apiErrorMessage(err)),
+    });
+  }
+
+  private refreshHistory(id: number): void {
+    this.api.revisions(id).subscribe((r) => this.revisions.set(r));
+  }
+
+  protected release(): void {
+    const s = this.setup();
+    if (!s) return;
+    this.api.release(s.id, s.version).subscribe((fresh) => {
+      this.setup.set(fresh);
+      this.refreshHistory(fresh.id);
+    });
+  }
+
+  protected archive(): void {
+    const s = this.setup();
+    if (!s) return;
+    this.api.archive(s.id, s.version).subscribe((fresh) => {
+      this.setup.set(fresh);
+      this.refreshHistory(fresh.id);
+    });
+  }
+
+  protected startEdit(): void {
+    const s = this.setup();
+    if (!s) return;
+    this.draft.set({ name: s.name, job: s.job ?? '', notes: s.notes, checks: s.checks.map((c) => ({ ...c })) });
+    this.saveError.set(null);
+    this.fieldErrors.set({});
+    this.editing.set(true);
+  }
+
+  protected patchDraft(patch: Partial<{ name: string; job: string; notes: string }>): void {
+    this.draft.update((d) => ({ ...d, ...patch }));
+  }
+
+  protected patchCheck(index: number, patch: Partial<SetupCheck>): void {
+    this.draft.update((d) => ({ ...d, checks: d.checks.map((c, i) => (i === index ? { ...c, ...patch, key: patch.label !== undefined ? checkKey(patch.label) : c.key } : c)) }));
+  }
+
+  protected addCheck(check?: SetupCheck): void {
+    const unit = this.setup()?.inputs['unit'] === 'mm' ? 'mm' : 'in';
+    const next = check ?? { key: `check-${this.draft().checks.length + 1}`, label: '', unit, nominal: '', plus: DEFAULT_TOLERANCE[unit], minus: DEFAULT_TOLERANCE[unit] };
+    if (this.draft().checks.some((c) => c.key === next.key)) return;
+    this.draft.update((d) => ({ ...d, checks: [...d.checks, next] }));
+  }
+
+  protected removeCheck(index: number): void {
+    this.draft.update((d) => ({ ...d, checks: d.checks.filter((_, i) => i !== index) }));
+  }
+
+  /** A result line that can become a check value (a single number). */
+  protected suggestion(line: ResultLine): SetupCheck | null {
+    return checkFromResult(line, this.setup()?.inputs['unit'] === 'mm' ? 'mm' : 'in');
+  }
+
+  protected addResultAsCheck(line: ResultLine): void {
+    const check = this.suggestion(line);
+    if (!check) return;
+    if (!this.editing()) this.startEdit();
+    this.addCheck(check);
+  }
+
+  protected save(): void {
+    const s = this.setup();
+    if (!s) return;
+    const d = this.draft();
+    this.api.update(s.id, { name: d.name, kind: s.kind, inputs: s.inputs, notes: d.notes, job: d.job.trim() || null, checks: d.checks, version: s.version }).subscribe({
+      next: (fresh) => {
+        this.setup.set(fresh);
+        this.editing.set(false);
+        this.refreshHistory(fresh.id);
+      },
+      error: (err: unknown) => {
+        this.fieldErrors.set(apiFieldErrors(err));
+        this.saveError.set(err instanceof HttpErrorResponse && err.status === 409 ? 'Someone changed this set-up while you were editing. Reload to see their change, then edit again.' : apiErrorMessage(err));
+      },
+    });
+  }
+
+  protected upload(input: HTMLInputElement): void {
+    const s = this.setup();
+    const file = input.files?.[0];
+    input.value = '';
+    if (!s || !file) return;
+    this.uploadError.set(null);
+    if (file.size > MAX_UPLOAD_MB * 1024 * 1024) {
+      this.uploadError.set(`The file is larger than the ${MAX_UPLOAD_MB} MB limit.`);
+      return;
+    }
+    this.uploadPercent.set(0);
+    this.api.upload(s.id, file).subscribe({
+      next: (p) => {
+        if (p.done) {
+          this.attachments.update((list) => [...list, p.attachment]);
+          this.uploadPercent.set(null);
+          this.refreshHistory(s.id);
+        } else {
+          this.uploadPercent.set(p.percent);
+        }
+      },
+      error: (err: unknown) => {
+        this.uploadPercent.set(null);
+        this.uploadError.set(apiErrorMessage(err));
+      },
+    });
+  }
+
+  protected removeAttachment(a: AttachmentDto): void {
+    this.api.removeAttachment(a.setupId, a.id).subscribe(() => {
+      this.attachments.update((list) => list.filter((x) => x.id !== a.id));
+      this.refreshHistory(a.setupId);
+    });
+  }
+
+  protected startRun(): void {
+    const s = this.setup();
+    if (!s) return;
+    this.startError.set(null);
+    this.batches.start({ setupId: s.id, partCount: this.partCount() }).subscribe({
+      next: (run) => void this.router.navigate(['/batches', run.id]),
+      error: (err: unknown) => this.startError.set(apiErrorMessage(err)),
+    });
+  }
+
+  protected showNotice(message: string): void {
+    void this.notice.show(message);
+  }
+}

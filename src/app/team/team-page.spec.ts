@@ -1,0 +1,79 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+
+import { Auth } from '../core/auth';
+import TeamPage from './team-page';
+
+const ADMIN = { id: 1, email: 'admin@demo.test', name: 'Mara Lindqvist', role: 'admin' as const };
+const LEAD = { id: 2, email: 'lead@demo.test', name: 'Teodor Vance', role: 'lead' as const };
+const member = (id: number, name: string, role: string, active = true) => ({ id, name, role, active, email: `${id}@demo.test`, createdAt: '2026-12-01T00:00:00Z' });
+
+describe('TeamPage', () => {
+  let fixture: ComponentFixture<TeamPage>;
+  let http: HttpTestingController;
+  let el: HTMLElement;
+
+  async function open(user: typeof ADMIN | typeof LEAD): Promise<void> {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    http = TestBed.inject(HttpTestingController);
+    jest.spyOn(TestBed.inject(Auth), 'ready').mockResolvedValue(user);
+    jest.spyOn(TestBed.inject(Auth), 'user').mockReturnValue(user);
+    fixture = TestBed.createComponent(TeamPage);
+    el = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  }
+
+  afterEach(() => http.verify());
+
+  /** Lets the page's awaited requests settle and re-render. */
+  async function settle(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+  }
+
+  it('should list members with deactivate buttons for an admin, and load invitations and the mailbox', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] });
+    await settle();
+    expect(el.textContent).toContain('Sam Okafor');
+    const buttons = Array.from(el.querySelectorAll('button')).map((b) => b.textContent?.trim());
+    expect(buttons.some((t) => t?.includes('Deactivate'))).toBe(true);
+    expect(el.textContent).toContain('Dev mailbox');
+  });
+
+  it('should deactivate a member with PATCH active=false after asking', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] }, { status: 404, statusText: 'Not Found' });
+    await settle();
+    expect(el.textContent).not.toContain('Dev mailbox');
+    jest.spyOn(window, 'confirm').mockReturnValue(true);
+    const deactivate = Array.from(el.querySelectorAll('button')).find((b) => b.textContent?.includes('Deactivate')) as HTMLButtonElement;
+    deactivate.click();
+    await settle();
+    const req = http.expectOne('/api/team/members/4');
+    expect(req.request.method).toBe('PATCH');
+    expect(req.request.body).toEqual({ active: false });
+    req.flush(member(4, 'Sam Okafor', 'apprentice', false));
+    await settle();
+    expect(el.textContent).toContain('Deactivated');
+  });
+
+  it('should show a lead the members read-only, without invitations or mailbox', async () => {
+    await open(LEAD);
+    http.expectOne('/api/team/members').flush({ members: [member(4, 'Sam Okafor', 'apprentice')] });
+    await settle();
+    http.expectNone('/api/team/invitations');
+    expect(el.textContent).toContain('Sam Okafor');
+    expect(Array.from(el.querySelectorAll('button')).some((b) => b.textContent?.includes('Deactivate'))).toBe(false);
+  });
+});

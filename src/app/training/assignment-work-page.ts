@@ -1,0 +1,116 @@
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+
+import type { ProblemDto } from '../../../shared/api/training';
+import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
+import { ExerciseCard, type ProblemView } from './exercise-card';
+import { TrainingApi, type AssignmentWorkView } from './training-api';
+import { STATUS_LABELS } from './work-status';
+
+/** An apprentice's own copy of an assignment: every problem, answered and graded on the server. */
+@Component({
+  selector: 'sw-assignment-work-page',
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ExerciseCard],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <section class="page work">
+      <a mat-button routerLink="/training/assignments"><mat-icon>arrow_back</mat-icon> My assignments</a>
+      @if (view(); as v) {
+        <h1>{{ v.assignment.title }}</h1>
+        <p class="meta">
+          Due {{ v.assignment.dueAt.slice(0, 16).replace('T', ' ') }} UTC · set by {{ v.assignment.createdBy }}
+          @if (summary(); as s) {
+            · <strong>{{ statusLabel() }}</strong> · {{ s.correct }} of {{ s.total }} right ({{ s.score }}%)
+          }
+        </p>
+        @if (v.assignment.instructions) { <p class="instructions">{{ v.assignment.instructions }}</p> }
+        <p class="note">Each problem takes up to three answers; a right answer or the last try closes it and shows the worked solution.</p>
+        <div class="problems">
+          @for (p of v.problems; track p.position) {
+            <sw-exercise-card [problem]="toView(p)" [heading]="'Problem ' + p.position" [busy]="busy() === p.position"
+                              [error]="errors()[p.position] ?? null" (answered)="answer(p.position, $event)" (hint)="hint(p.position)" />
+          }
+        </div>
+      } @else if (failed()) {
+        <h1>Assignment</h1>
+        <p role="alert">{{ failed() }}</p>
+      } @else {
+        <mat-progress-bar mode="indeterminate" aria-label="Loading the assignment" />
+      }
+    </section>
+  `,
+  styles: `
+    .meta, .note { color: var(--mat-sys-on-surface-variant); }
+    .instructions { max-width: 70ch; }
+    .problems { display: grid; gap: 16px; }
+  `,
+})
+export default class AssignmentWorkPage {
+  private readonly api = inject(TrainingApi);
+
+  /** The assignment id, from the route. */
+  readonly id = input.required<string>();
+
+  protected readonly view = signal<AssignmentWorkView | null>(null);
+  protected readonly failed = signal<string | null>(null);
+  /** Position of the problem whose request is on its way. */
+  protected readonly busy = signal<number | null>(null);
+  protected readonly errors = signal<Readonly<Record<number, string | undefined>>>({});
+  protected readonly summary = computed(() => this.view()?.assignment.work[0] ?? null);
+  protected readonly statusLabel = computed(() => {
+    const s = this.summary();
+    return s ? STATUS_LABELS[s.status] : '';
+  });
+
+  constructor() {
+    effect(() => void this.load(Number(this.id())));
+  }
+
+  /** The card's view of a problem. */
+  protected toView(p: ProblemDto): ProblemView {
+    return p;
+  }
+
+  /** Sends an answer to the server and shows its verdict. */
+  protected async answer(position: number, text: string): Promise<void> {
+    this.busy.set(position);
+    this.errors.update((e) => ({ ...e, [position]: '' }));
+    try {
+      const result = await firstValueFrom(this.api.attempt(Number(this.id()), position, text));
+      this.replace(result.problem);
+      await this.load(Number(this.id()));
+    } catch (err) {
+      const message = apiFieldErrors(err)['answer'] ?? apiErrorMessage(err);
+      this.errors.update((e) => ({ ...e, [position]: message }));
+    } finally {
+      this.busy.set(null);
+    }
+  }
+
+  /** Reveals the next hint of a problem. */
+  protected async hint(position: number): Promise<void> {
+    this.busy.set(position);
+    try {
+      this.replace(await firstValueFrom(this.api.hint(Number(this.id()), position)));
+    } finally {
+      this.busy.set(null);
+    }
+  }
+
+  private replace(problem: ProblemDto): void {
+    this.view.update((v) => (v ? { ...v, problems: v.problems.map((p) => (p.position === problem.position ? problem : p)) } : v));
+  }
+
+  private async load(id: number): Promise<void> {
+    try {
+      this.view.set(await firstValueFrom(this.api.work(id)));
+    } catch (err) {
+      this.failed.set(err instanceof HttpErrorResponse && err.status === 404 ? 'This assignment is not one of yours.' : apiErrorMessage(err));
+    }
+  }
+}

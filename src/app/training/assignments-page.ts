@@ -1,0 +1,132 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+
+import type { MemberDto } from '../../../shared/api/team-admin';
+import { MAX_PER_TYPE, type AssignmentDto, type ScoreTableDto, type WorkStatus } from '../../../shared/api/training';
+import { EXERCISE_INFO, EXERCISE_TYPES, type ExerciseType } from '../../../shared/training/exercise-types';
+import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { TeamApi } from '../team/team-api';
+import { TrainingApi } from './training-api';
+import { STATUS_ICONS, STATUS_LABELS } from './work-status';
+
+/** A due date a week from now at 16:00 local time, as a datetime-local value. */
+function defaultDue(): string {
+  const d = new Date(Date.now() + 7 * 86_400_000);
+  d.setHours(16, 0, 0, 0);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+
+/**
+ * Assignments. An apprentice sees their own with status and score. A lead or admin creates
+ * assignments for chosen apprentices and reads the score table, late and missing work marked.
+ */
+@Component({
+  selector: 'sw-assignments-page',
+  imports: [FormsModule, RouterLink, MatCardModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatIconModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './assignments-page.html',
+  styleUrl: './assignments-page.scss',
+})
+export default class AssignmentsPage {
+  private readonly api = inject(TrainingApi);
+  private readonly teamApi = inject(TeamApi);
+  private readonly auth = inject(Auth);
+
+  protected readonly canAssign = computed(() => ['lead', 'admin'].includes(this.auth.user()?.role ?? ''));
+  protected readonly assignments = signal<AssignmentDto[]>([]);
+  protected readonly scores = signal<ScoreTableDto | null>(null);
+  protected readonly apprentices = signal<MemberDto[]>([]);
+  protected readonly types = EXERCISE_TYPES;
+  protected readonly info = EXERCISE_INFO;
+  protected readonly maxPerType = MAX_PER_TYPE;
+  protected readonly statusLabels = STATUS_LABELS;
+  protected readonly statusIcons = STATUS_ICONS;
+
+  // The new-assignment form.
+  protected readonly title = signal('');
+  protected readonly instructions = signal('');
+  protected readonly due = signal(defaultDue());
+  protected readonly counts = signal<Partial<Record<ExerciseType, number>>>({ 'taper-depth': 2 });
+  protected readonly chosen = signal<ReadonlySet<number>>(new Set());
+  protected readonly formErrors = signal<Record<string, string>>({});
+  protected readonly formMessage = signal<string | null>(null);
+  protected readonly saving = signal(false);
+
+  constructor() {
+    void this.load();
+  }
+
+  /** The status label of a work status. */
+  protected label(status: WorkStatus): string {
+    return STATUS_LABELS[status];
+  }
+
+  protected setCount(type: ExerciseType, value: string | number): void {
+    const n = Math.max(0, Math.min(MAX_PER_TYPE, Math.floor(Number(value) || 0)));
+    this.counts.update((c) => ({ ...c, [type]: n }));
+  }
+
+  protected toggle(id: number, on: boolean): void {
+    this.chosen.update((set) => {
+      const next = new Set(set);
+      if (on) next.add(id);
+      else next.delete(id);
+      return next;
+    });
+  }
+
+  /** Sends the new assignment; each chosen apprentice gets their own problems and an e-mail. */
+  protected async create(): Promise<void> {
+    this.saving.set(true);
+    this.formErrors.set({});
+    this.formMessage.set(null);
+    const items = EXERCISE_TYPES.filter((t) => (this.counts()[t] ?? 0) > 0).map((type) => ({ type, count: this.counts()[type] ?? 0 }));
+    const dueDate = new Date(this.due());
+    try {
+      const created = await firstValueFrom(this.api.create({
+        title: this.title(),
+        instructions: this.instructions(),
+        items,
+        dueAt: Number.isNaN(dueDate.getTime()) ? this.due() : dueDate.toISOString(),
+        assigneeIds: [...this.chosen()],
+      }));
+      this.formMessage.set(`Assigned "${created.title}" to ${created.work.length} apprentice${created.work.length === 1 ? '' : 's'}; ${created.mailSent} e-mail notice${created.mailSent === 1 ? '' : 's'} sent.`);
+      this.title.set('');
+      this.instructions.set('');
+      this.chosen.set(new Set());
+      await this.load();
+    } catch (err) {
+      this.formErrors.set(apiFieldErrors(err));
+      this.formMessage.set(apiErrorMessage(err));
+    } finally {
+      this.saving.set(false);
+    }
+  }
+
+  /** Deletes an assignment after asking. */
+  protected async remove(a: AssignmentDto): Promise<void> {
+    if (!confirm(`Delete "${a.title}" and every apprentice's work on it?`)) return;
+    await firstValueFrom(this.api.remove(a.id));
+    await this.load();
+  }
+
+  private async load(): Promise<void> {
+    await this.auth.ready();
+    this.assignments.set(await firstValueFrom(this.api.assignments()));
+    if (this.canAssign()) {
+      this.scores.set(await firstValueFrom(this.api.scores()));
+      const members = await firstValueFrom(this.teamApi.members());
+      this.apprentices.set(members.filter((m) => m.role === 'apprentice' && m.active));
+    }
+  }
+}

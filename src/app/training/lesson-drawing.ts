@@ -1,0 +1,225 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, input, linkedSignal } from '@angular/core';
+import { MatSliderModule } from '@angular/material/slider';
+
+import { Dec, cosDeg, sinDeg, tanDeg } from '../../../shared/calc/decimal-math';
+import { calculateGaugeStack } from '../../../shared/calc/gauge-stack';
+import { calculateLatheTaper } from '../../../shared/calc/lathe-taper';
+import { calculateOverPins } from '../../../shared/calc/over-pins';
+import { calculateSineBar } from '../../../shared/calc/sine-bar';
+import { calculateTaper } from '../../../shared/calc/taper';
+import { LESSON_VIEW, dovetailScene, latheTaperScene, pointsAttr, sineBarScene, stackBlocks, taperTriangle } from '../../../shared/training/lesson-geometry';
+import type { LessonDrawingKind } from './lessons';
+
+/** Slider range, step, start value and label of each drawing. */
+const SLIDERS: Readonly<Record<LessonDrawingKind, { min: number; max: number; step: number; start: number; label: string; unit: string }>> = {
+  'taper-triangle': { min: 1, max: 30, step: 0.5, start: 7.5, label: 'Angle α', unit: '°' },
+  'sine-bar': { min: 0, max: 60, step: 0.5, start: 14.5, label: 'Angle θ', unit: '°' },
+  'gauge-stack': { min: 0.3, max: 6, step: 0.0001, start: 2.826, label: 'Stack length', unit: 'in' },
+  'lathe-taper': { min: 0.0625, max: 3, step: 0.0625, start: 0.625, label: 'Taper per foot', unit: 'in/ft' },
+  'over-pins': { min: 40, max: 70, step: 1, start: 60, label: 'Dovetail angle α', unit: '°' },
+};
+
+/** One readout under a drawing: a name and the engine's value. */
+interface Readout {
+  label: string;
+  value: string;
+}
+
+const f4 = (d: Dec) => d.toFixed(4);
+
+/**
+ * The interactive drawing of a lesson: an SVG of the set-up driven by a slider. The geometry comes
+ * from pure functions (shared/training/lesson-geometry); every number printed comes from the engine.
+ */
+@Component({
+  selector: 'sw-lesson-drawing',
+  imports: [MatSliderModule, DecimalPipe],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <figure class="lesson-drawing">
+      <svg [attr.viewBox]="viewBox" role="img" [attr.aria-label]="ariaLabel()" preserveAspectRatio="xMidYMid meet">
+        @switch (kind()) {
+          @case ('taper-triangle') {
+            @let t = taper();
+            <line x1="10" [attr.y1]="t.cutY" x2="470" [attr.y2]="t.cutY" class="cut-line" />
+            <polygon [attr.points]="points(t.block)" class="block" />
+            <polygon [attr.points]="points(t.part)" class="part" />
+            <polygon [attr.points]="points(t.removed)" class="removed" />
+            <path [attr.d]="t.arc" class="arc" />
+            <text [attr.x]="t.corner.angle.x + 46" [attr.y]="t.corner.angle.y - 6" class="tag">α</text>
+            <text [attr.x]="(t.corner.angle.x + t.corner.right.x) / 2 - 8" [attr.y]="(t.corner.angle.y + t.corner.right.y) / 2 - 10" class="tag">L</text>
+            <text [attr.x]="t.corner.right.x + 8" [attr.y]="(t.corner.right.y + t.corner.far.y) / 2 + 4" class="tag">d</text>
+            <text x="14" [attr.y]="t.cutY - 6" class="note">level cut</text>
+          }
+          @case ('sine-bar') {
+            @let s = sine();
+            <line x1="20" y1="270" x2="460" y2="270" class="plate" />
+            <polygon [attr.points]="points(s.stack)" class="stack" />
+            <polygon [attr.points]="points(s.triangle)" class="removed" />
+            <polygon [attr.points]="points(s.bar)" class="part" />
+            <circle [attr.cx]="s.rolls[0].x" [attr.cy]="s.rolls[0].y" [attr.r]="s.rollRadius" class="roll" />
+            <circle [attr.cx]="s.rolls[1].x" [attr.cy]="s.rolls[1].y" [attr.r]="s.rollRadius" class="roll" />
+            <path [attr.d]="s.arc" class="arc" />
+            <text [attr.x]="s.rolls[0].x + 56" [attr.y]="s.rolls[0].y - 4" class="tag">θ</text>
+            <text [attr.x]="s.rolls[1].x + 30" [attr.y]="270 - s.stackHeight / 2" class="tag">H</text>
+          }
+          @case ('gauge-stack') {
+            <line x1="20" y1="280" x2="460" y2="280" class="plate" />
+            @for (b of fewestBlocks(); track $index) {
+              <rect [attr.x]="b.x" [attr.y]="b.y" [attr.width]="b.width" [attr.height]="b.height" class="stack" />
+              <text [attr.x]="b.x + b.width / 2" [attr.y]="b.y + b.height / 2 + 5" class="block-label">{{ b.label }}</text>
+            }
+            @for (b of lastDigitBlocks(); track $index) {
+              <rect [attr.x]="b.x" [attr.y]="b.y" [attr.width]="b.width" [attr.height]="b.height" class="stack alt" />
+              <text [attr.x]="b.x + b.width / 2" [attr.y]="b.y + b.height / 2 + 5" class="block-label">{{ b.label }}</text>
+            }
+            <text x="130" y="296" class="note" text-anchor="middle">fewest</text>
+            <text x="350" y="296" class="note" text-anchor="middle">last digit first</text>
+          }
+          @case ('lathe-taper') {
+            @let l = lathe();
+            <line [attr.x1]="l.axis[0].x" [attr.y1]="l.axis[0].y" [attr.x2]="l.axis[1].x" [attr.y2]="l.axis[1].y" class="axis" />
+            <polygon [attr.points]="points(l.outline)" class="part" />
+            <line [attr.x1]="l.outline[0].x" [attr.y1]="l.outline[0].y" [attr.x2]="l.outline[1].x" [attr.y2]="l.outline[0].y" class="cut-line" />
+            <path [attr.d]="l.arc" class="arc" />
+            <text [attr.x]="l.outline[1].x - 90" [attr.y]="l.outline[0].y - 8" class="tag">α/2</text>
+            <text x="240" y="290" class="note" text-anchor="middle">angle drawn 4× steeper</text>
+          }
+          @case ('over-pins') {
+            @let p = pins();
+            <line x1="10" y1="230" x2="470" y2="230" class="plate" />
+            <polygon [attr.points]="points(p.outline)" class="part" />
+            <circle [attr.cx]="p.pins[0].x" [attr.cy]="p.pins[0].y" [attr.r]="p.pinRadius" class="roll" />
+            <circle [attr.cx]="p.pins[1].x" [attr.cy]="p.pins[1].y" [attr.r]="p.pinRadius" class="roll" />
+            <line [attr.x1]="p.measure[0].x" [attr.y1]="p.measure[0].y" [attr.x2]="p.measure[1].x" [attr.y2]="p.measure[1].y" class="dim" />
+            <line [attr.x1]="p.width[0].x" [attr.y1]="p.width[0].y" [attr.x2]="p.width[1].x" [attr.y2]="p.width[1].y" class="dim alt" />
+            <path [attr.d]="p.arc" class="arc" />
+            <text x="240" [attr.y]="p.measure[0].y + 18" class="tag" text-anchor="middle">x over the pins</text>
+            <text x="240" [attr.y]="p.width[0].y + 16" class="note" text-anchor="middle">a</text>
+          }
+        }
+      </svg>
+      <figcaption>
+        <label class="slider-row">
+          <span>{{ slider().label }}: <strong>{{ value() | number: valueFormat() }}{{ slider().unit === '°' ? '°' : ' ' + slider().unit }}</strong></span>
+          <mat-slider [min]="slider().min" [max]="slider().max" [step]="slider().step" discrete>
+            <input matSliderThumb [value]="value()" (valueChange)="value.set($event)" [attr.aria-label]="slider().label">
+          </mat-slider>
+        </label>
+        <dl class="readouts">
+          @for (r of readouts(); track r.label) {
+            <div><dt>{{ r.label }}</dt><dd>{{ r.value }}</dd></div>
+          }
+        </dl>
+      </figcaption>
+    </figure>
+  `,
+  styles: `
+    :host { display: block; }
+    figure { margin: 0; display: grid; gap: 8px; }
+    svg { width: 100%; max-height: 340px; background: var(--mat-sys-surface-container-low); border-radius: 12px; }
+    .part { fill: var(--mat-sys-secondary-container); stroke: var(--mat-sys-on-surface); stroke-width: 1.5; }
+    .block, .stack { fill: var(--mat-sys-tertiary-container); stroke: var(--mat-sys-on-surface); stroke-width: 1; }
+    .stack.alt { fill: var(--mat-sys-surface-container-highest); }
+    .removed { fill: var(--mat-sys-error); fill-opacity: 0.25; stroke: var(--mat-sys-error); stroke-width: 1.5; }
+    .roll { fill: var(--mat-sys-surface); stroke: var(--mat-sys-on-surface); stroke-width: 1.5; }
+    .arc { fill: none; stroke: var(--mat-sys-primary); stroke-width: 2; }
+    .cut-line, .axis { stroke: var(--mat-sys-primary); stroke-dasharray: 6 4; stroke-width: 1.2; }
+    .plate { stroke: var(--mat-sys-on-surface); stroke-width: 2; }
+    .dim { stroke: var(--mat-sys-primary); stroke-width: 2; }
+    .dim.alt { stroke: var(--mat-sys-on-surface-variant); }
+    .tag { font: 600 16px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-primary); }
+    .note { font: 13px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-on-surface-variant); }
+    .block-label { font: 12px 'IBM Plex Sans', sans-serif; text-anchor: middle; fill: var(--mat-sys-on-surface); }
+    .slider-row { display: grid; gap: 4px; }
+    mat-slider { width: 100%; max-width: 520px; }
+    .readouts { display: flex; flex-wrap: wrap; gap: 8px 24px; margin: 0; }
+    .readouts div { display: grid; }
+    dt { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
+    dd { margin: 0; font: var(--mat-sys-title-medium); font-variant-numeric: tabular-nums; }
+  `,
+})
+export class LessonDrawing {
+  /** Which set-up to draw. */
+  readonly kind = input.required<LessonDrawingKind>();
+
+  protected readonly viewBox = `0 0 ${LESSON_VIEW.width} ${LESSON_VIEW.height}`;
+  /** The slider's settings for this drawing. */
+  protected readonly slider = computed(() => SLIDERS[this.kind()]);
+  /** The slider's value; back to the drawing's start value when the kind changes. */
+  protected readonly value = linkedSignal(() => SLIDERS[this.kind()].start);
+  /** Number format of the slider value. */
+  protected readonly valueFormat = computed(() => (this.kind() === 'gauge-stack' || this.kind() === 'lathe-taper' ? '1.4-4' : '1.0-1'));
+
+  protected readonly taper = computed(() => taperTriangle(this.value()));
+  protected readonly sine = computed(() => sineBarScene(this.value()));
+  protected readonly lathe = computed(() => latheTaperScene(this.value()));
+  protected readonly pins = computed(() => dovetailScene(this.value()));
+  private readonly stack = computed(() => {
+    const r = calculateGaugeStack({ target: new Dec(this.value()).toFixed(4), unit: 'in', set: 'inch-81' });
+    return r.ok ? r.value : null;
+  });
+  protected readonly fewestBlocks = computed(() => stackBlocks(this.stack()?.blocks ?? [], 40, 70, 120));
+  protected readonly lastDigitBlocks = computed(() => stackBlocks(this.stack()?.lastDigit?.blocks ?? [], 40, 290, 120));
+
+  /** What the drawing shows, for screen readers. */
+  protected readonly ariaLabel = computed(() => `${this.slider().label} ${this.value()} ${this.slider().unit}: ${this.readouts().map((r) => `${r.label} ${r.value}`).join(', ')}`);
+
+  /** The engine's numbers for the slider value. */
+  protected readonly readouts = computed<Readout[]>(() => {
+    const v = new Dec(this.value());
+    switch (this.kind()) {
+      case 'taper-triangle': {
+        const r = calculateTaper({ unit: 'in', thickness: '1.000', taperLength: '1.500', angle: v.toString() });
+        if (!r.ok) return [{ label: 'Note', value: r.error }];
+        return [
+          { label: 'sin α', value: f4(sinDeg(v)) },
+          { label: 'cos α', value: f4(cosDeg(v)) },
+          { label: 'tan α', value: f4(tanDeg(v)) },
+          { label: 'For L = 1.500 in: d = L · tan α', value: `${r.value.removedAtEnd} in` },
+          { label: 'Face length F = L / cos α', value: `${r.value.faceLength} in` },
+          { label: 'Depth to stop h = L · sin α', value: `${r.value.depthToStop} in` },
+        ];
+      }
+      case 'sine-bar': {
+        if (v.isZero()) return [{ label: 'Stack H on a 5 in bar', value: '0.0000 in (bar flat on the plate)' }];
+        const r = calculateSineBar({ unit: 'in', barLength: '5', angle: v.toString() });
+        if (!r.ok) return [{ label: 'Note', value: r.error }];
+        return [
+          { label: 'sin θ', value: f4(sinDeg(v)) },
+          { label: 'Stack H = 5 · sin θ', value: `${r.value.stackHeight} in` },
+          { label: 'Angle error per 0.0001 in of stack', value: `${r.value.sensitivityArcSec}″` },
+        ];
+      }
+      case 'gauge-stack': {
+        const s = this.stack();
+        if (!s) return [{ label: 'Note', value: 'That length cannot be built from the 81-piece set.' }];
+        return [
+          { label: 'Fewest blocks', value: `${s.count}: ${s.blocks.join(' + ')}` },
+          { label: 'Last digit first', value: s.lastDigit ? `${s.lastDigit.count}: ${s.lastDigit.blocks.join(' + ')}` : 'gets stuck' },
+        ];
+      }
+      case 'lathe-taper': {
+        const r = calculateLatheTaper({ unit: 'in', taperPerFoot: v.toString() });
+        if (!r.ok) return [{ label: 'Note', value: r.error }];
+        return [
+          { label: 'Half angle (compound)', value: `${r.value.halfAngleDeg}° (${r.value.halfAngleDms})` },
+          { label: 'Included angle', value: `${r.value.includedAngleDeg}°` },
+          { label: 'Ratio', value: r.value.ratio },
+        ];
+      }
+      case 'over-pins': {
+        const r = calculateOverPins({ kind: 'dovetail', side: 'male', unit: 'in', angle: v.toString(), rollDiameter: '0.500', width: '2.000' });
+        if (!r.ok) return [{ label: 'Note', value: r.error }];
+        return [
+          { label: 'Roll constant 1 + cot(α/2)', value: r.value.steps[0]?.value ?? '' },
+          { label: 'Over 0.500 in pins, a = 2.000 in', value: `${r.value.values['measurement']} in` },
+        ];
+      }
+    }
+  });
+
+  /** Points as SVG text. */
+  protected points = pointsAttr;
+}

@@ -1,0 +1,53 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+
+import type { AssignmentCreateBody, AssignmentDto, AttemptResultDto, ProblemDto, ScoreTableDto } from '../../../shared/api/training';
+import { quietErrors } from '../core/api-error';
+
+/** One apprentice's copy of an assignment: the assignment and their problems. */
+export interface AssignmentWorkView {
+  assignment: AssignmentDto;
+  problems: ProblemDto[];
+}
+
+/** Training over HTTP: assignments, the caller's own work, and the lead's score table. */
+@Injectable({ providedIn: 'root' })
+export class TrainingApi {
+  private readonly http = inject(HttpClient);
+
+  /** Leads and admins: the team's assignments; anyone else: the ones given to them. */
+  assignments(): Observable<AssignmentDto[]> {
+    return this.http.get<{ assignments: AssignmentDto[] }>('/api/training/assignments').pipe(map((r) => r.assignments));
+  }
+
+  /** Creates an assignment (leads and admins); field errors come back as a 400 for the form. */
+  create(body: AssignmentCreateBody): Observable<AssignmentDto & { mailSent: number }> {
+    return this.http.post<AssignmentDto & { mailSent: number }>('/api/training/assignments', body, { context: quietErrors() });
+  }
+
+  /** Deletes an assignment and its work. */
+  remove(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/training/assignments/${id}`);
+  }
+
+  /** The caller's own problems of an assignment. */
+  work(id: number): Observable<AssignmentWorkView> {
+    return this.http.get<AssignmentWorkView>(`/api/training/assignments/${id}/work`);
+  }
+
+  /** Reveals the next hint of one problem. */
+  hint(id: number, position: number): Observable<ProblemDto> {
+    return this.http.post<ProblemDto>(`/api/training/assignments/${id}/problems/${position}/hints`, {});
+  }
+
+  /** Sends an answer; the server grades it. An unreadable answer is a 400 for the card to show. */
+  attempt(id: number, position: number, answer: string): Observable<AttemptResultDto> {
+    return this.http.post<AttemptResultDto>(`/api/training/assignments/${id}/problems/${position}/attempts`, { answer }, { context: quietErrors() });
+  }
+
+  /** The score table (leads and admins). */
+  scores(): Observable<ScoreTableDto> {
+    return this.http.get<ScoreTableDto>('/api/training/scores');
+  }
+}

@@ -1,0 +1,153 @@
+import { BatchPart, BatchRun } from '../../server/models';
+import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
+
+jest.setTimeout(30_000);
+
+let t: TestApp;
+let m: Members;
+let foreign: Members;
+const c = {} as Record<'admin' | 'lead' | 'machinist' | 'apprentice' | 'other' | 'foreign', Client>;
+
+const taper = { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250' };
+// Invented tolerance bands for the tests.
+const checks = [
+  { key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', plus: '0.0010', minus: '0.0010' },
+  { key: 'face-length', label: 'Face length', unit: 'in', nominal: '1.2608', plus: '0.005', minus: '0.005' },
+];
+let released: number;
+
+function post(who: Client, path: string, body: object = {}) {
+  return who.agent.post(path).set('X-CSRF-Token', who.token).send(body);
+}
+async function releasedSetup(body: object = {}): Promise<number> {
+  const s = await post(c.machinist, '/api/setups', { name: 'Batch wedge', kind: 'taper', inputs: taper, checks, ...body }).expect(201);
+  await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+  return s.body.id as number;
+}
+const part = (end: string, face = '1.2610', extra: object = {}) => ({ touchOff: '0.0000', droAtStop: '-0.1632', values: { 'end-thickness': end, 'face-length': face }, ...extra });
+
+beforeAll(async () => {
+  t = openApp();
+  m = await makeTeam('batches');
+  foreign = await makeTeam('batches-foreign');
+  for (const role of ['admin', 'lead', 'machinist', 'apprentice', 'other'] as const) c[role] = await client(t.app, m[role]);
+  c.foreign = await client(t.app, foreign.lead);
+  released = await releasedSetup();
+});
+afterAll(() => t.close());
+
+describe('/api/batches', () => {
+  describe('starting a run', () => {
+    it('should start from a released set-up and copy its checks and version', async () => {
+      const res = await post(c.machinist, '/api/batches', { setupId: released, partCount: 8 }).expect(201);
+      expect(res.body).toMatchObject({ setupId: released, setupVersion: 2, setupName: 'Batch wedge', partCount: 8, status: 'open', checks, startedByName: m.machinist.name, parts: [], summary: { entered: 0, passed: 0, failed: 0 } });
+      expect(res.headers['location']).toBe(`/api/batches/${res.body.id}`);
+    });
+
+    it('should refuse drafts, set-ups without checks, apprentices and other teams', async () => {
+      const draft = await post(c.machinist, '/api/setups', { name: 'Draft wedge', kind: 'taper', inputs: taper, checks }).expect(201);
+      const r1 = await post(c.machinist, '/api/batches', { setupId: draft.body.id, partCount: 3 }).expect(409);
+      expect(r1.body.error).toMatch(/released/);
+      const bare = await releasedSetup({ checks: [] });
+      await post(c.machinist, '/api/batches', { setupId: bare, partCount: 3 }).expect(409);
+      await post(c.apprentice, '/api/batches', { setupId: released, partCount: 3 }).expect(403);
+      const r2 = await post(c.foreign, '/api/batches', { setupId: released, partCount: 3 }).expect(400);
+      expect(r2.body.fields.setupId).toBeDefined();
+      const r3 = await post(c.machinist, '/api/batches', { setupId: released, partCount: 0 }).expect(400);
+      expect(r3.body.fields.partCount).toBeDefined();
+    });
+  });
+
+  describe('entering parts', () => {
+    it('should record each part with pass/fail and give hand-checked statistics', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 4 }).expect(201)).body;
+      const entered = [];
+      for (const [who, end] of [[c.machinist, '0.5856'], [c.other, '0.5850'], [c.machinist, '0.5862'], [c.lead, '0.5841']] as const) {
+        entered.push((await post(who, `/api/batches/${run.id}/parts`, part(end)).expect(201)).body);
+      }
+      expect(entered.map((e) => [e.part.partNo, e.part.pass, e.part.outOfBand])).toEqual([[1, true, []], [2, true, []], [3, true, []], [4, false, ['end-thickness']]]);
+      expect(entered[1].part).toMatchObject({ operatorName: m.other.name, touchOff: '0.0000', droAtStop: '-0.1632' });
+      const res = await c.apprentice.agent.get(`/api/batches/${run.id}`).expect(200);
+      // Hand computation (derived): 0.5856, 0.5850, 0.5862, 0.5841 → sum 2.3409, mean 0.585225 → 0.58523;
+      // range 0.5862 − 0.5841 = 0.0021; largest |x − 0.5856| = 0.0015; s = √(2.4075e-6 / 3) = 0.000896 → 0.00090.
+      expect(res.body.stats[0]).toMatchObject({ key: 'end-thickness', n: 4, mean: '0.58523', range: '0.0021', spreadFromFirst: '0.0015', stdDev: '0.00090', passCount: 3, failCount: 1, low: '0.5844', high: '0.5864' });
+      expect(res.body.stats[1]).toMatchObject({ key: 'face-length', n: 4, mean: '1.26100', range: '0.0000', spreadFromFirst: '0.0000', passCount: 4 });
+      expect(res.body.summary).toEqual({ entered: 4, passed: 3, failed: 1 });
+    });
+
+    it('should name every bad reading with 400 and store nothing', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 3 }).expect(201)).body;
+      const res = await post(c.machinist, `/api/batches/${run.id}/parts`, { touchOff: 'zero', values: { 'end-thickness': 'abc', colour: '1' } }).expect(400);
+      expect(Object.keys(res.body.fields).sort()).toEqual(['touchOff']);
+      const res2 = await post(c.machinist, `/api/batches/${run.id}/parts`, { values: { 'end-thickness': 'abc', colour: '1' } }).expect(400);
+      expect(Object.keys(res2.body.fields).sort()).toEqual(['values.colour', 'values.end-thickness', 'values.face-length']);
+      expect(await BatchPart.count({ where: { runId: run.id } })).toBe(0);
+      expect((await BatchRun.findByPk(run.id))?.version).toBe(1);
+    });
+
+    it('should refuse a part beyond the run and a part number already entered', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 2 }).expect(201)).body;
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854', '1.2608', { partNo: 2 })).expect(201);
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854', '1.2608', { partNo: 2 })).expect(409);
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854', '1.2608', { partNo: 3 })).expect(409);
+      const fix = await c.machinist.agent.put(`/api/batches/${run.id}/parts/2`).set('X-CSRF-Token', c.machinist.token).send(part('0.5899')).expect(200);
+      expect(fix.body.part).toMatchObject({ partNo: 2, pass: false, values: { 'end-thickness': '0.5899' } });
+      await c.machinist.agent.put(`/api/batches/${run.id}/parts/1`).set('X-CSRF-Token', c.machinist.token).send(part('0.5854')).expect(404);
+      expect(await BatchPart.count({ where: { runId: run.id } })).toBe(1);
+    });
+
+    it('should number parts entered at the same moment without gaps or duplicates (one transaction each)', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 6 }).expect(201)).body;
+      const results = await Promise.all(Array.from({ length: 6 }, (_, i) => post(i % 2 ? c.other : c.machinist, `/api/batches/${run.id}/parts`, part('0.5854'))));
+      expect(results.map((r) => r.status)).toEqual([201, 201, 201, 201, 201, 201]);
+      expect(results.map((r) => r.body.part.partNo).sort((a: number, b: number) => a - b)).toEqual([1, 2, 3, 4, 5, 6]);
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854')).expect(409);
+      expect(await BatchPart.count({ where: { runId: run.id } })).toBe(6);
+      expect((await BatchRun.findByPk(run.id))?.version).toBe(7);
+    });
+  });
+
+  describe('closing a run', () => {
+    it('should let the starter, a lead or an admin close it, and keep it read-only after', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 3 }).expect(201)).body;
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854')).expect(201);
+      await post(c.other, `/api/batches/${run.id}/close`).expect(403);
+      await post(c.apprentice, `/api/batches/${run.id}/close`).expect(403);
+      await post(c.foreign, `/api/batches/${run.id}/close`).expect(404);
+      const closed = await post(c.machinist, `/api/batches/${run.id}/close`).expect(200);
+      expect(closed.body).toMatchObject({ status: 'closed', closedByName: m.machinist.name });
+      expect(closed.body.closedAt).toBeTruthy();
+      const more = await post(c.lead, `/api/batches/${run.id}/parts`, part('0.5854')).expect(409);
+      expect(more.body.error).toMatch(/closed/);
+      await c.lead.agent.put(`/api/batches/${run.id}/parts/1`).set('X-CSRF-Token', c.lead.token).send(part('0.5800')).expect(409);
+      await post(c.lead, `/api/batches/${run.id}/close`).expect(409);
+      expect((await BatchPart.findOne({ where: { runId: run.id, partNo: 1 } }))?.readings['end-thickness']).toBe('0.5854');
+    });
+  });
+
+  describe('listing and CSV export', () => {
+    it('should list the team\'s runs with filters and hide other teams\' runs', async () => {
+      const list = await c.machinist.agent.get(`/api/batches?setupId=${released}&status=open`).expect(200);
+      expect(list.body.batches.length).toBeGreaterThan(0);
+      expect(list.body.batches.every((b: { setupId: number; status: string }) => b.setupId === released && b.status === 'open')).toBe(true);
+      await c.machinist.agent.get('/api/batches?status=half').expect(400);
+      const theirs = await c.foreign.agent.get('/api/batches').expect(200);
+      expect(theirs.body.batches).toEqual([]);
+      await c.foreign.agent.get(`/api/batches/${list.body.batches[0].id}`).expect(404);
+    });
+
+    it('should export a run as CSV, one row per part', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 2 }).expect(201)).body;
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5856', '1.2610', { note: '=SUM(A1), burr on edge' })).expect(201);
+      await post(c.other, `/api/batches/${run.id}/parts`, part('0.5870')).expect(201);
+      const res = await c.machinist.agent.get(`/api/batches/${run.id}/export.csv`).expect(200);
+      expect(res.headers['content-type']).toBe('text/csv; charset=utf-8');
+      expect(res.headers['content-disposition']).toMatch(/attachment; filename="?batch-\d+\.csv"?/);
+      const lines = res.text.trimEnd().split('\r\n');
+      expect(lines).toHaveLength(3);
+      expect(lines[0]).toBe('part,measured_at_utc,operator,touch_off,dro_at_stop,End thickness (in) [0.5854 +0.0010/-0.0010],Face length (in) [1.2608 +0.005/-0.005],pass,out_of_band,note');
+      expect(lines[1]).toMatch(new RegExp(`^1,\\d{4}-\\d\\d-\\d\\dT[^,]+,${m.machinist.name},0\\.0000,-0\\.1632,0\\.5856,1\\.2610,pass,,"'=SUM\\(A1\\), burr on edge"$`));
+      expect(lines[2]).toMatch(new RegExp(`^2,[^,]+,${m.other.name},0\\.0000,-0\\.1632,0\\.5870,1\\.2610,fail,end-thickness,$`));
+    });
+  });
+});

@@ -1,0 +1,144 @@
+import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
+
+jest.setTimeout(30_000);
+
+let t: TestApp;
+let m: Members;
+let foreign: Members;
+const c = {} as Record<'admin' | 'lead' | 'machinist' | 'apprentice' | 'foreign', Client>;
+
+beforeAll(async () => {
+  t = openApp();
+  m = await makeTeam('inventory');
+  foreign = await makeTeam('inventory-foreign');
+  for (const role of ['admin', 'lead', 'machinist', 'apprentice'] as const) c[role] = await client(t.app, m[role]);
+  c.foreign = await client(t.app, foreign.admin);
+});
+afterAll(() => t.close());
+
+interface Block { id: number; size: string; label: string; count: number; missing: number; damaged: number; available: number }
+
+function send(who: Client, method: 'post' | 'put' | 'patch', path: string, body: object) {
+  return who.agent[method](path).set('X-CSRF-Token', who.token).send(body);
+}
+function blockOf(set: { blocks: Block[] }, size: string): Block {
+  const found = set.blocks.find((b) => b.size === size);
+  if (!found) throw new Error(`no block ${size}`);
+  return found;
+}
+
+describe('/api/inventories', () => {
+  describe('gauge-block sets', () => {
+    let set: { id: number; version: number; blocks: Block[] };
+
+    beforeAll(async () => {
+      const res = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Inch 81 in the cabinet', standardSet: 'inch-81', grade: '0' }).expect(201);
+      set = res.body;
+    });
+
+    it('should start a set from the standard 81-piece composition', () => {
+      // REFERENCE.md §3.2: 9 tenths + 49 thousandths + 19 fiftieths + 4 inch blocks = 81.
+      expect(set).toMatchObject({ type: 'gauge-blocks', unit: 'in', standardSet: 'inch-81', grade: '0', totals: { sizes: 81, blocks: 81, missing: 0, damaged: 0, available: 81 } });
+      expect(blockOf(set, '0.1001').label).toBe('0.1001 in');
+      expect(blockOf(set, '0.2').label).toBe('0.200 in');
+    });
+
+    it('should let admins and leads manage sets; machinists and apprentices get 403', async () => {
+      await send(c.machinist, 'post', '/api/inventories/gauge-sets', { name: 'Mine', standardSet: 'inch-81' }).expect(403);
+      await send(c.apprentice, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${blockOf(set, '0.1').id}`, { missing: 1 }).expect(403);
+      await send(c.lead, 'post', '/api/inventories/gauge-sets', { name: 'Metric 112', standardSet: 'metric-112' }).expect(201);
+      const list = await c.machinist.agent.get('/api/inventories').expect(200);
+      expect(list.body.gaugeSets.map((s: { name: string }) => s.name)).toEqual(['Inch 81 in the cabinet', 'Metric 112']);
+      expect(list.body.gaugeSets[0].blocks).toBeUndefined();
+    });
+
+    it('should refuse unknown compositions, duplicate names and impossible counts with the field named', async () => {
+      const unknown = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Odd', standardSet: 'inch-999' }).expect(400);
+      expect(unknown.body.fields.standardSet).toMatch(/inch-81/);
+      await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Inch 81 in the cabinet', standardSet: 'inch-81' }).expect(409);
+      const tooMany = await send(c.admin, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${blockOf(set, '0.1').id}`, { missing: 1, damaged: 1 }).expect(400);
+      expect(tooMany.body.fields.missing).toMatch(/cannot exceed/);
+      const custom = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Loose', blocks: [{ size: '0.5', count: 1 }] }).expect(400);
+      expect(custom.body.fields.unit).toBeDefined();
+    });
+
+    it('should build the fewest-block stack only from blocks that are in the box', async () => {
+      // 0.2000 in is one block of the 81 set (REFERENCE.md §3.5, G15).
+      const whole = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=0.2000`).expect(200);
+      expect(whole.body).toMatchObject({ count: 1, total: '0.2000', inventory: { id: set.id } });
+      const marked = await send(c.lead, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${blockOf(set, '0.2').id}`, { missing: 1, note: 'lost 2026-11' }).expect(200);
+      expect(blockOf(marked.body, '0.2')).toMatchObject({ missing: 1, available: 0 });
+      expect(marked.body.totals).toMatchObject({ missing: 1, available: 80 });
+      // Without the .200 block: .150 + .050 (derived; no single block is left for it).
+      const without = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=0.2000`).expect(200);
+      expect(without.body).toMatchObject({ count: 2, total: '0.2000', excluded: [{ size: '0.2', missing: 1, damaged: 0 }] });
+      expect(without.body.blocks).not.toContain('0.200');
+    });
+
+    it('should find a longer stack when a block of the textbook answer is damaged', async () => {
+      // 2.8260 in: .126 + .700 + 2.000 = 3 blocks (REFERENCE.md §3.5, G7, derived).
+      const before = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=2.8260`).expect(200);
+      expect(before.body.count).toBe(3);
+      await send(c.admin, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${blockOf(set, '0.126').id}`, { damaged: 1 }).expect(200);
+      // Without .126 no three blocks end in 6 thousandths and reach .826 (.106/.116/.136/.146 need
+      // .720/.710/.690/.680, none a block); four do: .106 + .120 + .600 + 2.000 (derived).
+      const after = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=2.8260`).expect(200);
+      expect(after.body).toMatchObject({ count: 4, total: '2.8260' });
+      expect(after.body.blocks).not.toContain('0.126');
+    });
+
+    it('should put the set\'s wear blocks on both ends unless asked not to', async () => {
+      const res = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'With wear blocks', standardSet: 'inch-81', wearBlockSize: '0.050', wearBlockCount: 2 }).expect(201);
+      // 1.0000 − 2 · 0.050 = 0.900: one block between the wear blocks (derived).
+      const wear = await c.machinist.agent.get(`/api/inventories/gauge-sets/${res.body.id}/stack?target=1.0000`).expect(200);
+      expect(wear.body).toMatchObject({ count: 3, total: '1.0000', wearBlock: '0.050' });
+      expect([wear.body.blocks[0], wear.body.blocks[2]]).toEqual(['0.050', '0.050']);
+      const plain = await c.machinist.agent.get(`/api/inventories/gauge-sets/${res.body.id}/stack?target=1.0000&wear=no`).expect(200);
+      expect(plain.body).toMatchObject({ count: 1, blocks: ['1.000'] });
+    });
+
+    it('should answer 400 for a bad target and 422 for one the box cannot make', async () => {
+      const bad = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=abc`).expect(400);
+      expect(bad.body.fields.target).toBeDefined();
+      await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack`).expect(400);
+      const far = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=0.0001`).expect(422);
+      expect(far.body.error).toBeTruthy();
+    });
+
+    it('should update the set with optimistic concurrency', async () => {
+      const fresh = (await c.admin.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(200)).body;
+      const ok = await send(c.admin, 'put', `/api/inventories/gauge-sets/${set.id}`, { name: fresh.name, grade: '1', version: fresh.version }).expect(200);
+      expect(ok.body).toMatchObject({ grade: '1', version: fresh.version + 1 });
+      const stale = await send(c.lead, 'put', `/api/inventories/gauge-sets/${set.id}`, { name: 'Renamed', version: fresh.version }).expect(409);
+      expect(stale.body.version).toBe(fresh.version + 1);
+    });
+
+    it('should hide other teams\' sets', async () => {
+      await c.foreign.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(404);
+      await c.foreign.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=1`).expect(404);
+      await send(c.foreign, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${blockOf(set, '1').id}`, { missing: 1 }).expect(404);
+      expect((await c.foreign.agent.get('/api/inventories').expect(200)).body.gaugeSets).toEqual([]);
+    });
+  });
+
+  describe('angle-block sets', () => {
+    it('should make an angle from the blocks in the box and avoid blocks marked missing', async () => {
+      const res = await send(c.admin, 'post', '/api/inventories/angle-sets', { name: 'Angle blocks, 16', standardSet: 'angle-16' }).expect(201);
+      expect(res.body).toMatchObject({ unit: 'arcsec', totals: { blocks: 16 } });
+      const five = blockOf(res.body, '300');
+      expect(five.label).toBe('5′');
+      // 17°35' with the 16-piece set: REFERENCE.md §6 builds it with 5 blocks (15 + 3 − 1, 30' + 5');
+      // 15° + 3° − 30' + 5' does it with 4 (derived, the add/subtract rule of §6).
+      const full = await c.machinist.agent.get(`/api/inventories/angle-sets/${res.body.id}/combination?angle=${encodeURIComponent("17°35'")}`).expect(200);
+      expect(full.body).toMatchObject({ count: 4, exact: true });
+      expect(full.body.blocks.map((b: { angle: string }) => b.angle)).toContain(`0°05'00"`);
+      await send(c.lead, 'patch', `/api/inventories/angle-sets/${res.body.id}/blocks/${five.id}`, { missing: 1 }).expect(200);
+      const without = await c.machinist.agent.get(`/api/inventories/angle-sets/${res.body.id}/combination?angle=${encodeURIComponent("17°35'")}`).expect(200);
+      // Without 5': the minutes blocks (±30, ±20, ±3, ±1) make neither 35' nor −25', and the seconds
+      // blocks total only 59", so 17°35' can no longer be made exactly (derived).
+      expect(without.body.blocks.map((b: { angle: string }) => b.angle)).not.toContain(`0°05'00"`);
+      expect(without.body.exact).toBe(false);
+      expect(without.body.excluded).toEqual([{ size: '300', label: '5′', missing: 1, damaged: 0 }]);
+    });
+  });
+});

@@ -1,0 +1,36 @@
+import demo from '../../fixtures/demo.json';
+import { BatchRun, InventorySet, InventoryBlock, BatchPart, Team, User } from '../../server/models';
+import { seedLibrary, type DemoLibrary } from '../../server/seed/library';
+import { openApp, type TestApp } from '../support/api';
+
+jest.setTimeout(30_000);
+
+let t: TestApp;
+beforeAll(() => {
+  t = openApp();
+});
+afterAll(() => t.close());
+
+describe('demo library seed', () => {
+  it('should hold the demo shop\'s 81-piece set with blocks marked, an angle set and two wedge runs', async () => {
+    const team = await Team.findOne({ where: { name: demo.team } });
+    expect(team).not.toBeNull();
+    const gauge = await InventorySet.findOne({ where: { teamId: team!.id, type: 'gauge-blocks' }, include: [{ model: InventoryBlock, as: 'blocks' }] });
+    const blocks = gauge?.blocks ?? [];
+    expect(blocks.reduce((a, b) => a + b.count, 0)).toBe(81);
+    expect(blocks.filter((b) => b.missing > 0).map((b) => b.size)).toEqual(['0.1007']);
+    expect(blocks.filter((b) => b.damaged > 0).map((b) => b.size)).toEqual(['0.137']);
+    expect(await InventorySet.count({ where: { teamId: team!.id, type: 'angle-blocks' } })).toBe(1);
+    const runs = await BatchRun.findAll({ where: { teamId: team!.id }, include: [{ model: BatchPart, as: 'parts' }], order: [['id', 'ASC']] });
+    expect(runs.map((r) => [r.status, r.partCount, r.parts?.length])).toEqual([['closed', 8, 8], ['open', 8, 3]]);
+    expect(runs[0]?.parts?.every((p) => p.pass)).toBe(true);
+    expect(runs[1]?.parts?.filter((p) => !p.pass).map((p) => p.partNo)).toEqual([3]);
+  });
+
+  it('should add nothing when run again', async () => {
+    const team = await Team.findOne({ where: { name: demo.team } });
+    const members = await User.findAll({ where: { teamId: team!.id } });
+    const added = await seedLibrary(team!.id, demo.library as DemoLibrary, new Map(members.map((u) => [u.email, u])));
+    expect(added).toBe(0);
+  });
+});

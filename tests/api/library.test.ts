@@ -1,0 +1,232 @@
+import { BatchRun, Setup, SetupRevision } from '../../server/models';
+import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
+import { pdfText } from '../support/pdf-text';
+
+jest.setTimeout(30_000);
+
+let t: TestApp;
+let m: Members;
+let foreign: Members;
+const c = {} as Record<'admin' | 'lead' | 'machinist' | 'apprentice' | 'other' | 'foreign', Client>;
+
+const taper = { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250', depthPerPass: '0.040' };
+const checks = [{ key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', plus: '0.0010', minus: '0.0010' }];
+
+beforeAll(async () => {
+  t = openApp();
+  m = await makeTeam('library');
+  foreign = await makeTeam('library-foreign');
+  for (const role of ['admin', 'lead', 'machinist', 'apprentice', 'other'] as const) c[role] = await client(t.app, m[role]);
+  c.foreign = await client(t.app, foreign.lead);
+});
+afterAll(() => t.close());
+
+function create(who: Client, body: Record<string, unknown>) {
+  return who.agent.post('/api/setups').set('X-CSRF-Token', who.token).send({ kind: 'taper', inputs: taper, ...body });
+}
+function post(who: Client, path: string, body: object = {}) {
+  return who.agent.post(path).set('X-CSRF-Token', who.token).send(body);
+}
+function put(who: Client, id: number, body: Record<string, unknown>) {
+  return who.agent.put(`/api/setups/${id}`).set('X-CSRF-Token', who.token).send({ kind: 'taper', inputs: taper, ...body });
+}
+
+describe('set-up library', () => {
+  describe('GET /api/setups paging, filters, sort and search', () => {
+    let team: Members;
+    const w = {} as Record<'lead' | 'machinist' | 'other' | 'apprentice', Client>;
+    beforeAll(async () => {
+      team = await makeTeam('library-list');
+      for (const role of ['lead', 'machinist', 'other', 'apprentice'] as const) w[role] = await client(t.app, team[role]);
+      const made: Array<[Client, Record<string, unknown>, boolean]> = [
+        [w.machinist, { name: 'Alpha wedge', job: 'J-100', notes: 'first of the wedges' }, true],
+        [w.machinist, { name: 'Bravo wedge', job: 'J-100' }, false],
+        [w.machinist, { name: 'Charlie sine', kind: 'sine-bar', inputs: { unit: 'in', barLength: '5', angle: '14.5' }, job: 'J-200' }, true],
+        [w.other, { name: 'Delta dovetail 50%_off', kind: 'pins-rolls', inputs: { unit: 'in' }, job: 'J-300' }, true],
+        [w.other, { name: 'Echo draft of other', job: 'J-300' }, false],
+        [w.apprentice, { name: 'Foxtrot practice' }, false],
+        [w.lead, { name: 'Golf lathe', kind: 'lathe-taper', inputs: { unit: 'in', taperPerFoot: '0.6' }, job: 'J-400' }, true],
+      ];
+      for (const [who, body, release] of made) {
+        const res = await create(who, body).expect(201);
+        if (release) await post(w.lead, `/api/setups/${res.body.id}/release`).expect(200);
+      }
+    });
+
+    it('should keep {setups} and add total, page and pageSize', async () => {
+      const res = await w.lead.agent.get('/api/setups?pageSize=3&sort=name&dir=asc').expect(200);
+      expect(res.body).toMatchObject({ total: 7, page: 1, pageSize: 3 });
+      expect(res.body.setups.map((s: { name: string }) => s.name)).toEqual(['Alpha wedge', 'Bravo wedge', 'Charlie sine']);
+      const last = await w.lead.agent.get('/api/setups?pageSize=3&page=3&sort=name&dir=asc').expect(200);
+      expect(last.body.setups.map((s: { name: string }) => s.name)).toEqual(['Golf lathe']);
+      const beyond = await w.lead.agent.get('/api/setups?pageSize=3&page=9').expect(200);
+      expect(beyond.body).toMatchObject({ total: 7, setups: [] });
+    });
+
+    it('should count only what the caller may see (released plus own drafts)', async () => {
+      const res = await w.machinist.agent.get('/api/setups?sort=name').expect(200);
+      expect(res.body.setups.map((s: { name: string }) => s.name)).toEqual(['Alpha wedge', 'Bravo wedge', 'Charlie sine', 'Delta dovetail 50%_off', 'Golf lathe']);
+      expect(res.body.total).toBe(5);
+    });
+
+    it('should filter by kind, status, owner and job, and sort descending', async () => {
+      const kind = await w.lead.agent.get('/api/setups?kind=taper&sort=name&dir=desc').expect(200);
+      expect(kind.body.setups.map((s: { name: string }) => s.name)).toEqual(['Foxtrot practice', 'Echo draft of other', 'Bravo wedge', 'Alpha wedge']);
+      const drafts = await w.lead.agent.get('/api/setups?status=draft').expect(200);
+      expect(drafts.body.total).toBe(3);
+      const owner = await w.lead.agent.get(`/api/setups?ownerId=${team.other.id}`).expect(200);
+      expect(owner.body.total).toBe(2);
+      const job = await w.lead.agent.get('/api/setups?job=J-100').expect(200);
+      expect(job.body.total).toBe(2);
+      const combined = await w.lead.agent.get('/api/setups?job=J-100&status=released').expect(200);
+      expect(combined.body.setups.map((s: { name: string }) => s.name)).toEqual(['Alpha wedge']);
+    });
+
+    it('should sort by owner name', async () => {
+      const res = await w.lead.agent.get('/api/setups?sort=owner&dir=asc&pageSize=100').expect(200);
+      const owners = res.body.setups.map((s: { ownerName: string }) => s.ownerName);
+      expect(owners).toEqual([...owners].sort());
+    });
+
+    it('should search name, job and notes, every word, with wildcards taken literally', async () => {
+      expect((await w.lead.agent.get('/api/setups?q=wedge').expect(200)).body.total).toBe(2);
+      expect((await w.lead.agent.get('/api/setups?q=first%20wedges').expect(200)).body.setups.map((s: { name: string }) => s.name)).toEqual(['Alpha wedge']);
+      expect((await w.lead.agent.get('/api/setups?q=J-300').expect(200)).body.total).toBe(2);
+      expect((await w.lead.agent.get('/api/setups?q=50%25_').expect(200)).body.total).toBe(1);
+      expect((await w.lead.agent.get('/api/setups?q=%25').expect(200)).body.total).toBe(1);
+    });
+
+    it('should answer 400 naming each bad query parameter', async () => {
+      const res = await w.lead.agent.get('/api/setups?page=0&pageSize=1000&sort=colour&kind=lathe-spindle&status=gone').expect(400);
+      expect(Object.keys(res.body.fields).sort()).toEqual(['kind', 'page', 'pageSize', 'sort', 'status']);
+    });
+  });
+
+  describe('release and archive', () => {
+    it('should let only a lead or an admin release and archive (others 403, other teams 404)', async () => {
+      const s = await create(c.machinist, { name: 'To release' }).expect(201);
+      await post(c.machinist, `/api/setups/${s.body.id}/release`).expect(403);
+      await post(c.apprentice, `/api/setups/${s.body.id}/release`).expect(404); // a draft of another: not visible
+      await post(c.foreign, `/api/setups/${s.body.id}/release`).expect(404);
+      const released = await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      expect(released.body).toMatchObject({ status: 'released', version: 2, releasedByName: m.lead.name });
+      expect(Date.parse(released.body.releasedAt)).toBeGreaterThan(Date.now() - 60_000);
+      await post(c.apprentice, `/api/setups/${s.body.id}/archive`).expect(403);
+      await post(c.other, `/api/setups/${s.body.id}/archive`).expect(403);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(409);
+      const archived = await post(c.admin, `/api/setups/${s.body.id}/archive`).expect(200);
+      expect(archived.body).toMatchObject({ status: 'archived', version: 3 });
+      const refused = await put(c.machinist, s.body.id, { name: 'Edit archived', version: 3 }).expect(409);
+      expect(refused.body.error).toMatch(/archived/);
+      expect((await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200)).body.status).toBe('released');
+    });
+
+    it('should keep an apprentice\'s set-up a draft until a lead releases it', async () => {
+      const s = await create(c.apprentice, { name: 'Apprentice bevel' }).expect(201);
+      expect(s.body.status).toBe('draft');
+      await post(c.apprentice, `/api/setups/${s.body.id}/release`).expect(403);
+      await c.machinist.agent.get(`/api/setups/${s.body.id}`).expect(404);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      expect((await c.machinist.agent.get(`/api/setups/${s.body.id}`).expect(200)).body.status).toBe('released');
+    });
+
+    it('should refuse a release based on a stale version with 409 and the current version', async () => {
+      const s = await create(c.machinist, { name: 'Stale release' }).expect(201);
+      await put(c.machinist, s.body.id, { name: 'Stale release, edited', version: 1 }).expect(200);
+      const res = await post(c.lead, `/api/setups/${s.body.id}/release`, { version: 1 }).expect(409);
+      expect(res.body.version).toBe(2);
+      expect((await Setup.findByPk(s.body.id))?.status).toBe('draft');
+    });
+
+    it('should make a new draft when a released set-up is edited, for a lead to release again', async () => {
+      const s = await create(c.machinist, { name: 'Released wedge', checks }).expect(201);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      const edited = await put(c.machinist, s.body.id, { name: 'Released wedge', inputs: { ...taper, angle: '8' }, checks, version: 2 }).expect(200);
+      expect(edited.body).toMatchObject({ status: 'draft', version: 3, releasedAt: null });
+      await c.other.agent.get(`/api/setups/${s.body.id}`).expect(404);
+      const again = await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      expect(again.body).toMatchObject({ status: 'released', version: 4 });
+      // An edit that changes nothing is not a new revision.
+      const same = await put(c.machinist, s.body.id, { name: 'Released wedge', inputs: { ...taper, angle: '8' }, checks, version: 4 }).expect(200);
+      expect(same.body).toMatchObject({ status: 'released', version: 4 });
+    });
+  });
+
+  describe('GET /api/setups/:id/revisions', () => {
+    it('should list who changed what and when, newest first', async () => {
+      const s = await create(c.machinist, { name: 'History wedge' }).expect(201);
+      await put(c.machinist, s.body.id, { name: 'History wedge', inputs: { ...taper, angle: '10' }, version: 1 }).expect(200);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      const res = await c.machinist.agent.get(`/api/setups/${s.body.id}/revisions`).expect(200);
+      const revs = res.body.revisions as Array<{ action: string; version: number; userName: string; changes: Array<{ field: string; from: string; to: string }>; createdAt: string }>;
+      expect(revs.map((r) => [r.action, r.version, r.userName])).toEqual([
+        ['released', 3, m.lead.name],
+        ['edited', 2, m.machinist.name],
+        ['created', 1, m.machinist.name],
+      ]);
+      expect(revs[1]?.changes).toEqual([{ field: 'inputs.angle', from: "7°30'", to: '10' }]);
+      expect(revs[0]?.changes).toEqual([{ field: 'status', from: 'draft', to: 'released' }]);
+      expect(await SetupRevision.count({ where: { setupId: s.body.id } })).toBe(3);
+      await c.foreign.agent.get(`/api/setups/${s.body.id}/revisions`).expect(404);
+    });
+  });
+
+  describe('export and import', () => {
+    it('should export a set-up as JSON and import it into another team as a draft', async () => {
+      const s = await create(c.machinist, { name: 'Portable wedge', job: 'KL-9', notes: 'carry me', checks }).expect(201);
+      const exported = await c.machinist.agent.get(`/api/setups/${s.body.id}/export`).expect(200);
+      expect(exported.headers['content-disposition']).toMatch(/attachment; filename="?setup-\d+-v1\.json"?/);
+      expect(exported.body).toMatchObject({ format: 'slantwise.setup/1', setup: { name: 'Portable wedge', kind: 'taper', inputs: taper, notes: 'carry me', job: 'KL-9', checks } });
+      const imported = await post(c.foreign, '/api/setups/import', exported.body).expect(201);
+      expect(imported.body).toMatchObject({ name: 'Portable wedge', status: 'draft', version: 1, ownerId: foreign.lead.id, inputs: taper, checks });
+      expect(imported.body.id).not.toBe(s.body.id);
+      const revs = await c.foreign.agent.get(`/api/setups/${imported.body.id}/revisions`).expect(200);
+      expect(revs.body.revisions[0].action).toBe('imported');
+    });
+
+    it('should refuse an import of another format, naming the field', async () => {
+      const res = await post(c.foreign, '/api/setups/import', { format: 'other/1', setup: { name: '', kind: 'taper', inputs: {} } }).expect(400);
+      expect(Object.keys(res.body.fields).sort()).toEqual(['format', 'setup.name']);
+    });
+  });
+
+  describe('GET /api/setups/:id/sheet.pdf', () => {
+    it('should print a PDF set-up sheet with the name, results, checks and cautions', async () => {
+      const s = await create(c.machinist, { name: 'Sheet wedge 7°30\'', checks, notes: 'Touch off on the high corner.' }).expect(201);
+      const res = await c.machinist.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).buffer(true).parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (d: Buffer) => chunks.push(d));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      }).expect(200);
+      expect(res.headers['content-type']).toBe('application/pdf');
+      expect(res.headers['content-disposition']).toMatch(/attachment; filename="?setup-sheet-\d+-v1\.pdf"?/);
+      const pdf = res.body as Buffer;
+      expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+      const text = pdfText(pdf);
+      expect(text).toContain("Sheet wedge 7°30'");
+      expect(text).toContain('NOT RELEASED');
+      expect(text).toContain('Depth to stop');
+      expect(text).toContain('End thickness');
+      expect(text).toContain('Touch off on the high corner.');
+      expect(text).toMatch(/Clamp the work/);
+      expect(text).toContain(`/library/${s.body.id}`);
+    });
+
+    it('should follow the set-up\'s access rules', async () => {
+      const s = await create(c.machinist, { name: 'Private sheet' }).expect(201);
+      await c.other.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).expect(404);
+      await c.foreign.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).expect(404);
+    });
+  });
+
+  describe('DELETE /api/setups/:id with batch runs', () => {
+    it('should refuse with 409 so the run records stay', async () => {
+      const s = await create(c.machinist, { name: 'Run wedge', checks }).expect(201);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+      await post(c.machinist, '/api/batches', { setupId: s.body.id, partCount: 2 }).expect(201);
+      const res = await c.machinist.agent.delete(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.machinist.token).expect(409);
+      expect(res.body.error).toMatch(/archive/);
+      expect(await BatchRun.count({ where: { setupId: s.body.id } })).toBe(1);
+    });
+  });
+});

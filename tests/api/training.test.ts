@@ -1,0 +1,195 @@
+import bcrypt from 'bcrypt';
+import request from 'supertest';
+import { Assignment, AssignmentWork, TrainingAttempt, TrainingProblem } from '../../server/models';
+import { generateExercise } from '../../shared/training/generators';
+import { MAX_ATTEMPTS } from '../../shared/api/training';
+import { User } from '../../server/models';
+import { BCRYPT_COST } from '../../server/routes/auth';
+import { client, makeTeam, openApp, PASSWORD, type Client, type Members, type TestApp } from '../support/api';
+import { waitForMail } from '../support/mailbox';
+
+jest.setTimeout(30_000);
+
+let t: TestApp;
+let m: Members;
+let foreign: Members;
+let second: User;
+const c = {} as Record<'admin' | 'lead' | 'machinist' | 'apprentice' | 'second' | 'foreign', Client>;
+
+const inAWeek = () => new Date(Date.now() + 7 * 86_400_000).toISOString();
+const body = (assigneeIds: number[], extra: object = {}) => ({
+  title: 'Tapers on the mill',
+  instructions: 'Work each problem by hand first.',
+  items: [{ type: 'taper-depth', count: 2 }, { type: 'gauge-fewest', count: 1 }],
+  dueAt: inAWeek(),
+  assigneeIds,
+  ...extra,
+});
+
+beforeAll(async () => {
+  t = openApp();
+  m = await makeTeam('training');
+  foreign = await makeTeam('training-foreign');
+  second = await User.create({ teamId: m.team.id, email: `second.${m.apprentice.email}`, name: `Second ${m.apprentice.name}`, role: 'apprentice', passwordHash: await bcrypt.hash(PASSWORD, BCRYPT_COST) });
+  for (const role of ['admin', 'lead', 'machinist', 'apprentice'] as const) c[role] = await client(t.app, m[role]);
+  c.second = await client(t.app, second);
+  c.foreign = await client(t.app, foreign.lead);
+});
+afterAll(() => t.close());
+
+const post = (who: Client, url: string, payload: object = {}) => who.agent.post(url).set('X-CSRF-Token', who.token).send(payload);
+
+/** The exact answer of one of the caller's problems, looked up from the stored seed. */
+async function answerOf(assignmentId: number, userId: number, position: number): Promise<string> {
+  const work = await AssignmentWork.findOne({ where: { assignmentId, userId } });
+  const problem = await TrainingProblem.findOne({ where: { workId: work!.id, position } });
+  return generateExercise(problem!.type, problem!.seed).exact;
+}
+
+describe('/api/training', () => {
+  it('refuses anonymous callers with 401', async () => {
+    await request(t.app).get('/api/training/assignments').expect(401);
+    await request(t.app).get('/api/training/scores').expect(401);
+  });
+
+  it('lists the exercise types', async () => {
+    const res = await c.apprentice.agent.get('/api/training/exercise-types').expect(200);
+    expect(res.body.types.map((x: { type: string }) => x.type)).toContain('taper-depth');
+  });
+
+  describe('creating assignments', () => {
+    it('lets only leads and admins assign (403 for machinists and apprentices)', async () => {
+      await post(c.apprentice, '/api/training/assignments', body([m.apprentice.id])).expect(403);
+      await post(c.machinist, '/api/training/assignments', body([m.apprentice.id])).expect(403);
+      await post(c.admin, '/api/training/assignments', body([m.apprentice.id])).expect(201);
+    });
+
+    it('names each bad field with 400', async () => {
+      const res = await post(c.lead, '/api/training/assignments', { title: '', items: [{ type: 'knurling', count: 0 }], dueAt: 'tomorrow', assigneeIds: [] }).expect(400);
+      expect(Object.keys(res.body.fields).sort()).toEqual(['assigneeIds', 'dueAt', 'items.0.count', 'items.0.type', 'title']);
+    });
+
+    it('assigns apprentices of the own team only', async () => {
+      const a = await post(c.lead, '/api/training/assignments', body([foreign.apprentice.id])).expect(400);
+      expect(a.body.fields.assigneeIds).toMatch(/apprentices/);
+      await post(c.lead, '/api/training/assignments', body([m.machinist.id])).expect(400);
+    });
+
+    it('gives each apprentice their own problems (stored seeds) and e-mails each of them', async () => {
+      const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id, second.id])).expect(201);
+      expect(res.body.mailSent).toBe(2);
+      expect(res.body.work).toHaveLength(2);
+      expect(res.body.work.every((w: { status: string; total: number }) => w.status === 'not-started' && w.total === 3)).toBe(true);
+      const works = await AssignmentWork.findAll({ where: { assignmentId: res.body.id } });
+      expect(works).toHaveLength(2);
+      expect(works[0]!.seed).not.toBe(works[1]!.seed);
+      const problems = await TrainingProblem.findAll({ where: { workId: works.map((w) => w.id) }, order: [['workId', 'ASC'], ['position', 'ASC']] });
+      expect(problems.map((p) => p.type)).toEqual(['taper-depth', 'taper-depth', 'gauge-fewest', 'taper-depth', 'taper-depth', 'gauge-fewest']);
+      const mail = await waitForMail(m.apprentice.email, 'Tapers on the mill');
+      expect(mail.text).toContain(`/training/assignments/${res.body.id}`);
+      expect(mail.html).toContain('Open the assignment');
+    });
+  });
+
+  describe('an apprentice working an assignment', () => {
+    let id: number;
+    beforeAll(async () => {
+      id = (await post(c.lead, '/api/training/assignments', body([m.apprentice.id, second.id], { title: 'Graded run' })).expect(201)).body.id;
+    });
+
+    it('shows the problems without answers or seeds until closed', async () => {
+      const res = await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200);
+      expect(res.body.problems).toHaveLength(3);
+      const p = res.body.problems[0];
+      expect(p).toMatchObject({ position: 1, type: 'taper-depth', closed: false, solution: null, attemptsLeft: MAX_ATTEMPTS, hints: [] });
+      expect(JSON.stringify(res.body)).not.toMatch(/"seed"|"exact"/);
+      expect(JSON.stringify(res.body)).not.toContain(await answerOf(id, m.apprentice.id, 1));
+    });
+
+    it('reveals hints one step at a time, the last without its value', async () => {
+      const one = await post(c.apprentice, `/api/training/assignments/${id}/problems/2/hints`).expect(200);
+      expect(one.body.hints).toHaveLength(1);
+      for (let i = 1; i < one.body.hintsAvailable; i++) await post(c.apprentice, `/api/training/assignments/${id}/problems/2/hints`).expect(200);
+      const all = await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200);
+      const hints = all.body.problems[1].hints;
+      expect(hints).toHaveLength(one.body.hintsAvailable);
+      expect(hints[hints.length - 1].value).toBe('?');
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/2/hints`).expect(409);
+    });
+
+    it('grades on the server: a wrong answer, then the right one closes the problem with its worked solution', async () => {
+      const exact = await answerOf(id, m.apprentice.id, 1);
+      const wrong = await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: '9.9999', correct: true }).expect(201);
+      expect(wrong.body.correct).toBe(false);
+      expect(wrong.body.problem).toMatchObject({ closed: false, attemptsLeft: MAX_ATTEMPTS - 1, solution: null });
+      const right = await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: exact.slice(0, 8) }).expect(201);
+      expect(right.body.correct).toBe(true);
+      expect(right.body.problem.closed).toBe(true);
+      expect(right.body.problem.solution.steps.length).toBeGreaterThan(1);
+      expect(right.body.problem.attempts.map((a: { correct: boolean }) => a.correct)).toEqual([false, true]);
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: exact }).expect(409);
+    });
+
+    it('refuses an unreadable answer with 400 without using an attempt', async () => {
+      const res = await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: 'about half' }).expect(400);
+      expect(res.body.fields.answer).toBeDefined();
+      const work = await AssignmentWork.findOne({ where: { assignmentId: id, userId: m.apprentice.id } });
+      const problem = await TrainingProblem.findOne({ where: { workId: work!.id, position: 2 } });
+      expect(await TrainingAttempt.count({ where: { problemId: problem!.id } })).toBe(0);
+    });
+
+    it(`closes a problem after ${MAX_ATTEMPTS} wrong answers and completes the work when all are closed`, async () => {
+      for (let i = 0; i < MAX_ATTEMPTS; i++) await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: '0' }).expect(201);
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: '0' }).expect(409);
+      const answer = await answerOf(id, m.apprentice.id, 3);
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/3/attempts`, { answer }).expect(201);
+      const res = await c.apprentice.agent.get(`/api/training/assignments/${id}`).expect(200);
+      expect(res.body.work).toEqual([expect.objectContaining({ userId: m.apprentice.id, status: 'done', correct: 2, closed: 3, total: 3, score: 67 })]);
+    });
+
+    it('never shows an apprentice another apprentice\'s work or scores', async () => {
+      const list = await c.second.agent.get('/api/training/assignments').expect(200);
+      for (const a of list.body.assignments) expect(a.work.map((w: { userId: number }) => w.userId)).toEqual([second.id]);
+      const one = await c.second.agent.get(`/api/training/assignments/${id}`).expect(200);
+      expect(one.body.work).toHaveLength(1);
+      expect(one.body.work[0].userId).toBe(second.id);
+      expect(JSON.stringify(one.body)).not.toContain(`"userId":${m.apprentice.id},`);
+      await c.second.agent.get('/api/training/scores').expect(403);
+      await c.apprentice.agent.get('/api/training/scores').expect(403);
+    });
+
+    it('keeps others from answering or reading a copy that is not theirs (404)', async () => {
+      await c.machinist.agent.get(`/api/training/assignments/${id}`).expect(404);
+      await c.machinist.agent.get(`/api/training/assignments/${id}/work`).expect(404);
+      await c.foreign.agent.get(`/api/training/assignments/${id}`).expect(404);
+      await post(c.foreign, `/api/training/assignments/${id}/problems/1/attempts`, { answer: '1' }).expect(404);
+    });
+
+    it('shows the lead a score table with every apprentice, and missing and late work', async () => {
+      const past = await post(c.lead, '/api/training/assignments', body([m.apprentice.id, second.id], { title: 'Already due' })).expect(201);
+      // The due date passes; then the first apprentice finishes (late) and the second never does (missing).
+      await Assignment.update({ dueAt: new Date(Date.now() - 60_000) }, { where: { id: past.body.id } });
+      for (const position of [1, 2, 3]) {
+        await post(c.apprentice, `/api/training/assignments/${past.body.id}/problems/${position}/attempts`, { answer: await answerOf(past.body.id, m.apprentice.id, position) }).expect(201);
+      }
+      const res = await c.lead.agent.get('/api/training/scores').expect(200);
+      const col = res.body.assignments.findIndex((a: { id: number }) => a.id === past.body.id);
+      const graded = res.body.assignments.findIndex((a: { id: number }) => a.id === id);
+      const row = (userId: number) => res.body.rows.find((r: { userId: number }) => r.userId === userId);
+      expect(row(m.apprentice.id).cells[col].summary).toMatchObject({ status: 'late', score: 100 });
+      expect(row(second.id).cells[col].summary).toMatchObject({ status: 'missing', score: 0 });
+      expect(row(m.apprentice.id).cells[graded].summary).toMatchObject({ status: 'done', score: 67 });
+      expect(res.body.rows.map((r: { userId: number }) => r.userId)).not.toContain(m.machinist.id);
+      const foreignScores = await c.foreign.agent.get('/api/training/scores').expect(200);
+      expect(foreignScores.body.assignments.map((a: { id: number }) => a.id)).not.toContain(id);
+    });
+  });
+
+  it('lets a lead delete an assignment; others get 403', async () => {
+    const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'To delete' })).expect(201);
+    await c.apprentice.agent.delete(`/api/training/assignments/${res.body.id}`).set('X-CSRF-Token', c.apprentice.token).expect(403);
+    await c.foreign.agent.delete(`/api/training/assignments/${res.body.id}`).set('X-CSRF-Token', c.foreign.token).expect(404);
+    await c.lead.agent.delete(`/api/training/assignments/${res.body.id}`).set('X-CSRF-Token', c.lead.token).expect(204);
+    await c.apprentice.agent.get(`/api/training/assignments/${res.body.id}`).expect(404);
+  });
+});

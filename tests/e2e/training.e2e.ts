@@ -1,0 +1,126 @@
+/**
+ * Training end to end in Chromium: a lead assigns one problem to the demo apprentice, the SMTP
+ * catcher receives the notice, the apprentice answers once wrong and once right from the e-mailed
+ * link, and the lead sees the score. Answers are looked up from the stored seed, as the server does.
+ */
+import type { Browser } from 'playwright-core';
+import { Op, type Sequelize } from 'sequelize';
+
+import { loadConfig } from '../../server/config';
+import { createSequelize } from '../../server/db';
+import { AssignmentWork, CapturedMail, initModels, TrainingProblem, User } from '../../server/models';
+import { generateExercise } from '../../shared/training/generators';
+import { DESKTOP, TABLET, launch, openPage, screenshot, signIn, signInByApi } from '../support/browser';
+import { contentViolations, realProblems } from '../support/content-a11y';
+
+jest.setTimeout(120_000);
+
+let browser: Browser;
+let sequelize: Sequelize;
+
+beforeAll(async () => {
+  browser = await launch();
+  sequelize = createSequelize(loadConfig().db);
+  initModels(sequelize);
+});
+afterAll(async () => {
+  await browser?.close();
+  await sequelize?.close();
+});
+
+async function waitForMail(to: string, subject: string): Promise<CapturedMail> {
+  for (let i = 0; i < 100; i++) {
+    const mail = await CapturedMail.findOne({ where: { recipients: { [Op.like]: `%${to}%` }, subject: { [Op.like]: `%${subject}%` } }, order: [['id', 'DESC']] });
+    if (mail) return mail;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no mail to ${to} about ${subject}`);
+}
+
+describe('training', () => {
+  it('lets a lead assign, e-mails the apprentice, grades one wrong and one right answer, and shows the score', async () => {
+    const title = `Depth to stop drill ${Date.now()}`;
+    const lead = await openPage(browser, DESKTOP);
+    await signIn(lead.page, 'lead@demo.test');
+    await lead.page.goto('/training/assignments');
+    await lead.page.getByRole('heading', { name: 'Assignments & scores' }).waitFor();
+    await lead.page.getByLabel('Title').fill(title);
+    await lead.page.getByLabel('Depth to stop on an angle block').fill('1');
+    await lead.page.getByRole('checkbox', { name: 'Sam Okafor' }).check();
+    await lead.page.getByRole('button', { name: 'Assign and notify' }).click();
+    await lead.page.getByText(`Assigned "${title}" to 1 apprentice; 1 e-mail notice sent.`).waitFor();
+
+    // The catcher has the notice, with a link to the assignment.
+    const mail = await waitForMail('apprentice@demo.test', title);
+    const link = /https?:\/\/\S+\/training\/assignments\/(\d+)/.exec(mail.text);
+    expect(link).not.toBeNull();
+    const path = new URL(link![0]).pathname;
+
+    const apprentice = await User.findOne({ where: { email: 'apprentice@demo.test' } });
+    const work = await AssignmentWork.findOne({ where: { assignmentId: Number(link![1]), userId: apprentice!.id } });
+    const problem = await TrainingProblem.findOne({ where: { workId: work!.id, position: 1 } });
+    const exercise = generateExercise(problem!.type, problem!.seed);
+
+    for (const viewport of [DESKTOP, TABLET]) {
+      const a = await openPage(browser, viewport);
+      await signInByApi(a.context, 'apprentice@demo.test');
+      await a.page.goto(path);
+      await a.page.getByRole('heading', { name: title }).waitFor();
+      if (viewport === DESKTOP) {
+        const box = a.page.getByLabel('Depth to stop h');
+        await box.fill((Number(exercise.exact) + 0.05).toFixed(4));
+        await a.page.getByRole('button', { name: 'Check answer' }).click();
+        await a.page.getByText(/not within ±0\.0005|not within ±0\.01/).waitFor();
+        await a.page.getByRole('button', { name: /Hint/ }).click();
+        await a.page.getByLabel('Hints').waitFor();
+        await box.fill(exercise.answer);
+        await a.page.getByRole('button', { name: 'Check answer' }).click();
+        await a.page.getByText('Correct.').waitFor();
+        await a.page.getByRole('region', { name: 'Worked solution' }).waitFor();
+        expect(await contentViolations(a.page)).toBe('');
+      } else {
+        await a.page.getByText('Correct.').waitFor();
+      }
+      await screenshot(a.page, `training-apprentice-work-${viewport.width}`);
+      expect(a.problems).toEqual([]);
+      await a.context.close();
+    }
+
+    // The lead's score table shows the apprentice's 100% (one problem, right on the second try).
+    await lead.page.reload();
+    const column = lead.page.getByRole('columnheader', { name: new RegExp(title) });
+    await column.waitFor();
+    const row = lead.page.getByRole('row', { name: /Sam Okafor/ });
+    const headers = await lead.page.getByRole('columnheader').allTextContents();
+    const index = headers.findIndex((h) => h.includes(title));
+    const cell = row.locator('th, td').nth(index);
+    await expect(cell.textContent()).resolves.toMatch(/100%\s*1\/1\s*Done/);
+    await screenshot(lead.page, 'training-lead-scores-1280');
+    expect(await contentViolations(lead.page)).toBe('');
+    expect(realProblems(lead.problems)).toEqual([]);
+    await lead.context.close();
+  });
+
+  it('shows the lessons with their drawings and practice, at desktop and tablet width', async () => {
+    for (const viewport of [DESKTOP, TABLET]) {
+      const { context, page, problems } = await openPage(browser, viewport);
+      await signInByApi(context, 'apprentice@demo.test');
+      await page.goto('/training');
+      await page.getByRole('link', { name: /The right triangle on a taper set-up/ }).click();
+      await page.getByRole('heading', { name: 'The right triangle on a taper set-up' }).waitFor();
+      await page.locator('sw-lesson-drawing svg').first().waitFor();
+      const slider = page.getByRole('slider', { name: 'Angle α' });
+      await slider.focus();
+      await page.keyboard.press('ArrowRight');
+      await page.getByText('Depth to stop h = L · sin α').waitFor();
+      await screenshot(page, `training-lesson-${viewport.width}`);
+      if (viewport === DESKTOP) expect(await contentViolations(page)).toBe('');
+      await page.goto('/training/assignments');
+      await page.getByRole('heading', { name: 'My assignments' }).waitFor();
+      await page.getByText('Angles on the mill 1: the right triangle on a taper').waitFor();
+      await screenshot(page, `training-my-assignments-${viewport.width}`);
+      expect(problems).toEqual([]);
+      await context.close();
+    }
+  });
+});
