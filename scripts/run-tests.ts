@@ -59,6 +59,9 @@ async function main(): Promise<number> {
   env['DB_USER'] = 'slantwise_test';
   env['DB_PASSWORD'] = 'test-' + Math.random().toString(36).slice(2);
   env['SMTP_PORT'] = String(await freePort());
+  // The app for end-to-end tests gets a port of its own now, so links in captured e-mails point at it.
+  const appPort = await freePort();
+  env['PUBLIC_URL'] = `http://127.0.0.1:${appPort}`;
   env['MAIL_FAKE'] = 'true';
   env['UPLOAD_DIR'] = path.join(tmp, 'uploads');
   env['DEMO_PASSWORD'] ??= 'kestrel-demo-2026';
@@ -86,7 +89,7 @@ async function main(): Promise<number> {
       ok = step('production build', process.execPath, ['node_modules/@angular/cli/bin/ng.js', 'build', '--configuration', 'production']) && ok;
     }
 
-    const server = await startServer({ ...config, port: 0, calcRateLimitPerMinute: 100_000 });
+    const server = await startServer({ ...config, port: appPort, calcRateLimitPerMinute: 100_000 });
     stops.push(() => server.close());
     env['E2E_BASE_URL'] = server.url;
     console.log(`[test] app for end-to-end tests at ${server.url}`);

@@ -12,9 +12,9 @@ import { Auth, AuthUser, ROLE_LABELS } from '../core/auth';
   imports: [MatButtonModule, MatIconModule, MatMenuModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <button mat-button class="account-button" type="button" [matMenuTriggerFor]="accountMenu"
-            [attr.aria-label]="'Account: ' + user().name + ', ' + roleLabel()">
-      <mat-icon>account_circle</mat-icon>
+    <button mat-button class="account-button" type="button" [matMenuTriggerFor]="accountMenu">
+      <mat-icon aria-hidden="true">account_circle</mat-icon>
+      <span class="cdk-visually-hidden">Account menu of</span>
       <span class="account-name">{{ user().name }}</span>
       <span class="role-badge">{{ roleLabel() }}</span>
     </button>
