@@ -29,7 +29,7 @@ module.exports = {
     {
       displayName: 'api',
       testEnvironment: 'node',
-      roots: ['<rootDir>/tests/api'],
+      roots: ['<rootDir>/tests/api', '<rootDir>/tests/security'],
       testMatch: ['**/*.test.ts'],
       transform: tsJest,
     },

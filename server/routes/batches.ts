@@ -126,10 +126,11 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
     const user = currentUser(req);
     mayRun(user);
     const runId = parseId(req.params['id'], 'batch run');
-    const body = parseBody(batchPartBody, req.body);
     const number = await sequelize.transaction(async (transaction) => {
       const run = await BatchRun.findOne({ where: { id: runId, teamId: user.teamId }, lock: Transaction.LOCK.UPDATE, transaction });
       if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
+      // The body is read only once the run is known to be this team's: another team learns nothing from a 400.
+      const body = parseBody(batchPartBody, req.body);
       if (run.status === 'closed') throw new HttpError(409, 'This batch run is closed and read-only.');
       const values = readings(run.checks, body);
       const verdict = partVerdict(run.checks, values);

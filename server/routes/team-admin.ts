@@ -45,9 +45,9 @@ export function createTeamAdminRouter(config: AppConfig): Router {
   router.patch('/members/:id', adminOnly, async (req, res) => {
     const admin = currentUser(req);
     const id = parseId(req.params['id'], 'member');
-    const body = parseBody(memberPatchBody, req.body);
     const member = await User.findOne({ where: { id, teamId: admin.teamId } });
     if (!member) throw new HttpError(404, 'No member with that id in your team.');
+    const body = parseBody(memberPatchBody, req.body);
     if (member.id === admin.id) {
       // An admin who demotes or deactivates themselves could leave the team without an admin.
       throw new HttpError(409, 'You cannot change your own role or deactivate yourself; ask another admin.');

@@ -94,14 +94,17 @@ describe('set-up library, end to end', () => {
     await page.setViewportSize(TABLET);
     await screenshot(page, 'library-list-768');
     await page.setViewportSize(DESKTOP);
-    // The demo shop's 81-piece set: its missing .1007 block shows, and stacks avoid it.
+    // The demo shop's 81-piece set: its missing .1007 block shows, and stacks avoid it. With the two
+    // 0.050 wear blocks, 2.3007 leaves 2.2007 to build: 2.000 + .1002 + .1005 (derived).
     await page.goto('/team/inventory');
     await page.getByRole('button', { name: /Inch 81-piece set, cabinet 2/ }).waitFor();
     await page.locator('tr.short').first().waitFor();
-    await page.getByLabel(/Stack height/).fill('0.2007');
+    await page.getByLabel(/Stack height/).fill('2.3007');
     await page.getByRole('button', { name: 'Find the stack' }).click();
     await page.locator('.result').waitFor();
-    expect(await page.locator('.result .block').allTextContents()).not.toContain('0.1007');
+    const blocks = await page.locator('.result .block').allTextContents();
+    expect(blocks).not.toContain('0.1007');
+    expect(blocks.reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0)).toBe(23_007);
     await screenshot(page, 'inventory-desktop');
     expect(await contentViolations(page)).toBe('');
     expect(lead.problems).toEqual([]);
