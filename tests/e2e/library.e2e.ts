@@ -6,8 +6,9 @@ import fs from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 
+import { contentViolations } from '../support/content-a11y';
 import { pdfText } from '../support/pdf-text';
-import { DESKTOP, TABLET, describeViolations, launch, openPage, screenshot, seriousA11yViolations, signInByApi, type OpenPage } from '../support/browser';
+import { DESKTOP, TABLET, launch, openPage, screenshot, signInByApi, type OpenPage } from '../support/browser';
 
 jest.setTimeout(120_000);
 
@@ -19,17 +20,6 @@ let setupId: number;
 
 async function csrf(context: BrowserContext): Promise<string> {
   return ((await (await context.request.get('/api/auth/csrf')).json()) as { token: string }).token;
-}
-
-/**
- * Serious accessibility problems of the page's own content. The shell's toolbar (its account menu
- * button) is checked by the shell's tests, so its nodes are left out here.
- */
-async function contentViolations(page: Page): Promise<string> {
-  const violations = (await seriousA11yViolations(page))
-    .map((v) => ({ ...v, nodes: v.nodes.filter((n) => !n.target.join(' ').includes('.mat-mdc-menu-trigger')) }))
-    .filter((v) => v.nodes.length > 0);
-  return describeViolations(violations);
 }
 
 async function downloadBytes(page: Page, click: () => Promise<void>): Promise<{ name: string; bytes: Buffer }> {

@@ -87,6 +87,7 @@ const RULES: Record<string, Rule> = {
   'DELETE /api/team/invitations/:id': ['admin'],
   'GET /api/team/mailbox': ['admin'],
   'GET /api/team/mailbox/:id': ['admin'],
+  'GET /api/team/export': ['admin'],
   'GET /api/training/exercise-types': 'member',
   'GET /api/training/assignments': 'member',
   'POST /api/training/assignments': LEADS,
