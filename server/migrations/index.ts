@@ -5,6 +5,7 @@ import * as library from './20261201-0501-library';
 import * as inventories from './20261201-0502-inventories';
 import * as batchRuns from './20261201-0503-batch-runs';
 import * as trainingAndTeamMail from './20261201-0601-training-and-team-mail';
+import * as setupListIndexes from './20261201-0701-setup-list-indexes';
 
 export interface Migration {
   readonly name: string;
@@ -20,4 +21,5 @@ export const migrations: readonly Migration[] = [
   { name: '20261201-0501-library', ...library },
   { name: '20261201-0502-inventories', ...inventories },
   { name: '20261201-0503-batch-runs', ...batchRuns },
+  { name: '20261201-0701-setup-list-indexes', ...setupListIndexes },
 ];

@@ -1,7 +1,7 @@
 import express, { type ErrorRequestHandler } from 'express';
 import fc from 'fast-check';
 import request from 'supertest';
-import { createCalcRouter } from './calc';
+import { AnswerCache, createCalcRouter } from './calc';
 
 /** A bare app with the calc router and a tiny JSON error handler (malformed JSON → 400). */
 function makeApp(): express.Express {
@@ -129,5 +129,41 @@ describe('calc router', () => {
         { numRuns: 60 },
       );
     });
+  });
+});
+
+describe('AnswerCache', () => {
+  const compute = (text: string) => jest.fn(() => ({ status: 200, json: text }));
+
+  it('computes an answer once per route and body, then reuses it', () => {
+    const cache = new AnswerCache();
+    const first = compute('{"a":1}');
+    expect(cache.answer('/taper', { x: '1' }, first)).toEqual({ status: 200, json: '{"a":1}' });
+    expect(cache.answer('/taper', { x: '1' }, first)).toEqual({ status: 200, json: '{"a":1}' });
+    expect(first).toHaveBeenCalledTimes(1);
+    const other = compute('{"a":2}');
+    expect(cache.answer('/sine-bar', { x: '1' }, other).json).toBe('{"a":2}');
+    expect(cache.answer('/taper', { x: '2' }, other).json).toBe('{"a":2}');
+    expect(other).toHaveBeenCalledTimes(2);
+  });
+
+  it('drops the least recently used answer beyond its capacity', () => {
+    const cache = new AnswerCache(2);
+    cache.answer('/p', 1, compute('1'));
+    cache.answer('/p', 2, compute('2'));
+    cache.answer('/p', 1, compute('x')); // 1 is now the most recent
+    cache.answer('/p', 3, compute('3')); // drops 2
+    expect(cache.size).toBe(2);
+    const again = compute('2 again');
+    expect(cache.answer('/p', 2, again).json).toBe('2 again');
+    expect(again).toHaveBeenCalledTimes(1);
+    expect(cache.answer('/p', 3, compute('y')).json).toBe('3');
+  });
+
+  it('keeps neither long bodies nor long answers', () => {
+    const cache = new AnswerCache(10, 50, 10);
+    cache.answer('/p', 'x'.repeat(100), compute('short'));
+    cache.answer('/p', 'y', compute('a long answer text'));
+    expect(cache.size).toBe(0);
   });
 });

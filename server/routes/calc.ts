@@ -10,21 +10,59 @@ import { ANGLE_BLOCK_SETS } from '../../shared/data/angle-block-sets';
 import { GAUGE_BLOCK_SETS } from '../../shared/data/gauge-sets';
 import { MACHINE_TAPERS } from '../../shared/data/machine-tapers';
 
-/** Sends a calculation result: 200 with the answer, 400 for invalid input, 422 for impossible input. */
-function send<T>(res: Response, result: CalcResult<T>): void {
-  if (result.ok) {
-    res.json(result.value);
-    return;
+/** A calculation answer ready to send: the status and the JSON text. */
+interface Answer {
+  readonly status: number;
+  readonly json: string;
+}
+
+function answer<T>(result: CalcResult<T>): Answer {
+  if (result.ok) return { status: 200, json: JSON.stringify(result.value) };
+  return { status: result.kind === 'invalid' ? 400 : 422, json: JSON.stringify({ error: result.error, fields: result.fields }) };
+}
+
+/**
+ * The engine functions are pure, so the same body always gets the same answer: the last
+ * `capacity` answers are kept (least recently used dropped first), keyed by route and body text.
+ * Bodies and answers above a size limit are never kept.
+ */
+export class AnswerCache {
+  private readonly entries = new Map<string, Answer>();
+
+  constructor(
+    private readonly capacity = 2_000,
+    private readonly maxKeyLength = 2_000,
+    private readonly maxAnswerLength = 64_000,
+  ) {}
+
+  get size(): number {
+    return this.entries.size;
   }
-  res.status(result.kind === 'invalid' ? 400 : 422).json({ error: result.error, fields: result.fields });
+
+  answer(path: string, body: unknown, compute: () => Answer): Answer {
+    const key = `${path} ${JSON.stringify(body ?? null)}`;
+    if (key.length > this.maxKeyLength) return compute();
+    const hit = this.entries.get(key);
+    if (hit) {
+      this.entries.delete(key);
+      this.entries.set(key, hit);
+      return hit;
+    }
+    const fresh = compute();
+    if (fresh.json.length <= this.maxAnswerLength) {
+      this.entries.set(key, fresh);
+      if (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
+    }
+    return fresh;
+  }
 }
 
 /**
  * The public calculation API, mounted at /api/calc. Every POST body is validated with the shared
  * zod schemas inside the engine functions (the same ones the forms use); no route can answer 5xx
- * for any body, because the engine functions never throw.
+ * for any body, because the engine functions never throw. Answers are memoised (see AnswerCache).
  */
-export function createCalcRouter(): Router {
+export function createCalcRouter(cache = new AnswerCache()): Router {
   const router = Router();
   const calcs: Record<string, (body: unknown) => CalcResult<unknown>> = {
     '/taper': calculateTaper,
@@ -37,7 +75,10 @@ export function createCalcRouter(): Router {
     '/over-pins': calculateOverPins,
   };
   for (const [path, calc] of Object.entries(calcs)) {
-    router.post(path, (req: Request, res: Response) => send(res, calc(req.body)));
+    router.post(path, (req: Request, res: Response) => {
+      const { status, json } = cache.answer(path, req.body, () => answer(calc(req.body)));
+      res.status(status).type('application/json').send(json);
+    });
   }
   router.get('/gauge-sets', (_req, res) => {
     res.json({ sets: GAUGE_BLOCK_SETS });

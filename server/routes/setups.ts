@@ -70,7 +70,12 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     const order: Order = sort === 'owner' ? [[{ model: User, as: 'owner' }, 'name', dir], ['id', dir]] : [[sort, dir], ['id', dir]];
     const pageSize = q.pageSize ?? DEFAULT_PAGE_SIZE;
     const page = q.page ?? 1;
-    const { rows, count } = await Setup.findAndCountAll({ where: { [Op.and]: and }, include: SETUP_PEOPLE, order, limit: pageSize, offset: (page - 1) * pageSize, distinct: true });
+    // The count needs no joins (owner and releaser are one row each); the page joins them.
+    const where = { [Op.and]: and };
+    const [count, rows] = await Promise.all([
+      Setup.count({ where }),
+      Setup.findAll({ where, include: SETUP_PEOPLE, order, limit: pageSize, offset: (page - 1) * pageSize }),
+    ]);
     const body: SetupPageDto = { setups: rows.map((s) => s.toDto()), total: count, page, pageSize };
     res.json(body);
   });
