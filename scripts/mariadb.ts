@@ -15,10 +15,14 @@ export interface MariaDbOptions {
   readonly database: string;
   readonly user: string;
   readonly password: string;
+  /** More mariadbd options (e.g. server-id and log-bin for replication tests). */
+  readonly extraArgs?: readonly string[];
 }
 
 export interface RunningMariaDb {
   readonly port: number;
+  /** The server's Unix socket, for root access (`mariadb --socket=… -uroot`). */
+  readonly socket: string;
   stop(): Promise<void>;
 }
 
@@ -89,6 +93,7 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
       '--bind-address=127.0.0.1', `--port=${opts.port}`, '--skip-name-resolve', `--log-error=${path.join(dir, 'mysqld.err')}`,
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=128M',
       '--max-connections=300', '--innodb-flush-log-at-trx-commit=2',
+      ...(opts.extraArgs ?? []),
     ],
     { stdio: 'ignore' },
   );
@@ -121,6 +126,7 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
 
   return {
     port: opts.port,
+    socket,
     async stop() {
       if (exited) return;
       try {
