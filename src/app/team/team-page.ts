@@ -14,6 +14,7 @@ import type { CapturedMailDto, InvitationDto, MemberDto } from '../../../shared/
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth, ROLE_LABELS } from '../core/auth';
 import { TeamApi } from './team-api';
+import { RouterLink } from '@angular/router';
 
 /**
  * The team: members with their roles (admins change roles, deactivate and reactivate), invitations
@@ -21,7 +22,7 @@ import { TeamApi } from './team-api';
  */
 @Component({
   selector: 'sw-team-page',
-  imports: [FormsModule, MatTabsModule, MatCardModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule],
+  imports: [FormsModule, RouterLink, MatTabsModule, MatCardModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './team-page.html',
   styleUrl: './team-page.scss',
