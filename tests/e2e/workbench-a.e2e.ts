@@ -102,7 +102,8 @@ describe('taper planner', () => {
     await expectResult(page, 'Face length', '2.5216');
     const drawing = await drawingTexts(page);
     expect(drawing.title).toBe('Taper set-up drawing');
-    expect(drawing.texts).toEqual(expect.arrayContaining(['0.3263 in', '2.5216 in', '0.4209 in', 'Touch off', 'angle block']));
+    // 7°30′ from the 16-piece angle-block set: 5° + 3° − 30′ (a reversed block subtracts, REFERENCE.md §6).
+    expect(drawing.texts).toEqual(expect.arrayContaining(['0.3263 in', '2.5216 in', '0.4209 in', 'Touch off', "angle blocks 5° +3° −30'"]));
 
     // Step through the passes: 0.1 in a pass → readings 0.1000, 0.2000, 0.3000, 0.3263.
     await page.getByRole('button', { name: 'Next pass' }).click();
@@ -157,6 +158,125 @@ describe('taper planner', () => {
   });
 });
 
+/** Text boxes of the first drawing that overlap, measured by the browser (getBBox), as "a / b" pairs. */
+async function overlappingLabels(page: Page): Promise<string[]> {
+  return page.locator('svg[role="img"]').first().evaluate((svg) => {
+    const texts = Array.from(svg.querySelectorAll('text')).filter((t) => (t.textContent ?? '').trim() !== '');
+    const boxes = texts.map((t) => {
+      const b = (t as SVGGraphicsElement).getBBox();
+      const m = (t as SVGGraphicsElement).getCTM();
+      const s = (svg as SVGSVGElement).getCTM();
+      // Turned labels: map the box corners through the text's own transform into the svg's space.
+      const local = s && m ? s.inverse().multiply(m) : null;
+      const pts = [[b.x, b.y], [b.x + b.width, b.y], [b.x, b.y + b.height], [b.x + b.width, b.y + b.height]].map(([x, y]) =>
+        local ? new DOMPoint(x, y).matrixTransform(local) : new DOMPoint(x, y),
+      );
+      const xs = pts.map((p) => p.x);
+      const ys = pts.map((p) => p.y);
+      return { text: t.textContent ?? '', minX: Math.min(...xs), maxX: Math.max(...xs), minY: Math.min(...ys), maxY: Math.max(...ys) };
+    });
+    const out: string[] = [];
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) {
+        const a = boxes[i];
+        const b = boxes[j];
+        if (a.minX < b.maxX && b.minX < a.maxX && a.minY < b.maxY && b.minY < a.maxY) out.push(`${a.text} / ${b.text}`);
+      }
+    }
+    return out;
+  });
+}
+
+/** Prints the page to PDF (A4) and returns its page count; also saves a print-media screenshot. */
+async function printedPages(page: Page, name: string): Promise<number> {
+  await page.emulateMedia({ media: 'print' });
+  await screenshot(page, `${name}-print`);
+  const pdf = await page.pdf({ format: 'A4', printBackground: true });
+  await page.emulateMedia({ media: 'screen' });
+  return (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+}
+
+describe('taper work-holding, label room and print', () => {
+  for (const viewport of [DESKTOP, TABLET, PHONE]) {
+    it(`should draw each holding without overlapping labels at ${viewport.width} px`, async () => {
+      const o = await openPage(browser, viewport);
+      for (const holding of ['angle-block', 'sine-plate', 'tilted-vise']) {
+        await o.page.goto(`/taper?holding=${holding}`);
+        await expectResult(o.page, 'Depth to stop', '0.3263');
+        await o.page.locator('svg[role="img"] text', { hasText: 'Touch off' }).waitFor();
+        expect({ holding, overlaps: await overlappingLabels(o.page) }).toEqual({ holding, overlaps: [] });
+        const width = await o.page.evaluate(() => document.documentElement.scrollWidth);
+        expect(width).toBeLessThanOrEqual(viewport.width);
+        await fullScreenshot(o.page, `taper-${holding}-${viewport.width}`);
+      }
+      expect(realProblems(o)).toEqual([]);
+      await o.context.close();
+    });
+  }
+
+  it('should compute the sine-plate stack for the taper angle and give the set-up steps', async () => {
+    const o = await openPage(browser, DESKTOP);
+    await o.page.goto('/taper?holding=sine-plate');
+    // 5 · sin 7.5° = 0.65263 → 0.6526 in (REFERENCE.md §2.1, derived); the numbers of the cut stay.
+    await expectResult(o.page, 'Depth to stop', '0.3263');
+    await o.page.locator('svg text', { hasText: '0.6526 in stack' }).waitFor();
+    expect(await o.page.locator('#holding-heading').innerText()).toBe('Set-up on a sine plate');
+    expect(await o.page.locator('.holding-plan li').first().innerText()).toContain('Wring a 0.6526 in stack');
+    await o.page.getByLabel('Sine plate length', { exact: true }).fill('-5');
+    await expectFieldMessage(o.page, 'Must be greater than 0');
+    await expectAccessible(o.page);
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+
+  it('should print each page on one A4 sheet with drawing, numbers and cautions', async () => {
+    const o = await openPage(browser, DESKTOP);
+    for (const [name, url, label] of [
+      ['taper', '/taper?holding=sine-plate', 'Depth to stop'],
+      ['sine-bar', '/sine-bar', 'Stack height'],
+      ['sine-bar-compound', '/sine-bar?mode=compound', 'Stack A'],
+      ['sine-bar-table', '/sine-bar?mode=table', 'Rows'],
+      ['gauge-blocks', '/gauge-blocks', 'Stack length'],
+    ] as const) {
+      await o.page.goto(url);
+      await o.page.locator('.result-label', { hasText: label }).first().waitFor();
+      expect({ name, pages: await printedPages(o.page, name) }).toEqual({ name, pages: 1 });
+    }
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+
+  it('should answer nonsense with a message under the field and never NaN or a console error', async () => {
+    const o = await openPage(browser, DESKTOP);
+    const cases: [string, string, string, string][] = [
+      ['/taper', 'Stock thickness', 'abc', 'Must be a decimal number such as 0.750, got "abc"'],
+      ['/taper', 'Stock thickness', '-5', 'Must be greater than 0'],
+      ['/taper', 'Angle', '90', 'Must be greater than 0° and less than 90°'],
+      ['/taper', 'Angle', '0', 'Must be greater than 0° and less than 90°'],
+      ['/taper', 'Taper length', '99999999', 'Must be at most 100000'],
+      ['/taper', 'Part length (drawing)', 'x', 'Must be a decimal number such as 0.750, got "x"'],
+      ['/sine-bar', 'Angle', '', 'Is required: type an angle'],
+      ['/sine-bar', 'Angle', '90', 'Must be at least 0° and less than 90°'],
+      ['/sine-bar', 'Bar or plate length', '0', 'Must be greater than 0'],
+      ['/sine-bar?mode=table', 'Step', '0.001', 'Gives 10001 rows; the page lists at most 400'],
+      ['/sine-bar?mode=table', 'To angle', '5', 'Must not be below from'],
+      ['/sine-bar?mode=compound', 'Angle B', 'abc', '"abc" is not an angle'],
+      ['/gauge-blocks', 'Stack length', '1e9', 'Must be a decimal number such as 0.750, got "1e9"'],
+      ['/gauge-blocks', 'Stack length', '', 'Must be a decimal number'],
+    ];
+    for (const [url, field, value, message] of cases) {
+      await o.page.goto(url);
+      await o.page.getByLabel(field, { exact: true }).fill(value);
+      await o.page.getByLabel(field, { exact: true }).blur();
+      const formField = o.page.locator('mat-form-field', { has: o.page.getByLabel(field, { exact: true }) });
+      await formField.locator('mat-error', { hasText: message }).waitFor({ timeout: 5_000 });
+      expect(await o.page.locator('main, .mat-sidenav-content').first().innerText()).not.toMatch(/NaN|Infinity/);
+    }
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+});
+
 describe('sine bar & plate', () => {
   it('should give the demo sine-plate stack with its blocks and take a stack back to an angle', async () => {
     const o = await openPage(browser, DESKTOP);
@@ -184,6 +304,60 @@ describe('sine bar & plate', () => {
     await expectResult(page, 'Angle', '30°00\'00"');
     const steps = await openDerivation(page);
     expect(steps).toEqual(expect.arrayContaining(['Angle', 'Sensitivity']));
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+
+  it('should list a printable table of stacks over a range and draw the row picked', async () => {
+    const o = await openPage(browser, DESKTOP);
+    const { page } = o;
+    await page.goto('/sine-bar');
+    await page.getByText('Table of stacks').click();
+    // 10° to 20° by 30′ on the 5 in plate: 21 rows; 5 · sin 14.5° = 1.2519 in (derived).
+    await page.locator('table.stack-table tr.mat-mdc-row').nth(20).waitFor();
+    expect(await page.locator('table.stack-table tr.mat-mdc-row').count()).toBe(21);
+    const row = page.locator('table.stack-table tr.mat-mdc-row').nth(9);
+    expect((await row.locator('td.mat-column-stack').innerText()).trim()).toBe('1.2519');
+    const blocks = (await row.locator('td.mat-column-blocks').innerText()).split(' + ');
+    expect(blocks.reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0)).toBe(12_519);
+    await row.getByRole('button').click();
+    await page.locator('svg text', { hasText: 'H 1.2519 in' }).waitFor();
+    await page.getByLabel('Step', { exact: true }).fill('1');
+    await page.waitForFunction(() => document.querySelectorAll('table.stack-table tr.mat-mdc-row').length === 11);
+    await fullScreenshot(page, 'sine-bar-table-desktop');
+    await expectAccessible(page);
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+
+  it('should set a compound plate from two angles and back from two stacks', async () => {
+    const o = await openPage(browser, DESKTOP);
+    const { page } = o;
+    await page.goto('/sine-bar?mode=compound');
+    // 5 · sin 14.5° = 1.2519, 5 · sin 10° = 0.8682 (derived).
+    await expectResult(page, 'Stack A', '1.2519');
+    await expectResult(page, 'Stack B', '0.8682');
+    expect(await page.locator('svg[role="img"]').count()).toBe(2);
+    await fullScreenshot(page, 'sine-bar-compound-desktop');
+    await page.getByText('Two stacks → two angles').click();
+    await page.getByLabel('Stack A', { exact: true }).fill('2.5');
+    await page.getByLabel('Stack B', { exact: true }).fill('2.5');
+    // asin(2.5 / 5) = 30° each; cos φ = cos² 30° = 0.75 → φ = 41°24′35″ (derived).
+    await expectResult(page, 'Resultant tilt', '41°24\'35"');
+    await expectAccessible(page);
+    expect(realProblems(o)).toEqual([]);
+    await o.context.close();
+  });
+
+  it('should fit a phone screen in every mode', async () => {
+    const o = await openPage(browser, PHONE);
+    for (const mode of ['angle', 'table', 'compound']) {
+      await o.page.goto(`/sine-bar?mode=${mode}`);
+      await o.page.locator('.result').first().waitFor();
+      const width = await o.page.evaluate(() => document.documentElement.scrollWidth);
+      expect(width).toBeLessThanOrEqual(390);
+      await fullScreenshot(o.page, `sine-bar-${mode}-phone`);
+    }
     expect(realProblems(o)).toEqual([]);
     await o.context.close();
   });

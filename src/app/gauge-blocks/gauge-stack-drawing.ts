@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 import { DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
+import { NO_ANSWER_TEXT, UNDRAWABLE_TEXT, layoutOrNull } from '../drawing/safe-layout';
 import { type GaugeStackSceneInput, gaugeStackScene } from './gauge-stack-scene';
 
 /** The fewest-blocks stack beside the last-digit-method stack, block by block in wringing order. */
@@ -26,7 +27,7 @@ import { type GaugeStackSceneInput, gaugeStackScene } from './gauge-stack-scene'
         <g [swDimension]="s.totalDim" />
       </svg>
     } @else {
-      <p class="no-drawing">The drawing appears when the inputs give an answer.</p>
+      <p class="no-drawing">{{ model() ? undrawableText : noAnswerText }}</p>
     }
   `,
   styles: `
@@ -40,17 +41,19 @@ import { type GaugeStackSceneInput, gaugeStackScene } from './gauge-stack-scene'
     .label { font-size: 13px; font-weight: 600; fill: #1d2a30; font-variant-numeric: tabular-nums; }
     .title { font-size: 14px; font-weight: 600; text-anchor: middle; fill: #16394a; }
     .no-drawing { padding: 48px 16px; text-align: center; border: 1px dashed var(--mat-sys-outline); border-radius: 12px; color: var(--mat-sys-on-surface-variant); }
-    @media print { .drawing { border: none; max-height: 120mm; } }
+    @media print { .drawing { border: none; background: none; max-height: 78mm; } }
   `,
 })
 export class GaugeStackDrawing {
   /** The stacks to draw, or null. */
   readonly model = input.required<GaugeStackSceneInput | null>();
+  protected readonly noAnswerText = NO_ANSWER_TEXT;
+  protected readonly undrawableText = UNDRAWABLE_TEXT;
   private readonly width = hostWidth();
   /** The laid-out drawing. */
   protected readonly scene = computed(() => {
     const m = this.model();
-    return m ? gaugeStackScene(m, this.width()) : null;
+    return m ? layoutOrNull(() => gaugeStackScene(m, this.width())) : null;
   });
   /** A sentence for screen readers. */
   protected readonly description = computed(() => {

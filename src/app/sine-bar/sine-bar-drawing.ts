@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 import { AngleArcMark, DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
+import { NO_ANSWER_TEXT, UNDRAWABLE_TEXT, layoutOrNull } from '../drawing/safe-layout';
 import { type SineBarSceneInput, sineBarScene } from './sine-bar-scene';
 
 /** A sine bar on its rolls with the gauge blocks under the high roll, drawn to scale. */
@@ -34,7 +35,7 @@ import { type SineBarSceneInput, sineBarScene } from './sine-bar-scene';
         }
       </svg>
     } @else {
-      <p class="no-drawing">The drawing appears when the inputs give an answer.</p>
+      <p class="no-drawing">{{ model() ? undrawableText : noAnswerText }}</p>
     }
   `,
   styles: `
@@ -51,12 +52,14 @@ import { type SineBarSceneInput, sineBarScene } from './sine-bar-scene';
     .block-label { font-size: 13px; font-weight: 600; fill: #3d2f0a; font-variant-numeric: tabular-nums; }
     .level { fill: none; stroke: #444; stroke-width: 0.8; stroke-dasharray: 2 3; }
     .no-drawing { padding: 48px 16px; text-align: center; border: 1px dashed var(--mat-sys-outline); border-radius: 12px; color: var(--mat-sys-on-surface-variant); }
-    @media print { .drawing { border: none; max-height: 110mm; } }
+    @media print { .drawing { border: none; background: none; max-height: 78mm; } }
   `,
 })
 export class SineBarDrawing {
   /** The set-up to draw, or null. */
   readonly model = input.required<SineBarSceneInput | null>();
+  protected readonly noAnswerText = NO_ANSWER_TEXT;
+  protected readonly undrawableText = UNDRAWABLE_TEXT;
   /** The drawing's title. */
   readonly title = input('Sine bar set-up drawing');
   /** Id of the title element (two drawings may share a page). */
@@ -65,7 +68,7 @@ export class SineBarDrawing {
   /** The laid-out drawing. */
   protected readonly scene = computed(() => {
     const m = this.model();
-    return m ? sineBarScene(m, this.width()) : null;
+    return m ? layoutOrNull(() => sineBarScene(m, this.width())) : null;
   });
   /** A sentence describing the drawing for screen readers. */
   protected readonly description = computed(() => {

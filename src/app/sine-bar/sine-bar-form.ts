@@ -14,6 +14,16 @@ export type SineBarFormValues = {
   stackHeight: string;
   set: string;
   missing: string;
+  /** Table of stacks: first angle, last angle and step. */
+  tableFrom: string;
+  tableTo: string;
+  tableStep: string;
+  /** Compound plate: 'angles' (two angles → two stacks) or 'stacks' (two stacks → two angles). */
+  compoundBy: string;
+  /** Compound plate: the upper plate's angle, stack and roll distance (blank: as the lower plate). */
+  angleB: string;
+  stackB: string;
+  lengthB: string;
 };
 
 /** Defaults from the demo scenario: a 14°30' face inspected on a 5 in sine plate with the 81-piece set. */
@@ -25,10 +35,17 @@ export const SINE_BAR_DEFAULTS: SineBarFormValues = {
   stackHeight: '',
   set: 'inch-81',
   missing: '',
+  tableFrom: '10',
+  tableTo: '20',
+  tableStep: "0°30'",
+  compoundBy: 'angles',
+  angleB: '10',
+  stackB: '',
+  lengthB: '',
 };
 
 /** Length controls, converted when the unit changes (the block list is not: a set has one unit). */
-export const SINE_BAR_LENGTH_FIELDS = ['barLength', 'stackHeight'] as const;
+export const SINE_BAR_LENGTH_FIELDS = ['barLength', 'stackHeight', 'stackB', 'lengthB'] as const;
 
 /** Common bar lengths per unit, offered as one-tap choices. */
 export const BAR_LENGTHS: Readonly<Record<LengthUnit, readonly string[]>> = { in: ['2.5', '5', '10'], mm: ['100', '200'] };

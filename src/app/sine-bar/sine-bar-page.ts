@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -7,8 +7,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
 
-import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar } from '../../../shared/calc/sine-bar';
+import { SINE_BAR_CAUTIONS, calculateSineBar } from '../../../shared/calc/sine-bar';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -22,15 +23,17 @@ import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { SineBarDrawing } from './sine-bar-drawing';
 import {
-  BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, defaultSet, setsInUnit, sineBarResultItems,
-  sineBarSceneInput, toSineBarRequest,
+  BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, defaultSet, setsInUnit, sineBarSceneInput, toSineBarRequest,
 } from './sine-bar-form';
+import {
+  SINE_BAR_ALIASES, SINE_BAR_MODES, type SineBarOutcome, compoundAxisScene, outcomeItems, runSineBar, sineBarMode, tableRowScene,
+} from './sine-bar-modes';
 
 /** Sine bar & plate: the stack for an angle or the angle of a stack, with the blocks drawn under the roll. */
 @Component({
   selector: 'sw-sine-bar-page',
   imports: [
-    ReactiveFormsModule, MatFormFieldModule, MatInput, MatSelect, MatOption, MatButton, MatButtonToggleGroup, MatButtonToggle, MatIcon,
+    ReactiveFormsModule, MatFormFieldModule, MatInput, MatSelect, MatOption, MatButton, MatButtonToggleGroup, MatButtonToggle, MatIcon, MatTableModule,
     CalcPageLayout, CautionPanel, DerivationPanel, ResultList, SaveSetup, UnitToggle, WarningList, SineBarDrawing,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,21 +46,45 @@ export default class SineBarPage {
   /** URL query and `?setup=` in step with the form. */
   protected readonly query = bindQueryState(this.form, 'sine-bar');
   /** The engine's answer, recomputed in the browser. */
-  protected readonly calc = liveCalc<SineBarFormValues, SineBarResult>(this.form, (v) => calculateSineBar(toSineBarRequest(v)), {
-    aliases: { 'missing.0': 'missing' },
-  });
+  protected readonly calc = liveCalc<SineBarFormValues, SineBarOutcome>(this.form, runSineBar, { aliases: SINE_BAR_ALIASES });
+  /** The table row shown in the drawing (index into the rows). */
+  protected readonly selectedRow = signal(0);
+
+  protected readonly modes = SINE_BAR_MODES;
+  /** Columns of the table of stacks. */
+  protected readonly tableColumns = ['angle', 'stack', 'blocks', 'count', 'achieved', 'error'] as const;
 
   protected readonly cautions = SINE_BAR_CAUTIONS;
   protected readonly controlMessage = controlMessage;
 
   private readonly unitValue = toSignal(this.form.controls.unit.valueChanges, { initialValue: this.form.controls.unit.value });
   private readonly modeValue = toSignal(this.form.controls.mode.valueChanges, { initialValue: this.form.controls.mode.value });
+  private readonly compoundByValue = toSignal(this.form.controls.compoundBy.valueChanges, { initialValue: this.form.controls.compoundBy.value });
   private readonly setValue = toSignal(this.form.controls.set.valueChanges, { initialValue: this.form.controls.set.value });
 
   /** The unit in use. */
   protected readonly unit = computed<LengthUnit>(() => (this.unitValue() === 'mm' ? 'mm' : 'in'));
-  /** Whether the stack is worked out from an angle (otherwise the angle from a stack). */
-  protected readonly byAngle = computed(() => this.modeValue() !== 'stack');
+  /** The mode chosen on the form. */
+  protected readonly mode = computed(() => sineBarMode(this.modeValue()));
+  /** Whether a compound plate is set from two angles (otherwise two stacks give the angles). */
+  protected readonly compoundByAngles = computed(() => this.compoundByValue() !== 'stacks');
+  /** The single-setting answer (stack for an angle or angle from a stack), or null. */
+  protected readonly single = computed(() => {
+    const o = this.calc.value();
+    return o && (o.mode === 'angle' || o.mode === 'stack') ? o.single : null;
+  });
+  /** The table of stacks, or null. */
+  protected readonly table = computed(() => {
+    const o = this.calc.value();
+    return o?.mode === 'table' ? o.table : null;
+  });
+  /** The compound answer with its blocks, or null. */
+  protected readonly compound = computed(() => {
+    const o = this.calc.value();
+    return o?.mode === 'compound' ? o : null;
+  });
+  /** The table row drawn, kept within the rows there are. */
+  protected readonly shownRow = computed(() => Math.min(this.selectedRow(), Math.max(0, (this.table()?.rows.length ?? 1) - 1)));
   /** Whether a set of blocks is chosen. */
   protected readonly hasSet = computed(() => this.setValue() !== '');
   /** Sets in the unit in use. */
@@ -66,19 +93,27 @@ export default class SineBarPage {
   protected readonly barLengths = computed(() => BAR_LENGTHS[this.unit()]);
   /** The result list. */
   protected readonly items = computed(() => {
-    const r = this.calc.value();
-    return r ? sineBarResultItems(r, this.calc.values().mode !== 'stack') : [];
+    const o = this.calc.value();
+    return o ? outcomeItems(o) : [];
   });
-  /** The drawing's model. */
+  /** The drawing's model: the setting, or the table row shown. */
   protected readonly scene = computed(() => {
-    const r = this.calc.value();
-    return r ? sineBarSceneInput(r) : null;
+    const r = this.single();
+    if (r) return sineBarSceneInput(r);
+    const t = this.table();
+    const row = t?.rows[this.shownRow()];
+    return t && row ? tableRowScene(t, row) : null;
+  });
+  /** The compound plate's two views (lower plate about axis A, upper about axis B). */
+  protected readonly compoundScenes = computed(() => {
+    const o = this.compound();
+    return o ? { a: compoundAxisScene(o.compound, 'A', o.blocksA), b: compoundAxisScene(o.compound, 'B', o.blocksB) } : null;
   });
   /** For a steep angle: the same bar set at the complement, as advised. */
   protected readonly complement = computed(() => {
-    const r = this.calc.value();
+    const r = this.single();
     const v = this.calc.values();
-    if (!r || v.mode === 'stack' || Number(r.angleDeg) <= 45) return null;
+    if (!r || sineBarMode(v.mode) !== 'angle' || Number(r.angleDeg) <= 45) return null;
     const other = calculateSineBar({ ...toSineBarRequest(v), angle: r.complementDeg });
     return other.ok ? other.value : null;
   });
@@ -90,7 +125,16 @@ export default class SineBarPage {
   /** A name to start the save dialog with. */
   protected readonly suggestedName = computed(() => {
     const v = this.calc.values();
-    return v.mode === 'stack' ? `Sine bar ${v.barLength} ${v.unit}, stack ${v.stackHeight}` : `Sine bar ${v.barLength} ${v.unit} at ${v.angle}`;
+    switch (sineBarMode(v.mode)) {
+      case 'stack':
+        return `Sine bar ${v.barLength} ${v.unit}, stack ${v.stackHeight}`;
+      case 'table':
+        return `Sine table ${v.barLength} ${v.unit}, ${v.tableFrom} to ${v.tableTo} by ${v.tableStep}`;
+      case 'compound':
+        return `Compound plate ${v.barLength} ${v.unit}, ${v.compoundBy === 'stacks' ? `stacks ${v.stackHeight} and ${v.stackB}` : `${v.angle} and ${v.angleB}`}`;
+      default:
+        return `Sine bar ${v.barLength} ${v.unit} at ${v.angle}`;
+    }
   });
 
   /** Converts the lengths, switches the unit and picks a set in the new unit. */
@@ -102,6 +146,11 @@ export default class SineBarPage {
   /** Sets the bar length to a standard one. */
   protected chooseBarLength(length: string): void {
     this.form.controls.barLength.setValue(length);
+  }
+
+  /** Draws one row of the table. */
+  protected showRow(index: number): void {
+    this.selectedRow.set(index);
   }
 
   /** Opens the print dialog. */

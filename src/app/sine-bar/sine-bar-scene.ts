@@ -48,6 +48,10 @@ export interface SineBarScene {
 }
 
 const MARGIN = 56;
+/** Room right of the plate for the block labels and the stack-height dimension beside them. */
+const MARGIN_RIGHT = 100;
+/** Distance from the block labels' left edge to the stack-height dimension (a 6-figure label is about 48 units). */
+const HEIGHT_DIM_GAP = 62;
 /** Gap between stacked block labels, view units (one line of 13-unit text). */
 const LABEL_GAP = 16;
 
@@ -78,6 +82,7 @@ export function sineBarScene(input: SineBarSceneInput, width: number): SineBarSc
     maxHeight: Math.max(2 * MARGIN + 120, width * 0.62),
     minHeight: 220,
     margin: MARGIN,
+    marginRight: MARGIN_RIGHT,
   });
   const v = fit.toView;
   const vs = (pts: readonly Point[]) => pts.map(v);
@@ -121,7 +126,7 @@ export function sineBarScene(input: SineBarSceneInput, width: number): SineBarSc
     levelLine: polylinePath([c1v, { x: c1v.x + arcRadius + 18, y: c1v.y }]),
     centreLine: polylinePath([c1v, c2v]),
     lengthDim: dimensionLine(c1v, c2v, barH * fit.scale + 26, input.labels.barLength),
-    heightDim: H > 0 ? dimensionLine(stackTop, plateRight, labelX - plateRight.x + 70, input.labels.stackHeight) : null,
+    heightDim: H > 0 ? dimensionLine(stackTop, plateRight, labelX - plateRight.x + HEIGHT_DIM_GAP, input.labels.stackHeight) : null,
     angleArc: angleArc(c1v, arcRadius, 0, input.angleDeg, input.labels.angle),
   };
 }

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 import { AngleArcMark, DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
+import { NO_ANSWER_TEXT, UNDRAWABLE_TEXT, layoutOrNull } from '../drawing/safe-layout';
 import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene';
 
 /** The taper set-up drawn to scale: part on the angle block in the vise, cutter, touch-off, dimensions, passes. */
@@ -15,9 +16,13 @@ import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene
            preserveAspectRatio="xMidYMid meet">
         <title id="taper-drawing-title">Taper set-up drawing</title>
         <desc id="taper-drawing-desc">{{ description() }}</desc>
-        <path class="vise-jaw" [attr.d]="s.viseJaw" />
-        <path class="vise-base" [attr.d]="s.viseBase" />
-        <path class="block" [attr.d]="s.block" />
+        @for (f of s.fixture; track $index) {
+          <path [attr.class]="'fixture ' + f.kind" [attr.d]="f.d" />
+        }
+        <path class="fixture-lines" [attr.d]="s.fixtureLines" />
+        @for (roll of s.rolls; track $index) {
+          <circle class="roll" [attr.cx]="roll.cx" [attr.cy]="roll.cy" [attr.r]="roll.r" />
+        }
         <path class="part" [attr.d]="s.part" />
         <path class="removed" [attr.d]="s.removed" />
         <path class="to-remove" [attr.d]="s.toRemove" />
@@ -37,24 +42,31 @@ import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene
         <path class="cutter" [attr.d]="s.cutterFlutes" />
         <path class="cutter shank" [attr.d]="s.cutterShank" />
         <circle class="touch-off" [attr.cx]="s.touchOff.x" [attr.cy]="s.touchOff.y" r="5" />
-        <text class="note end" [attr.x]="s.touchOffLabel.x" [attr.y]="s.touchOffLabel.y">{{ s.touchOffLabel.text }}</text>
+        <text [attr.class]="'note ' + s.touchOffAnchor" [attr.x]="s.touchOffLabel.x" [attr.y]="s.touchOffLabel.y">{{ s.touchOffLabel.text }}</text>
         @if (s.passLabel; as label) {
           <text class="note end pass-note" [attr.x]="label.x - 6" [attr.y]="label.y + 4">{{ label.text }}</text>
         }
-        <text class="name middle" [attr.x]="s.names[0].x" [attr.y]="s.names[0].y">{{ s.names[0].text }}</text>
-        <text class="name" [attr.x]="s.names[1].x" [attr.y]="s.names[1].y">{{ s.names[1].text }}</text>
-        <text class="name end" [attr.x]="s.names[2].x - 8" [attr.y]="s.names[2].y + 4">{{ s.names[2].text }}</text>
+        @for (n of s.names; track $index) {
+          <text [attr.class]="'name ' + n.anchor" [attr.x]="n.x" [attr.y]="n.y">{{ n.text }}</text>
+        }
       </svg>
     } @else {
-      <p class="no-drawing">The drawing appears when the inputs give an answer.</p>
+      <p class="no-drawing">{{ model() ? undrawableText : noAnswerText }}</p>
     }
   `,
   styles: `
     :host { display: block; }
     .drawing { display: block; width: 100%; height: auto; background: #fbfcfd; border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; }
     .vise-jaw { fill: #e3e7ea; stroke: #8c969c; stroke-width: 1; }
-    .vise-base { fill: #c9d0d4; stroke: #6d787e; stroke-width: 1; }
+    .vise-base, .base { fill: #c9d0d4; stroke: #6d787e; stroke-width: 1; }
+    .vise-body { fill: #d5dbdf; stroke: #5d686e; stroke-width: 1.25; }
     .block { fill: #d8cba8; stroke: #6b5a2b; stroke-width: 1.25; }
+    .plate { fill: #c4ced4; stroke: #38454c; stroke-width: 1.5; }
+    .gauge { fill: #d8cba8; stroke: #6b5a2b; stroke-width: 1; }
+    .gauge.odd { fill: #efe4c4; }
+    .scale { fill: #f6eed6; fill-opacity: 0.92; stroke: #6b5a2b; stroke-width: 1.25; }
+    .fixture-lines { fill: none; stroke: #4a3d1c; stroke-width: 1.25; }
+    .roll { fill: #e8edf0; stroke: #16394a; stroke-width: 1.5; }
     .part { fill: #b9d3e0; stroke: #16394a; stroke-width: 2; stroke-linejoin: round; }
     .removed { fill: #ffffff; stroke: #c1121f; stroke-width: 1; stroke-dasharray: 3 3; }
     .to-remove { fill: #ffd9d4; stroke: #c1121f; stroke-width: 1.5; }
@@ -71,25 +83,29 @@ import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene
     .name { fill: #3d474c; font-style: italic; }
     .end { text-anchor: end; }
     .middle { text-anchor: middle; }
+    .start { text-anchor: start; }
     .depth { --sw-dim-color: #7a1a12; }
     .no-drawing { padding: 48px 16px; text-align: center; border: 1px dashed var(--mat-sys-outline); border-radius: 12px; color: var(--mat-sys-on-surface-variant); }
-    @media print { .drawing { border: none; max-height: 120mm; } }
+    @media print { .drawing { border: none; background: none; max-height: 78mm; } }
   `,
 })
 export class TaperDrawing {
   /** The set-up to draw, or null when the inputs give no answer. */
   readonly model = input.required<TaperSceneInput | null>();
+  protected readonly noAnswerText = NO_ANSWER_TEXT;
+  protected readonly undrawableText = UNDRAWABLE_TEXT;
   /** The drawing's width in view units: the width it has on screen. */
   private readonly width = hostWidth();
   /** The laid-out drawing. */
   protected readonly scene = computed<TaperScene | null>(() => {
     const model = this.model();
-    return model ? taperScene(model, this.width()) : null;
+    return model ? layoutOrNull(() => taperScene(model, this.width())) : null;
   });
   /** A sentence describing the drawing for screen readers. */
   protected readonly description = computed(() => {
     const m = this.model();
     if (!m) return '';
-    return `Part tilted ${m.labels.angle} on an angle block in the vise, cutter touched off on the highest corner; depth to stop ${m.labels.depthToStop}, face length ${m.labels.faceLength}, end thickness ${m.labels.endThickness}.`;
+    const held = { 'angle-block': 'on angle blocks in the vise', 'sine-plate': 'on a sine plate set on gauge blocks', 'tilted-vise': 'in a tilting vise' }[m.holding?.kind ?? 'angle-block'];
+    return `Part tilted ${m.labels.angle} ${held}, cutter touched off on the highest corner; depth to stop ${m.labels.depthToStop}, face length ${m.labels.faceLength}, end thickness ${m.labels.endThickness}.`;
   });
 }

@@ -1,6 +1,7 @@
 import type { TaperRequest } from '../../../shared/api/calc';
 import type { TaperResult } from '../../../shared/calc/taper';
 import type { ResultItem } from '../workbench/result-list';
+import type { HoldingDrawing } from './taper-holding';
 import type { TaperSceneInput } from './taper-scene';
 
 /** Which two of the four taper sizes the user gives. */
@@ -30,6 +31,13 @@ export type TaperFormValues = {
   depthPerPass: string;
   fluteLength: string;
   cutterDiameter: string;
+  /** Work-holding: angle blocks, sine plate or tilting vise (see taper-holding.ts). */
+  holding: string;
+  /** Angle-block set for the angle-block holding. */
+  angleSet: string;
+  /** Sine plate's roll centre distance and the gauge-block set for its stack. */
+  plateLength: string;
+  plateSet: string;
 };
 
 /**
@@ -49,10 +57,14 @@ export const TAPER_DEFAULTS: TaperFormValues = {
   depthPerPass: '0.1',
   fluteLength: '1',
   cutterDiameter: '0.75',
+  holding: 'angle-block',
+  angleSet: 'angle-16',
+  plateLength: '5',
+  plateSet: 'inch-81',
 };
 
 /** The length controls, converted when the unit changes. */
-export const TAPER_LENGTH_FIELDS = ['thickness', 'taperLength', 'endThickness', 'faceLength', 'partLength', 'depthPerPass', 'fluteLength', 'cutterDiameter'] as const;
+export const TAPER_LENGTH_FIELDS = ['thickness', 'taperLength', 'endThickness', 'faceLength', 'partLength', 'depthPerPass', 'fluteLength', 'cutterDiameter', 'plateLength'] as const;
 
 /** Which of angle, taperLength, end, faceLength a choice of `given` uses. */
 export function givenFields(given: string): { angle: boolean; taperLength: boolean; end: boolean; faceLength: boolean } {
@@ -108,7 +120,7 @@ export function drawingNumber(text: string | null | undefined): number {
 }
 
 /** The drawing's model from an answer and the form (part length and cutter come from the form). */
-export function taperSceneInput(r: TaperResult, values: TaperFormValues, selectedPass: number): TaperSceneInput {
+export function taperSceneInput(r: TaperResult, values: TaperFormValues, selectedPass: number, holding?: HoldingDrawing): TaperSceneInput {
   const thickness = r.thickness !== null ? drawingNumber(r.thickness) : 2 * drawingNumber(r.removedAtEnd);
   const u = r.unit;
   return {
@@ -120,12 +132,14 @@ export function taperSceneInput(r: TaperResult, values: TaperFormValues, selecte
     cutterDiameter: drawingNumber(values.cutterDiameter),
     readings: r.passes.map((p) => drawingNumber(p.reading)),
     selectedPass,
+    holding,
     labels: {
       depthToStop: `${r.depthToStop} ${u}`,
       faceLength: `${r.faceLength} ${u}`,
       endThickness: r.endThickness !== null ? `${r.endThickness} ${u}` : '',
       angle: r.angleDms,
       cutter: values.cutterDiameter ? `Ø${values.cutterDiameter} ${u} cutter` : 'cutter',
+      cutterShort: values.cutterDiameter ? `Ø${values.cutterDiameter} ${u}` : 'cutter',
     },
   };
 }

@@ -66,6 +66,37 @@ describe('TaperPage', () => {
     TestBed.inject(HttpTestingController).verify();
   });
 
+  it('should keep the numbers but change the set-up and drawing with the work-holding', async () => {
+    await create('/taper?holding=sine-plate');
+    expect(resultValue('Depth to stop')).toBe('0.3263');
+    expect(el().querySelector('#holding-heading')?.textContent).toBe('Set-up on a sine plate');
+    // 5 · sin 7.5° = 0.6526 in (derived).
+    expect(el().querySelector('svg')?.textContent).toContain('0.6526 in stack');
+    expect(el().querySelectorAll('svg circle.roll').length).toBe(2);
+    await type('plateLength', 'x');
+    expect(fieldError()).toContain('Must be a decimal number such as 0.750, got "x"');
+  });
+
+  it('should draw a tilting vise with its scale', async () => {
+    await create('/taper?holding=tilted-vise');
+    expect(resultValue('Depth to stop')).toBe('0.3263');
+    expect(el().querySelector('svg path.scale')).not.toBeNull();
+    expect(el().querySelector('.holding-plan li')?.textContent).toContain('Tilt the vise body to 7°30\'00"');
+  });
+
+  it('should name a bad part length under its box', async () => {
+    await create();
+    await type('partLength', '-5');
+    expect(fieldError()).toContain('Must be greater than 0');
+  });
+
+  it('should say so in words when the sizes are too far apart to draw', async () => {
+    await create('/taper?angle=0.00001');
+    // 2.5 · sin 0.00001° rounds to 0.0000 in: the depth dimension has no length to draw.
+    expect(resultValue('Depth to stop')).toBe('0.0000');
+    expect(el().textContent).toContain('These sizes are too far apart to draw to scale; the numbers still hold.');
+  });
+
   function el(): HTMLElement {
     return fixture.nativeElement as HTMLElement;
   }

@@ -7,7 +7,10 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatSelect, MatOption } from '@angular/material/select';
 
+import { positiveLength } from '../../../shared/api/calc';
+import { type CalcResult, fail, succeed } from '../../../shared/calc/step';
 import { MILLING_CAUTIONS, calculateTaper, type TaperResult } from '../../../shared/calc/taper';
+import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -20,10 +23,28 @@ import { SaveSetup } from '../workbench/save-setup';
 import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { TaperDrawing } from './taper-drawing';
+import { ANGLE_SET_OPTIONS, HOLDING_OPTIONS, type HoldingPlan, holdingKind, planHolding } from './taper-holding';
 import {
   TAPER_DEFAULTS, TAPER_GIVEN_OPTIONS, TAPER_LENGTH_FIELDS, type TaperFormValues, givenFields, taperResultItems,
   taperSceneInput, toTaperRequest,
 } from './taper-form';
+
+/** A taper answer with the set-up for the chosen work-holding. */
+export type TaperOutcome = TaperResult & { readonly holding: HoldingPlan };
+
+/** The taper engine, then the set-up for the holding (whose inputs fail on their own controls). */
+export function runTaper(values: TaperFormValues): CalcResult<TaperOutcome> {
+  const taper = calculateTaper(toTaperRequest(values));
+  if (!taper.ok) return taper;
+  // The part length only sizes the drawing, but a typo in it still gets its own message.
+  if (values.partLength.trim() !== '') {
+    const part = positiveLength.safeParse(values.partLength);
+    if (!part.success) return fail('invalid', 'Taper', { partLength: part.error.issues[0]?.message ?? 'must be a length' });
+  }
+  const holding = planHolding(values, taper.value);
+  if (!holding.ok) return holding;
+  return succeed({ ...taper.value, holding: holding.value });
+}
 
 /** Taper planner (mill): the depth to stop, end thickness, face length and passes, drawn on the set-up. */
 @Component({
@@ -42,19 +63,27 @@ export default class TaperPage {
   /** The URL query and `?setup=` kept in step with the form. */
   protected readonly query = bindQueryState(this.form, 'taper');
   /** The engine's answer, recomputed in the browser after each pause in typing. */
-  protected readonly calc = liveCalc<TaperFormValues, TaperResult>(this.form, (v) => calculateTaper(toTaperRequest(v)), {
+  protected readonly calc = liveCalc<TaperFormValues, TaperOutcome>(this.form, runTaper, {
     aliases: { removedAtEnd: 'endThickness' },
   });
   /** Which pass the drawing shows (0: the whole cut). */
   protected readonly selectedPass = signal(0);
 
   protected readonly givenOptions = TAPER_GIVEN_OPTIONS;
+  protected readonly holdingOptions = HOLDING_OPTIONS;
+  protected readonly angleSets = ANGLE_SET_OPTIONS;
   protected readonly cautions = MILLING_CAUTIONS;
   protected readonly controlMessage = controlMessage;
 
   private readonly unitValue = toSignal(this.form.controls.unit.valueChanges, { initialValue: this.form.controls.unit.value });
   private readonly givenValue = toSignal(this.form.controls.given.valueChanges, { initialValue: this.form.controls.given.value });
   private readonly shapeValue = toSignal(this.form.controls.shape.valueChanges, { initialValue: this.form.controls.shape.value });
+  private readonly holdingValue = toSignal(this.form.controls.holding.valueChanges, { initialValue: this.form.controls.holding.value });
+
+  /** The work-holding chosen. */
+  protected readonly holding = computed(() => holdingKind(this.holdingValue()));
+  /** Gauge-block sets in the unit in use, for the sine plate's stack. */
+  protected readonly plateSets = computed(() => GAUGE_BLOCK_SETS.filter((g) => g.unit === this.unit()).map((g) => ({ id: g.id, name: g.name })));
 
   /** The unit in use. */
   protected readonly unit = computed<LengthUnit>(() => (this.unitValue() === 'mm' ? 'mm' : 'in'));
@@ -72,7 +101,7 @@ export default class TaperPage {
   /** The drawing's model. */
   protected readonly scene = computed(() => {
     const r = this.calc.value();
-    return r ? taperSceneInput(r, this.calc.values(), this.shownPass()) : null;
+    return r ? taperSceneInput(r, this.calc.values(), this.shownPass(), r.holding.drawing) : null;
   });
   /** The shown pass's numbers, for the line under the drawing. */
   protected readonly shownPassInfo = computed(() => {
@@ -89,7 +118,8 @@ export default class TaperPage {
   /** Converts the entered lengths and switches the unit. */
   protected changeUnit(to: LengthUnit): void {
     convertLengthControls(this.form.controls, TAPER_LENGTH_FIELDS, this.unit(), to);
-    this.form.controls.unit.setValue(to);
+    const plateSet = this.form.controls.plateSet.value ? (GAUGE_BLOCK_SETS.find((g) => g.unit === to)?.id ?? '') : '';
+    this.form.patchValue({ unit: to, plateSet });
   }
 
   /** Shows one pass on the drawing (0: the whole cut). */

@@ -93,3 +93,82 @@ describe('taperScene', () => {
     expect(narrow.touchOff.x).toBe(152.31);
   });
 });
+
+describe('taperScene work-holding', () => {
+  // The demo wedge: 0.75 in stock, 7°30′ over 2.5 in of a 4 in part, d = 2.5 · tan 7.5° = 0.32913 (derived).
+  const DEMO: TaperSceneInput = {
+    thickness: 0.75,
+    taperLength: 2.5,
+    removedAtEnd: 0.32913,
+    angleDeg: 7.5,
+    partLength: 4,
+    cutterDiameter: 0.75,
+    readings: [0.1, 0.2, 0.3, 0.3263],
+    selectedPass: 2,
+    labels: { depthToStop: '0.3263 in', faceLength: '2.5216 in', endThickness: '0.4209 in', angle: '7°30\'00"', cutter: 'Ø0.75 in cutter', cutterShort: 'Ø0.75 in' },
+  };
+  const MM: TaperSceneInput = {
+    ...DEMO,
+    labels: { depthToStop: '8.288 mm', faceLength: '64.049 mm', endThickness: '10.690 mm', angle: '7°30\'00"', cutter: 'Ø19.05 mm cutter', cutterShort: 'Ø19.05 mm' },
+  };
+  const sinePlate = { kind: 'sine-plate' as const, plateLength: 5, blocks: [{ size: 0.45, label: '0.450' }, { size: 0.102, label: '0.102' }, { size: 0.1006, label: '0.1006' }], stackLabel: '0.6526 in stack' };
+  const holdings = [
+    { kind: 'angle-block' as const, blocks: ['5°', '+3°', "−30'"] },
+    sinePlate,
+    { kind: 'tilted-vise' as const },
+  ];
+
+  // Drawing widths of a 360–390 px phone (328–358), a tablet (520, 720) and a desktop (960).
+  for (const h of holdings) {
+    for (const width of [328, 358, 520, 720, 960]) {
+      for (const [unit, input] of [['in', DEMO], ['mm', MM]] as const) {
+        it(`should keep every label clear of the others and inside the view: ${h.kind}, ${width} wide, ${unit}`, () => {
+          const scene = taperScene({ ...input, holding: h }, width);
+          const boxes = scene.labelBoxes;
+          expect(boxes.length).toBeGreaterThanOrEqual(7);
+          for (let i = 0; i < boxes.length; i++) {
+            expect(boxes[i].minX).toBeGreaterThanOrEqual(0);
+            expect(boxes[i].maxX).toBeLessThanOrEqual(scene.width);
+            expect(boxes[i].minY).toBeGreaterThanOrEqual(0);
+            expect(boxes[i].maxY).toBeLessThanOrEqual(scene.height);
+            for (let j = i + 1; j < boxes.length; j++) {
+              const apart = boxes[i].maxX <= boxes[j].minX || boxes[j].maxX <= boxes[i].minX || boxes[i].maxY <= boxes[j].minY || boxes[j].maxY <= boxes[i].minY;
+              expect({ i, j, apart }).toEqual({ i, j, apart: true });
+            }
+          }
+        });
+      }
+    }
+  }
+
+  it('should split the angle block into the wrung blocks and name them', () => {
+    const scene = taperScene({ ...DEMO, holding: holdings[0] }, 640);
+    expect(scene.fixtureLines.match(/M/g)?.length).toBe(2);
+    expect(scene.names.map((n) => n.text)).toEqual(['Ø0.75 in cutter', "angle blocks 5° +3° −30'", 'vise']);
+    expect(scene.fixture.map((f) => f.kind)).toEqual(['vise-jaw', 'vise-base', 'block']);
+  });
+
+  it('should stand the sine plate on its hinge roll and on the stack, the rolls L apart at the taper angle', () => {
+    const scene = taperScene({ ...DEMO, holding: sinePlate }, 640);
+    const [hinge, free] = scene.rolls;
+    // Roll radius is 0.07 L, which gives the scale back.
+    const scale = hinge.r / (0.07 * 5);
+    expect(Math.hypot(free.cx - hinge.cx, free.cy - hinge.cy)).toBeCloseTo(5 * scale, 0);
+    // H = L · sin α = 5 · sin 7.5° = 0.65263 (REFERENCE.md §2.1, derived).
+    expect((hinge.cy - free.cy) / scale).toBeCloseTo(0.65263, 2);
+    const gauges = scene.fixture.filter((f) => f.kind.startsWith('gauge'));
+    expect(gauges.length).toBe(3);
+    const topOfStack = Math.min(...[...gauges[2].d.matchAll(/,(-?[\d.]+)/g)].map((m) => Number(m[1])));
+    expect(topOfStack).toBeCloseTo(free.cy + free.r, 0);
+    expect(scene.names.map((n) => n.text)).toEqual(expect.arrayContaining(['hinge roll', '0.6526 in stack', 'sine plate']));
+  });
+
+  it('should tilt the vise body over its base with a marked scale and an index at the setting', () => {
+    const scene = taperScene({ ...DEMO, holding: { kind: 'tilted-vise' } }, 640);
+    expect(scene.fixture.map((f) => f.kind)).toEqual(['vise-base', 'vise-jaw', 'vise-body', 'scale']);
+    // Marks every 5° from 0° to 7.5° + 12° = 19.5°: 0, 5, 10, 15, then the index line.
+    expect(scene.fixtureLines.match(/M/g)?.length).toBe(5);
+    expect(scene.rolls.length).toBe(1);
+    expect(scene.names.map((n) => n.text)).toContain('tilting vise');
+  });
+});

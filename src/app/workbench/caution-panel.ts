@@ -29,7 +29,12 @@ export const DEFER_TO_SHOP_RULES =
     .cautions-heading { font: var(--mat-sys-title-medium); margin: 0 0 4px; }
     .caution-items { margin: 0; padding-left: 1.2em; display: grid; gap: 4px; }
     .defer { margin: 8px 0 0; font-style: italic; }
-    @media print { .cautions { padding: 4pt 6pt; font-size: 9pt; } }
+    @media print {
+      .cautions { padding: 4pt 6pt; font-size: 8.5pt; line-height: 1.25; }
+      .cautions-heading { font-size: 10pt; margin: 0; }
+      .caution-items { gap: 0; }
+      .defer { margin-top: 2pt; }
+    }
   `,
 })
 export class CautionPanel {

@@ -1,10 +1,10 @@
 import { type Signal, computed } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import type { FormGroup } from '@angular/forms';
+import type { FormGroup, ValidatorFn } from '@angular/forms';
 import { debounceTime, map } from 'rxjs';
 
 import type { CalcResult } from '../../../shared/calc/step';
-import { type SortedMessages, applyControlErrors, failureMessages } from './field-errors';
+import { CALC_ERROR_KEY, type SortedMessages, applyControlErrors, failureMessages } from './field-errors';
 
 /** How long typing must pause before the page recomputes, in milliseconds. */
 export const RECOMPUTE_DEBOUNCE_MS = 100;
@@ -36,11 +36,19 @@ export interface LiveCalcOptions {
  */
 export function liveCalc<V, T>(form: FormGroup, run: (values: V) => CalcResult<T>, options: LiveCalcOptions = {}): LiveCalc<T, V> {
   const names = Object.keys(form.controls);
+  // The latest messages also act as a validator, so a control that (re)validates later keeps its
+  // message: a field shown by @if, or bound after the first answer, validates on binding.
+  let latest: Readonly<Record<string, string>> = {};
+  for (const name of names) {
+    const keepMessage: ValidatorFn = () => (latest[name] ? { [CALC_ERROR_KEY]: latest[name] } : null);
+    form.controls[name].addValidators(keepMessage);
+  }
   const evaluate = (): { result: CalcResult<T>; messages: SortedMessages; values: V } => {
     markRecompute('start');
     const values = form.getRawValue() as V;
     const result = run(values);
     const messages = failureMessages(result.ok ? null : result, names, options.aliases);
+    latest = messages.controls;
     applyControlErrors(form.controls, messages.controls);
     markRecompute('end');
     return { result, messages, values };

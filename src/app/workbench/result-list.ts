@@ -27,26 +27,28 @@ const COPIED_TICK_MS = 1_500;
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h2 class="results-heading">{{ heading() }}</h2>
-    <dl class="results" aria-live="polite">
-      @for (item of items(); track item.label) {
-        <div class="result" [class.emphasis]="item.emphasis">
-          <dt class="result-label">{{ item.label }}</dt>
-          <dd class="result-value">
-            <span class="value-text"><span class="number">{{ item.value }}</span>@if (item.unit) {<span class="unit">&nbsp;{{ item.unit }}</span>}</span>
-            <button mat-icon-button type="button" class="copy no-print" [cdkCopyToClipboard]="item.value"
-                    (cdkCopyToClipboardCopied)="markCopied(item.label, $event)"
-                    [attr.aria-label]="'Copy ' + item.label + ' ' + item.value">
-              <mat-icon aria-hidden="true">{{ copied() === item.label ? 'check' : 'content_copy' }}</mat-icon>
-            </button>
-          </dd>
-          @if (item.note) {
-            <dd class="result-note">{{ item.note }}</dd>
-          }
-        </div>
-      } @empty {
-        <p class="no-results">{{ emptyText() }}</p>
-      }
-    </dl>
+    @if (items().length) {
+      <dl class="results" aria-live="polite">
+        @for (item of items(); track item.label) {
+          <div class="result" [class.emphasis]="item.emphasis">
+            <dt class="result-label">{{ item.label }}</dt>
+            <dd class="result-value">
+              <span class="value-text"><span class="number">{{ item.value }}</span>@if (item.unit) {<span class="unit">&nbsp;{{ item.unit }}</span>}</span>
+              <button mat-icon-button type="button" class="copy no-print" [cdkCopyToClipboard]="item.value"
+                      (cdkCopyToClipboardCopied)="markCopied(item.label, $event)"
+                      [attr.aria-label]="'Copy ' + item.label + ' ' + item.value">
+                <mat-icon aria-hidden="true">{{ copied() === item.label ? 'check' : 'content_copy' }}</mat-icon>
+              </button>
+            </dd>
+            @if (item.note) {
+              <dd class="result-note">{{ item.note }}</dd>
+            }
+          </div>
+        }
+      </dl>
+    } @else {
+      <p class="no-results" aria-live="polite">{{ emptyText() }}</p>
+    }
     <span class="cdk-visually-hidden" aria-live="polite">{{ copied() ? copied() + ' copied' : '' }}</span>
   `,
   styles: `
