@@ -23,6 +23,7 @@ import { LoginThrottle } from './services/login-throttle';
 import './session-types';
 import { createAccessRouter } from './routes/access';
 import { createTeamAdminRouter } from './routes/team-admin';
+import { createTeamExportRouter } from './routes/team-export';
 import { createTrainingRouter } from './routes/training';
 import { configureMail } from './services/mailer';
 
@@ -125,6 +126,7 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
   configureMail(config);
   app.use('/api/access', createAccessRouter(new LoginThrottle({ limit: 5, windowMs: 15 * 60_000 })));
   app.use('/api/team', requireUser, createTeamAdminRouter(config));
+  app.use('/api/team', requireUser, createTeamExportRouter({ sequelize, storage }));
   app.use('/api/training', requireUser, createTrainingRouter());
   app.use('/api', apiNotFound);
 

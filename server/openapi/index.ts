@@ -2,6 +2,7 @@ import { calcPaths } from './calc';
 import { libraryPaths } from './library';
 import { teamPaths, teamSchemas } from './team';
 import { teamAdminPaths } from './team-admin';
+import { teamExportPaths } from './team-export';
 import { trainingPaths } from './training';
 
 /** The OpenAPI 3.1 description of the API, served at GET /api/openapi.json. */
@@ -16,6 +17,6 @@ export const openApiDocument = {
       'Errors are always JSON: {"error": "message", "fields"?: {"field": "message"}}.',
   },
   servers: [{ url: '/' }],
-  paths: { ...teamPaths, ...calcPaths, ...teamAdminPaths, ...trainingPaths, ...libraryPaths },
+  paths: { ...teamPaths, ...calcPaths, ...teamAdminPaths, ...trainingPaths, ...libraryPaths, ...teamExportPaths },
   components: { schemas: { ...teamSchemas } },
 } as const;

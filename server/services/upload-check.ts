@@ -88,7 +88,9 @@ export function singleUpload(maxBytes: number): RequestHandler {
         }
         return next(new HttpError(400, `The upload form is not valid (${err.message}).`));
       }
-      next(err);
+      // Anything else the form parser throws is a malformed request (bad part header, cut-off body), not a server fault.
+      const message = err instanceof Error ? err.message : String(err);
+      next(new HttpError(400, `The upload form could not be read (${message}).`, { file: 'Send one file as multipart/form-data in the field "file".' }));
     });
   };
 }

@@ -47,6 +47,25 @@ describe('TeamPage', () => {
     expect(el.textContent).toContain('Dev mailbox');
   });
 
+  it('should offer admins, and only admins, the download of all team data', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] });
+    await settle();
+    const link = el.querySelector<HTMLAnchorElement>('a[href="/api/team/export"]');
+    expect(link?.textContent).toContain('Download all team data');
+    expect(link?.hasAttribute('download')).toBe(true);
+
+    TestBed.resetTestingModule();
+    await open(LEAD);
+    http.expectOne('/api/team/members').flush({ members: [member(2, 'Teodor Vance', 'lead')] });
+    await settle();
+    expect(el.querySelector('a[href="/api/team/export"]')).toBeNull();
+  });
+
   it('should deactivate a member with PATCH active=false after asking', async () => {
     await open(ADMIN);
     http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
