@@ -54,8 +54,31 @@ interface PageFigures {
   readonly longTasks: number;
 }
 
+/** Where the main thread's time went between a recompute starting and the next frame (one trace pass). */
+interface Breakdown {
+  /** Wall time of the renderer main thread's tasks in the window, ms. */
+  readonly wall: number;
+  /** CPU time the thread actually got for those tasks, ms (wall − cpu: time the OS gave to other work). */
+  readonly cpu: number;
+  /** Wall time per kind of work, ms. */
+  readonly parts: Readonly<Record<BreakdownPart, number>>;
+  /** From the recompute mark to the end of the window with no task running (waiting for the scheduler or the frame), ms. */
+  readonly idle: number;
+}
+
+type BreakdownPart = 'script' | 'gc' | 'style' | 'layout' | 'paint';
+
+interface TracedPage {
+  readonly target: Target;
+  readonly median: Breakdown;
+  readonly worst: Breakdown;
+  readonly worstSpan: number;
+}
+
 let browser: Browser;
 const figures: PageFigures[] = [];
+const traced: TracedPage[] = [];
+const pageSplits: { route: string; name: string; count: number; median: number; max: number }[] = [];
 const bundles: { initial?: { files: number; transfer: number; raw: number }; routes: { route: string; files: number; transfer: number; raw: number }[] } = { routes: [] };
 
 beforeAll(async () => {
@@ -64,7 +87,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await browser.close();
-  if (figures.length === TARGETS.length && bundles.initial) writeReport();
+  if (figures.length === TARGETS.length && traced.length === TARGETS.length && bundles.initial) writeReport();
 });
 
 /** Installs the observers that time each recompute to its DOM update and next frame. */
@@ -125,6 +148,17 @@ describe('recompute + redraw after a keystroke', () => {
           const s = (window as unknown as { __swPerf: { samples: Sample[]; longTasks: number } }).__swPerf;
           return { samples: s.samples, longTasks: s.longTasks };
         })) as { samples: Sample[]; longTasks: number };
+        // Finer splits a page records itself (performance.measure names starting "sw-"), e.g. the angle-block drawing.
+        const splits = (await page.evaluate(() =>
+          performance
+            .getEntriesByType('measure')
+            .filter((m) => m.name.startsWith('sw-') && m.name !== 'sw-recompute')
+            .map((m) => ({ name: m.name, duration: m.duration })),
+        )) as { name: string; duration: number }[];
+        for (const name of [...new Set(splits.map((x) => x.name))]) {
+          const d = splits.filter((x) => x.name === name).map((x) => x.duration);
+          pageSplits.push({ route: target.route, name, count: d.length, median: percentile(d, 50), max: Math.max(...d) });
+        }
         figures.push({ target, ...state });
         const updates = state.samples.map((s) => s.update);
         console.log(
@@ -134,6 +168,110 @@ describe('recompute + redraw after a keystroke', () => {
         );
         expect(state.samples.length).toBeGreaterThanOrEqual(KEYSTROKES - 2);
         expect(percentile(updates, 50)).toBeLessThan(FRAME_MS);
+      } finally {
+        await o.context.close();
+      }
+    });
+  }
+});
+
+/** Trace event fields this file reads (Chrome trace event format). */
+interface TraceEvent {
+  readonly name: string;
+  readonly cat: string;
+  readonly ph: string;
+  readonly ts: number;
+  readonly dur?: number;
+  readonly tdur?: number;
+  readonly pid: number;
+  readonly tid: number;
+  readonly args?: { readonly name?: string };
+}
+
+/** Which part of the work a traced event is, by its name (Chromium's timeline names). */
+function partOf(name: string): BreakdownPart | null {
+  if (/^(MinorGC|MajorGC|V8\.GC_|BlinkGC\.)/.test(name) || name === 'V8.GCScavenger' || name === 'V8.GCCompactor') return 'gc';
+  if (name === 'UpdateLayoutTree' || name === 'RecalculateStyles' || name === 'ParseAuthorStyleSheet') return 'style';
+  if (name === 'Layout' || name === 'UpdateLayerTree') return 'layout';
+  if (name === 'Paint' || name === 'PrePaint' || name === 'Layerize' || name === 'Commit' || name === 'CompositeLayers' || name === 'PaintImage') return 'paint';
+  return null;
+}
+
+/**
+ * Splits each recompute → frame window of a trace into the renderer main thread's tasks and what
+ * they spent their time on: script (the engine, Angular, D3 path strings) is what is left of a task
+ * after garbage collection, style, layout and paint.
+ */
+function breakdowns(events: readonly TraceEvent[], frames: readonly number[]): { breakdown: Breakdown; span: number }[] {
+  const mainTid = events.find((e) => e.name === 'thread_name' && e.args?.name === 'CrRendererMain');
+  if (!mainTid) throw new Error('perf: no renderer main thread in the trace');
+  const onMain = events.filter((e) => e.pid === mainTid.pid && e.tid === mainTid.tid);
+  const marks = onMain.filter((e) => e.name === 'sw-recompute-start').map((e) => e.ts).sort((a, b) => a - b);
+  // The last marks are the measured keystrokes (earlier ones come from loading and the base value).
+  const measured = marks.slice(-frames.length);
+  // Top-level tasks only: Chromium nests "RunTask" inside "ThreadControllerImpl::RunTask" when it records both.
+  const outer = onMain.some((e) => e.name === 'ThreadControllerImpl::RunTask') ? 'ThreadControllerImpl::RunTask' : 'RunTask';
+  const tasks = onMain.filter((e) => e.ph === 'X' && e.name === outer);
+  const inner = onMain.filter((e) => e.ph === 'X' && partOf(e.name) !== null);
+  return measured.map((start, i) => {
+    const end = start + frames[i] * 1000;
+    const inWindow = tasks.filter((t) => t.ts + (t.dur ?? 0) > start && t.ts < end);
+    const clip = (e: TraceEvent) => Math.max(0, Math.min(e.ts + (e.dur ?? 0), end) - Math.max(e.ts, start));
+    const wall = inWindow.reduce((a, t) => a + clip(t), 0);
+    const cpu = inWindow.reduce((a, t) => a + (t.dur ? ((t.tdur ?? t.dur) * clip(t)) / t.dur : 0), 0);
+    const parts: Record<BreakdownPart, number> = { script: 0, gc: 0, style: 0, layout: 0, paint: 0 };
+    for (const e of inner) {
+      const part = partOf(e.name);
+      if (part && e.ts + (e.dur ?? 0) > start && e.ts < end) parts[part] += clip(e);
+    }
+    parts.script = Math.max(0, wall - parts.gc - parts.style - parts.layout - parts.paint);
+    const toMs = (us: number) => us / 1000;
+    return {
+      span: frames[i],
+      breakdown: {
+        wall: toMs(wall),
+        cpu: toMs(cpu),
+        idle: Math.max(0, frames[i] - toMs(wall)),
+        parts: { script: toMs(parts.script), gc: toMs(parts.gc), style: toMs(parts.style), layout: toMs(parts.layout), paint: toMs(parts.paint) },
+      },
+    };
+  });
+}
+
+describe('where the time goes (Chromium trace)', () => {
+  for (const target of TARGETS) {
+    it(`should break ${target.route}'s recompute + redraw into script, GC, style, layout and paint`, async () => {
+      const o = await openPage(browser, DESKTOP);
+      try {
+        const { page } = o;
+        await page.goto(target.route);
+        const field = page.locator(`input[formcontrolname="${target.control}"]`);
+        await field.fill(target.base);
+        await page.locator('.calc-drawing svg[role="img"]').first().waitFor();
+        await page.waitForTimeout(400);
+        await instrument(page);
+        await browser.startTracing(page, {
+          categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink.user_timing', 'v8', 'disabled-by-default-v8.gc', 'toplevel', '__metadata'],
+        });
+        await field.focus();
+        await page.keyboard.press('End');
+        for (let i = 0; i < KEYSTROKES; i++) {
+          await page.keyboard.press(i % 2 === 0 ? '1' : 'Backspace');
+          await page.waitForTimeout(250);
+        }
+        const buffer = await browser.stopTracing();
+        const trace = JSON.parse(buffer.toString('utf8')) as { traceEvents: TraceEvent[] } | TraceEvent[];
+        const events = Array.isArray(trace) ? trace : trace.traceEvents;
+        const samples = (await page.evaluate(() => (window as unknown as { __swPerf: { samples: Sample[] } }).__swPerf.samples)) as Sample[];
+        const windows = breakdowns(events, samples.map((s) => s.frame));
+        expect(windows.length).toBeGreaterThanOrEqual(KEYSTROKES - 2);
+        const bySpan = [...windows].sort((a, b) => a.span - b.span);
+        const median = bySpan[Math.floor(bySpan.length / 2)];
+        const worst = bySpan[bySpan.length - 1];
+        traced.push({ target, median: median.breakdown, worst: worst.breakdown, worstSpan: worst.span });
+        const line = (b: Breakdown) =>
+          `tasks ${ms(b.wall)} (cpu ${ms(b.cpu)}): script ${ms(b.parts.script)}, gc ${ms(b.parts.gc)}, style ${ms(b.parts.style)}, layout ${ms(b.parts.layout)}, paint ${ms(b.parts.paint)}; idle ${ms(b.idle)}`;
+        console.log(`${target.route} traced: median window ${ms(median.span)} ms → ${line(median.breakdown)}\n  worst window ${ms(worst.span)} ms → ${line(worst.breakdown)}`);
       } finally {
         await o.context.close();
       }
@@ -183,6 +321,19 @@ describe('JavaScript per route', () => {
   });
 });
 
+/** Marks around the hand-written findings, which a re-run keeps as they are. */
+const FINDINGS_START = '<!-- findings: written by hand, kept by perf.e2e.ts -->';
+const FINDINGS_END = '<!-- end of findings -->';
+
+/** The hand-written findings section of the current report, or a stub to fill in. */
+function keptFindings(): string {
+  const old = fs.existsSync(DOC) ? fs.readFileSync(DOC, 'utf8') : '';
+  const from = old.indexOf(FINDINGS_START);
+  const to = old.indexOf(FINDINGS_END);
+  if (from >= 0 && to > from) return old.slice(from, to + FINDINGS_END.length);
+  return `${FINDINGS_START}\n### Findings\n\n(Not written yet.)\n${FINDINGS_END}`;
+}
+
 /** Writes the measured figures to docs/frontend-performance.md. */
 function writeReport(): void {
   const rows = figures.map((f) => {
@@ -191,6 +342,11 @@ function writeReport(): void {
     const fr = f.samples.map((s) => s.frame);
     return `| ${f.target.name} (\`${f.target.route}\`, field \`${f.target.control}\`) | ${f.samples.length} | ${ms(percentile(e, 50))} | ${ms(percentile(u, 50))} | ${ms(percentile(u, 95))} | ${ms(Math.max(...u))} | ${ms(percentile(fr, 50))} | ${f.longTasks} |`;
   });
+  const part = (b: Breakdown) => `${ms(b.wall)} / ${ms(b.cpu)} | ${ms(b.parts.script)} | ${ms(b.parts.gc)} | ${ms(b.parts.style)} | ${ms(b.parts.layout)} | ${ms(b.parts.paint)} | ${ms(b.idle)}`;
+  const traceRows = traced.flatMap((t) => [
+    `| ${t.target.name} | median | ${part(t.median)} |`,
+    `| | slowest (${ms(t.worstSpan)} ms) | ${part(t.worst)} |`,
+  ]);
   const initial = bundles.initial!;
   const routeRows = bundles.routes.map((r) => `| \`${r.route}\` | ${r.files} | ${kb(r.raw)} | ${kb(r.transfer)} |`);
   const text = `# Front-end performance
@@ -225,6 +381,25 @@ Target: recompute + DOM under one frame (${FRAME_MS} ms). The test fails if the 
 | Page | updates | engine median (ms) | recompute + DOM median (ms) | p95 (ms) | max (ms) | to next frame median (ms) | long tasks |
 |---|---|---|---|---|---|---|---|
 ${rows.join('\n')}
+
+## Where the time goes
+
+A second pass types the same keystrokes with a Chromium performance trace running
+(\`browser.startTracing\`, categories devtools.timeline, blink.user_timing, v8) and splits each window
+from the \`sw-recompute-start\` mark to the next frame into the renderer main thread's tasks:
+**tasks** = wall time of the tasks in the window / the CPU time the thread really got (the
+difference is time the operating system gave to other processes); **script** = what is left of
+the tasks after GC, style, layout and paint (the engine, signals, Angular's change detection,
+D3 path strings); **idle** = time in the window with no task running (the debounce timer's and
+the frame's scheduling). Tracing itself slows the page a little, so read the shares, not the sums.
+The median window and the slowest one are shown per page.
+
+| Page | window | tasks wall / cpu (ms) | script | GC | style | layout | paint | idle |
+|---|---|---|---|---|---|---|---|---|
+${traceRows.join('\n')}
+
+${pageSplits.length ? `Finer splits the pages record themselves (\`performance.measure\`, whole page life incl. loading):\n\n| Page | measure | count | median (ms) | max (ms) |\n|---|---|---|---|---|\n${pageSplits.map((p) => `| \`${p.route}\` | \`${p.name}\` | ${p.count} | ${p.median.toFixed(2)} | ${p.max.toFixed(2)} |`).join('\n')}\n` : ''}
+${keptFindings()}
 
 ## JavaScript per route
 

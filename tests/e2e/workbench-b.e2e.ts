@@ -5,7 +5,7 @@
  */
 import type { Browser, Page } from 'playwright-core';
 
-import { DESKTOP, type OpenPage, TABLET, describeViolations, launch, openPage, screenshot, seriousA11yViolations, signInByApi } from '../support/browser';
+import { DESKTOP, type OpenPage, PHONE, TABLET, describeViolations, launch, openPage, screenshot, seriousA11yViolations, signInByApi } from '../support/browser';
 
 // testTimeout in jest.config.js is a global option and is not applied per project.
 jest.setTimeout(60_000);
@@ -79,6 +79,63 @@ async function shoot(page: Page, name: string): Promise<void> {
   await screenshot(page, name);
 }
 
+/**
+ * Pairs of labels in a drawing whose boxes overlap, and labels that cover an arrow head of another
+ * dimension, as text ("a × b"); empty when everything reads clear.
+ */
+async function drawingOverlaps(page: Page, svg: string): Promise<string[]> {
+  return page.locator(svg).evaluate((root) => {
+    const boxes = Array.from(root.querySelectorAll('text'))
+      .filter((t) => (t.textContent ?? '').trim())
+      .map((t) => ({ name: (t.textContent ?? '').trim(), r: t.getBoundingClientRect() }));
+    const hit = (a: DOMRect, b: DOMRect, inset: number) =>
+      a.left + inset < b.right && b.left + inset < a.right && a.top + inset < b.bottom && b.top + inset < a.bottom;
+    const out: string[] = [];
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) if (hit(boxes[i].r, boxes[j].r, 2)) out.push(`${boxes[i].name} × ${boxes[j].name}`);
+    }
+    // The angle's own text may not sit on any dimension's arrows (the arc's arrows are its own).
+    for (const label of Array.from(root.querySelectorAll('text.angle-text'))) {
+      const r = label.getBoundingClientRect();
+      for (const a of Array.from(root.querySelectorAll('g[swdimension] path.arrow'))) {
+        const ar = a.getBoundingClientRect();
+        // An arrow path holds both heads; test each end's 12 px square.
+        const ends = [new DOMRect(ar.left, ar.top, 12, 12), new DOMRect(ar.right - 12, ar.bottom - 12, 12, 12)];
+        if (ends.some((e) => hit(r, e, 1))) out.push(`${(label.textContent ?? '').trim()} × arrow`);
+      }
+    }
+    return out;
+  });
+}
+
+/** The message under the field with this label, once it shows. */
+async function fieldMessage(page: Page, label: string): Promise<string> {
+  const error = page.locator('mat-form-field', { has: page.getByLabel(label, { exact: true }) }).locator('mat-error');
+  await error.first().waitFor({ timeout: 5_000 });
+  return (await error.first().innerText()).trim();
+}
+
+/**
+ * Types each value into a field and expects a clear message under it (never NaN, Infinity or a
+ * stack trace) and no broken drawing; `ok` values must give results instead.
+ */
+async function expectSaneInput(page: Page, label: string, bad: readonly string[], ok: readonly string[] = []): Promise<void> {
+  for (const text of bad) {
+    await type(page, label, text);
+    const message = await fieldMessage(page, label).catch(() => {
+      throw new Error(`${label} = "${text}" should show a message by the field`);
+    });
+    expect(message.length).toBeGreaterThan(5);
+    expect(message).not.toMatch(/NaN|Infinity|undefined|TypeError|at \w+ \(/);
+  }
+  for (const text of ok) {
+    await type(page, label, text);
+    await page.locator('sw-results .result').first().waitFor({ timeout: 5_000 });
+  }
+  const body = await page.locator('sw-calc-page').innerText();
+  expect(body).not.toMatch(/NaN|Infinity/);
+}
+
 describe('angle-blocks page', () => {
   let o: Awaited<ReturnType<typeof open>>;
   beforeEach(async () => {
@@ -120,6 +177,23 @@ describe('angle-blocks page', () => {
     await expectResult(page, 'Blocks', '3° − 1°');
     await page.waitForURL(/[?&]angle=2(&|$)/);
     expect(realProblems(o)).toEqual([]);
+  });
+
+  it('should give a clear message for nonsense angles', async () => {
+    const { page } = o;
+    await page.goto('/angle-blocks');
+    await expectResult(page, 'Error', '0.00');
+    await expectSaneInput(page, 'Wanted angle', ['abc', '-5', '0', '1e400', '361', ''], ['90', '45°30\'']);
+    expect(realProblems(o)).toEqual([]);
+  });
+
+  it('should lay out at phone width', async () => {
+    await o.context.close();
+    o = await open(PHONE);
+    await o.page.goto('/angle-blocks');
+    await expectResult(o.page, 'Error', '0.00');
+    await shoot(o.page, 'angle-blocks-phone');
+    await expectCleanPage(o);
   });
 
   it('should total a typed combination with reversed blocks', async () => {
@@ -194,6 +268,40 @@ describe('lathe-tapers page', () => {
     expect(realProblems(o)).toEqual([]);
   });
 
+  it('should keep the half-angle label clear of the small-end arrows at 1280, 768 and 390 px', async () => {
+    for (const [viewport, suffix] of [[DESKTOP, 'desktop'], [TABLET, 'tablet'], [PHONE, 'phone']] as const) {
+      await o.context.close();
+      o = await open(viewport);
+      await o.page.goto('/lathe-tapers');
+      await expectResult(o.page, 'Taper per foot', '0.60235');
+      await expect(o.page.locator('sw-lathe-work-drawing text.angle-text').textContent()).resolves.toContain(`1°26'16"`);
+      expect(await drawingOverlaps(o.page, 'sw-lathe-work-drawing svg')).toEqual([]);
+      await shoot(o.page, `lathe-tapers-labels-${suffix}`);
+    }
+  });
+
+  it('should give a clear message for nonsense in every field kind', async () => {
+    const { page } = o;
+    await page.goto('/lathe-tapers');
+    await expectResult(page, 'Taper per foot', '0.60235');
+    await expectSaneInput(page, 'Work length between centres', ['abc', '-8', '0', '1e400'], ['8']);
+    await page.getByLabel('The taper is given as').click();
+    await page.getByRole('option', { name: 'Included angle' }).click();
+    // With the angle given, two of the three sizes complete the taper.
+    await type(page, 'Small diameter', '');
+    await expectSaneInput(page, 'Included angle', ['steep', '-3', '0', '180', ''], ['2.8754']);
+    // 90° is a fair angle but no taper 3.1875 long from Ø 0.938: a message, not a drawing of nonsense.
+    await type(page, 'Included angle', '90');
+    await page.locator('mat-error, sw-warnings .problem').first().waitFor();
+    await expect(page.locator('sw-calc-page').innerText()).resolves.not.toMatch(/NaN|Infinity/);
+    await type(page, 'Included angle', '2.8754');
+    await page.getByLabel('The taper is given as').click();
+    await page.getByRole('option', { name: 'Two diameters and the length' }).click();
+    await type(page, 'Small diameter', '0.778');
+    await expectSaneInput(page, 'Large diameter', ['big', '-1', '0'], ['0.938']);
+    expect(realProblems(o)).toEqual([]);
+  });
+
   it('should convert the lengths to millimetres', async () => {
     const { page } = o;
     await page.goto('/lathe-tapers');
@@ -214,6 +322,12 @@ describe('lathe-tapers page', () => {
   });
 });
 
+/** Picks what the pins-and-rolls page measures. */
+async function chooseKind(page: Page, name: string): Promise<void> {
+  await page.getByLabel('What is measured').click();
+  await page.getByRole('option', { name }).click();
+}
+
 describe('pins-rolls page', () => {
   let o: Awaited<ReturnType<typeof open>>;
   beforeEach(async () => {
@@ -230,7 +344,7 @@ describe('pins-rolls page', () => {
     await expectResult(page, 'Reading over the rolls', '2.2745 in');
     const svg = page.locator('sw-roll-drawing svg');
     expect(await svg.locator('circle.roll').count()).toBe(2);
-    await expect(svg.locator('.dim-text').allTextContents()).resolves.toEqual(expect.arrayContaining(['x 2.2745 in', 'a 1.2500 in']));
+    await expect(svg.locator('.dim-text').allTextContents()).resolves.toEqual(expect.arrayContaining(['stop at x 2.2745 in', 'a 1.2500 in']));
     await shoot(page, 'pins-rolls-desktop');
     await page.getByText('Show the work').click();
     await expect(page.locator('.step').first().textContent()).resolves.toContain('1 + cot(α/2)');
@@ -254,11 +368,79 @@ describe('pins-rolls page', () => {
   it('should give a pin’s height in a V-groove', async () => {
     const { page } = o;
     await page.goto('/pins-rolls');
-    await page.getByRole('radio', { name: 'V-groove' }).click();
+    await chooseKind(page, 'Pin in a V-groove');
     // Derived: 0.25 / sin 45° + 0.25 − 0.5 = 0.1036 (REFERENCE.md §5, plain geometry).
     await expectResult(page, 'Pin top over the surface', '0.1036 in');
     expect(await page.locator('sw-roll-drawing circle.roll').count()).toBe(1);
     await shoot(page, 'pins-rolls-vgroove-desktop');
+    await expectCleanPage(o);
+  });
+
+  it('should work back from a measured reading to what is left to cut', async () => {
+    const { page } = o;
+    await page.goto('/pins-rolls');
+    await page.getByRole('radio', { name: 'From a measured reading' }).click();
+    await type(page, 'Measured over the rolls x', '2.2900');
+    // REFERENCE.md §5.1: at a = 1.250 the reading is 2.2745; 2.2900 − 2.2745 = 0.0155 left (derived).
+    await expectResult(page, 'Left to cut on the width', '0.0155 in');
+    expect(await result(page, 'Corner width a now')).toBe('1.2655 in');
+    await expect(page.locator('.stop-value').innerText()).resolves.toBe('2.2745 in');
+    await expect(page.locator('.stop-left').innerText()).resolves.toContain('0.0155 in left to cut');
+    await expect(page.locator('sw-roll-drawing .dim-text').allTextContents()).resolves.toEqual(expect.arrayContaining(['stop at x 2.2745 in']));
+    await shoot(page, 'pins-rolls-check-desktop');
+    await page.getByText('Show the work').click();
+    await expect(page.locator('.step', { hasText: 'Left to cut on the width' }).textContent()).resolves.toContain('2.2900 − 2.2745');
+    await expectCleanPage(o);
+  });
+
+  for (const [kind, label, value, shot] of [
+    ['Dovetail angle from two roll sizes', 'Corner width a', '1.2500 in', 'pins-rolls-dovetail-angle'],
+    ['Taper from readings at two heights', 'Taper per foot', '0.60000 in/ft', 'pins-rolls-two-heights'],
+    ['Taper set by two discs', 'Taper per foot', '2.00698 in/ft', 'pins-rolls-discs'],
+    ['Internal taper with two balls', 'Taper per foot', '4.05674 in/ft', 'pins-rolls-balls'],
+  ] as const) {
+    it(`should measure "${kind}" and draw it clear at 1280, 768 and 390 px`, async () => {
+      // Check values: dovetail angle from REFERENCE.md §5.1 (derived); two heights 24 × 0.1/(2 × 2) (derived);
+      // two discs Machinery's Handbook 31 p. 701; two balls 24/√35 from sin(α/2) = 0.25/1.5 (derived).
+      for (const [viewport, suffix] of [[DESKTOP, 'desktop'], [TABLET, 'tablet'], [PHONE, 'phone']] as const) {
+        await o.context.close();
+        o = await open(viewport);
+        const { page } = o;
+        await page.goto('/pins-rolls');
+        await chooseKind(page, kind);
+        await expectResult(page, label, value);
+        const svg = page.locator('sw-roll-drawing svg');
+        await expect(svg.locator('text.angle-text').textContent()).resolves.toMatch(/^α/);
+        expect(await drawingOverlaps(page, 'sw-roll-drawing svg')).toEqual([]);
+        await shoot(page, `${shot}-${suffix}`);
+        await expectCleanPage(o);
+      }
+    });
+  }
+
+  it('should give a clear message for nonsense in every field kind', async () => {
+    const { page } = o;
+    await page.goto('/pins-rolls');
+    await expectSaneInput(page, 'Dovetail angle α', ['abc', '-30', '0', '90', '1e400', ''], ['45']);
+    await expectSaneInput(page, 'Roll diameter D', ['x', '-0.375', '0', '', '99999999999'], ['0.375']);
+    await expectSaneInput(page, 'Corner width a', ['one', '-1', ''], ['1.250', '12345678.9']);
+    await chooseKind(page, 'Pin in a V-groove');
+    await expectSaneInput(page, 'Included angle β', ['abc', '0', '180', '-90', ''], ['90']);
+    await chooseKind(page, 'Taper from readings at two heights');
+    await expectSaneInput(page, 'Height difference ΔH', ['h', '0', '-2', ''], ['2']);
+    await expectSaneInput(page, 'Upper reading M₂', ['1.2500'], ['1.15']);
+    await chooseKind(page, 'Internal taper with two balls');
+    await expectSaneInput(page, 'Its top below the face h₂', ['deep', '0.1'], ['2']);
+    expect(realProblems(o)).toEqual([]);
+  });
+
+  it('should lay out at phone width', async () => {
+    await o.context.close();
+    o = await open(PHONE);
+    await o.page.goto('/pins-rolls');
+    await expectResult(o.page, 'Reading over the rolls', '2.2745');
+    expect(await drawingOverlaps(o.page, 'sw-roll-drawing svg')).toEqual([]);
+    await shoot(o.page, 'pins-rolls-phone');
     await expectCleanPage(o);
   });
 

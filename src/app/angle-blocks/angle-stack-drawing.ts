@@ -6,6 +6,7 @@ import { hostWidth } from '../drawing/element-width';
 import { hatchPath, polygonPath, polylinePath } from '../drawing/shapes';
 import { type Point, type ViewFit, fitView } from '../drawing/view-fit';
 import { type StackBlockInput, type StackPoint, angleStackGeometry } from './angle-stack-geometry';
+import { timed } from './timed';
 
 /** One block as drawn: outline, hatching (reversed blocks), direction mark and label, in view units. */
 interface BlockView {
@@ -81,7 +82,7 @@ export class AngleStackDrawing {
   private readonly width = hostWidth();
 
   /** The stack's geometry in drawing units. */
-  protected readonly shape = computed(() => angleStackGeometry(this.stack()));
+  protected readonly shape = computed(() => timed('sw-angle-stack-geometry', () => angleStackGeometry(this.stack())));
 
   /** The stack fitted into a view box as wide as the drawing's space. */
   protected readonly fit = computed<ViewFit>(() => {
@@ -99,7 +100,7 @@ export class AngleStackDrawing {
   protected readonly blockViews = computed<BlockView[]>(() => {
     const view = this.toView();
     const scale = this.fit().scale;
-    return this.shape().blocks.map((b) => {
+    return timed('sw-angle-stack-paths', () => this.shape().blocks.map((b) => {
       const outline = b.outline.map(view);
       return {
         outline: polygonPath(outline),
@@ -109,7 +110,7 @@ export class AngleStackDrawing {
         text: b.reversed ? `−${b.label}` : b.label,
         reversed: b.reversed,
       };
-    });
+    }));
   });
 
   /** The surface plate's line. */

@@ -99,6 +99,9 @@ export function latheRequest(v: LatheTapersForm): LatheTaperRequest {
 
 /** Runs the engine on the form's values; the offset method needs the work length. */
 export function latheCalc(v: LatheTapersForm): CalcResult<LatheTaperResult> {
+  // An empty definer would let the engine fall back to the diameters and name the wrong field.
+  if (v.define === 'angle' && !v.includedAngle.trim()) return invalid(AREA, 'includedAngle', 'is required: type the included angle');
+  if (v.define === 'tpf' && !v.taperPerFoot.trim()) return invalid(AREA, 'taperPerFoot', 'is required: type the taper per foot');
   if (v.method === 'offset' && !v.workLength.trim()) return invalid(AREA, 'workLength', 'is required for the tail-stock offset');
   return calculateLatheTaper(latheRequest(v));
 }
@@ -159,7 +162,10 @@ export default class LatheTapersPage {
     if (!r) return null;
     const k = Number(r.taperPerInch);
     const method = this.raw().method;
-    const L = r.tailstockOffset !== null ? Number(this.raw().workLength) : undefined;
+    // The values the answer was worked from, not the form's latest text: between a keystroke and
+    // the recompute the field may hold text that is not a number yet.
+    const worked = Number(this.calc.values().workLength);
+    const L = r.tailstockOffset !== null && Number.isFinite(worked) && worked > 0 ? worked : undefined;
     const offset = r.tailstockOffset !== null ? Number(r.tailstockOffset) : undefined;
     if (r.largeDiameter !== null && r.smallDiameter !== null && r.length !== null) {
       return {
@@ -185,7 +191,7 @@ export default class LatheTapersPage {
       texts.small = `Ø ${r.smallDiameter} ${u}`;
       texts.taper = `${r.length} ${u}`;
     }
-    if (r.tailstockOffset !== null) texts.work = `L ${this.raw().workLength} ${u}`;
+    if (r.tailstockOffset !== null) texts.work = `L ${this.calc.values().workLength} ${u}`;
     if (r.tailstockOffset !== null && this.raw().method === 'offset') texts.offset = `offset ${r.tailstockOffset} ${u}`;
     return texts;
   });
@@ -209,7 +215,7 @@ export default class LatheTapersPage {
     };
     if (r.tailstockOffset !== null) {
       const offset: ResultItem = {
-        label: 'Tail-stock offset', value: r.tailstockOffset, unit: u, note: `For ${this.raw().workLength} ${u} between centres`, emphasis: !compound,
+        label: 'Tail-stock offset', value: r.tailstockOffset, unit: u, note: `For ${this.calc.values().workLength} ${u} between centres`, emphasis: !compound,
       };
       items.push(...(compound ? [half, offset] : [offset, half]));
     } else {

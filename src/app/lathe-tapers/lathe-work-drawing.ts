@@ -1,10 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
-import { type AngleArcGeometry, type DimensionGeometry, angleArc, dimensionLine } from '../drawing/dimension';
+import { type AngleArcGeometry, type DimensionGeometry, angleArc, dimensionLine, polarPoint } from '../drawing/dimension';
 import { AngleArcMark, DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
-import { hatchPath, polygonPath, polylinePath } from '../drawing/shapes';
+import { hatchPath, polygonPath, polylinePath, segmentsPath } from '../drawing/shapes';
 import { type Point, type ViewFit, fitView } from '../drawing/view-fit';
+import { type Box, type PlacedLabel, boxAround, nearestOnBox, placeLabel, rotatedTextBox, textBox } from '../pins-rolls/label-placement';
 import { type LatheDimensionKey, type LathePoint, type LatheWorkInput, latheWorkGeometry } from './lathe-work-geometry';
 
 /** Text of each dimension, by key (a missing key leaves that dimension off). */
@@ -50,6 +51,8 @@ const MIN_OFFSET = 22;
         }
         @if (arc(); as a) {
           <g [swAngleArc]="a" />
+          <path class="leader" [attr.d]="angleLabel().leader" />
+          <text class="angle-text" [attr.x]="angleLabel().x" [attr.y]="angleLabel().y" [attr.text-anchor]="angleLabel().anchor">{{ angleText() }}</text>
         }
       </svg>
       @if (nominal()) {
@@ -74,6 +77,11 @@ const MIN_OFFSET = 22;
     .feed-head { fill: #47464f; }
     .dia-text {
       font-size: 14px; font-weight: 600; fill: #0b4f6c; paint-order: stroke; stroke: #ffffff; stroke-width: 4px; stroke-linejoin: round;
+    }
+    .leader { stroke: #8a4b00; stroke-width: 0.75; fill: none; }
+    .angle-text {
+      fill: #8a4b00; font-size: 14px; font-weight: 600; dominant-baseline: middle;
+      paint-order: stroke; stroke: #ffffff; stroke-width: 4px; stroke-linejoin: round;
     }
     .side-note { font-size: 12px; fill: var(--mat-sys-on-surface-variant); text-anchor: start; }
     .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); padding-top: 4px; }
@@ -174,7 +182,62 @@ export class LatheWorkDrawing {
   protected readonly arc = computed<AngleArcGeometry | null>(() => {
     const a = this.shape().angle;
     if (Math.abs(a.toDeg - a.fromDeg) < 1e-9) return null;
-    return angleArc(this.toView()(a.vertex), Math.max(30, a.radius * this.fit().scale), a.fromDeg, a.toDeg, this.angleText());
+    return angleArc(this.toView()(a.vertex), Math.max(30, a.radius * this.fit().scale), a.fromDeg, a.toDeg, '');
+  });
+
+  /**
+   * The angle's text where it covers no dimension, diameter, tool, slide or centre: just past the
+   * arc first, then below or above the work, with a leader to the arc when it had to move away.
+   */
+  protected readonly angleLabel = computed<PlacedLabel & { leader: string }>(() => {
+    const a = this.shape().angle;
+    const fit = this.fit();
+    const c = this.toView()(a.vertex);
+    const radius = Math.max(30, a.radius * fit.scale);
+    const mid = (a.fromDeg + a.toDeg) / 2;
+    const onArc = polarPoint(c, radius, mid);
+    const end = polarPoint(c, radius, a.toDeg);
+    const text = this.angleText();
+    const candidates = [0, 16, 34, 56, 80].flatMap((down) => [
+      { x: end.x + 8, y: end.y + 16 + down, anchor: 'start' as const },
+      { x: end.x - 8, y: end.y + 16 + down, anchor: 'end' as const },
+      { x: onArc.x, y: onArc.y + 18 + down, anchor: 'middle' as const },
+      { x: c.x - 8, y: c.y + 16 + down, anchor: 'end' as const },
+      { x: end.x + 8, y: end.y - 20 - down, anchor: 'start' as const },
+      { x: c.x - 8, y: c.y - 20 - down, anchor: 'end' as const },
+    ]);
+    const placed = placeLabel(text, candidates, this.obstacles(), { x: 2, y: 2, width: fit.width - 4, height: fit.height - 4 });
+    const to = nearestOnBox(placed.box, onArc);
+    const far = Math.hypot(to.x - onArc.x, to.y - onArc.y) > 14;
+    return { ...placed, leader: far ? segmentsPath([[onArc, to]]) : '' };
+  });
+
+  /** What the angle's text must not cover. */
+  private readonly obstacles = computed<Box[]>(() => {
+    const v = this.toView();
+    const s = this.shape();
+    const boxes: Box[] = [];
+    for (const d of this.dimensions()) boxes.push(rotatedTextBox(d.geometry.label.x, d.geometry.label.y, d.geometry.label.rotate, d.geometry.label.text));
+    // Dimension lines and their arrows, from the measured points and offsets.
+    for (const dim of s.dimensions) {
+      const a = v(dim.from);
+      const b = v(dim.to);
+      const len = Math.hypot(b.x - a.x, b.y - a.y);
+      if (!(len > 0)) continue;
+      const own = this.dimensions().find((d) => d.key === dim.key);
+      if (!own) continue;
+      const scale = this.fit().scale;
+      const off = dim.offset === 0 ? 0 : Math.sign(dim.offset) * Math.max(MIN_OFFSET, Math.abs(dim.offset) * scale);
+      const n = { x: (b.y - a.y) / len, y: -(b.x - a.x) / len };
+      boxes.push(boxAround([{ x: a.x + n.x * off, y: a.y + n.y * off }, { x: b.x + n.x * off, y: b.y + n.y * off }], 7));
+    }
+    for (const t of this.diameterLabels()) boxes.push(textBox({ x: t.x, y: t.y - 5, anchor: t.anchor as 'start' | 'middle' | 'end' }, t.text));
+    const note = this.operatorAt();
+    boxes.push(textBox({ x: note.x, y: note.y - 4, anchor: 'start' }, 'operator’s side', 7));
+    for (const outline of [s.tool, s.compound, s.feed, s.feedHead, s.headCentre, s.tailCentre]) {
+      if (outline.length) boxes.push(boxAround(outline.map(v), 3));
+    }
+    return boxes;
   });
 
   /** The drawing's accessible name. */

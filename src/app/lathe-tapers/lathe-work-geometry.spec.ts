@@ -26,7 +26,7 @@ describe('latheWorkGeometry', () => {
 
     it('should span the half angle from the lathe axis to the cut edge at the large end', () => {
       expect(shape.arcDeg).toBe(7.125016);
-      expect(shape.angle).toEqual({ vertex: { x: 2, y: 1 }, radius: 4, fromDeg: 0, toDeg: 7.125016 });
+      expect(shape.angle).toEqual({ vertex: { x: 2, y: 1 }, radius: 3, fromDeg: 0, toDeg: 7.125016 });
     });
 
     it('should shade the stock the taper takes off on both sides', () => {

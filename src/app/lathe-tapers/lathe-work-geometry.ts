@@ -139,7 +139,7 @@ export function latheWorkGeometry(input: LatheWorkInput): LatheWorkShape {
   const D = Math.max(input.largeDiameter, 1e-9);
   const d = Math.min(Math.max(input.smallDiameter, 0), D);
   const l = Math.max(input.taperLength, 1e-9);
-  const L = Math.max(input.workLength ?? l * 1.5, l);
+  const L = Math.max(Number.isFinite(input.workLength) ? (input.workLength as number) : l * 1.5, l);
   const halfRad = Math.atan((D - d) / (2 * l));
   const e = input.method === 'offset' ? Math.min(input.offset ?? (L * (D - d)) / (2 * l), L * 0.5) : 0;
   const tilt = input.method === 'offset' ? Math.asin(e / L) : 0;
@@ -199,7 +199,8 @@ export function latheWorkGeometry(input: LatheWorkInput): LatheWorkShape {
   // The cut edge climbs toward the small end (counter-clockwise on the paper); the offset work tilts clockwise.
   const angle: LatheAngle =
     input.method === 'compound'
-      ? { vertex: cutEdge[0], radius: r6(l), fromDeg: 0, toDeg: r6(halfRad / DEG) }
+      ? // Three quarters of the taper: the arc's end stays clear of the small diameter's arrows.
+        { vertex: cutEdge[0], radius: r6(l * 0.75), fromDeg: 0, toDeg: r6(halfRad / DEG) }
       : { vertex: pt(0, 0), radius: r6(L * 0.55), fromDeg: r6(-tilt / DEG), toDeg: 0 };
   const arcDeg = input.method === 'compound' ? halfRad / DEG : tilt / DEG;
 

@@ -76,6 +76,90 @@ describe('PinsRollsPage', () => {
     expect(resultValue('Reading over the rolls')).toBe('57.773');
   });
 
+  describe('from a measured reading', () => {
+    it('should work a male dovetail back to its width now and what is left to cut', async () => {
+      await create('/pins-rolls?mode=check&reading=2.2900');
+      // Derived from REFERENCE.md §5.1: a = x − D·(1 + cot 30°) = 2.29 − 0.375 × 2.7320508 = 1.2655;
+      // at a = 1.250 the reading is 2.2745, so 2.2900 − 2.2745 = 0.0155 is left on the width.
+      expect(resultValue('Corner width a now')).toBe('1.2655');
+      expect(resultValue('Left to cut on the width')).toBe('0.0155');
+      expect(el().querySelector('.stop-value')?.textContent?.trim()).toBe('2.2745 in');
+      expect(el().querySelector('.stop-left')?.textContent).toContain('0.0155 in left to cut on the width');
+      expect(el().querySelector('sw-roll-drawing svg')?.textContent).toContain('stop at x 2.2745 in');
+    });
+
+    it('should count a female dovetail’s remaining cut the other way round', async () => {
+      await create('/pins-rolls?mode=check&side=female&rollDiameter=0.5&width=2.5&reading=1.1200&depth=');
+      // y at b = 2.500 is 1.1340 (REFERENCE.md §5.1); the rolls are 1.1200 apart now: 0.0140 to go.
+      expect(resultValue('Left to cut on the width')).toBe('0.0140');
+    });
+
+    it('should say when the work is already past the drawing size', async () => {
+      await create('/pins-rolls?mode=check&reading=2.2700');
+      expect(resultValue('Left to cut on the width')).toBe('-0.0045');
+      expect(warningText()).toContain('already 0.0045 in past the drawing size');
+    });
+
+    it('should give a V-groove’s width now and the depth left from the pin height', async () => {
+      await create('/pins-rolls?kind=v-groove&mode=check&pinHeight=0.1200');
+      // Derived: e = 0.25/sin 45° + 0.25 − 0.12 = 0.4836, W = 2e·tan 45° = 0.9671; stop at 0.1036: 0.0164 deeper.
+      expect(resultValue('Groove width now')).toBe('0.9671');
+      expect(resultValue('Left to cut on the depth')).toBe('0.0164');
+      expect(el().querySelector('.stop-value')?.textContent?.trim()).toBe('0.1036 in');
+    });
+
+    it('should ask for the reading when it is left empty or is not a number', async () => {
+      await create('/pins-rolls?mode=check');
+      await type('reading', '');
+      expect(fieldErrors()).toContain('Is required: type the reading you measured');
+      await type('reading', 'abc');
+      expect(fieldErrors()).toContain('Must be a decimal number');
+      expect(el().querySelector('sw-roll-drawing')).toBeNull();
+    });
+  });
+
+  describe('other measurements', () => {
+    it('should find a dovetail’s angle from readings over two roll sizes', async () => {
+      await create('/pins-rolls?kind=dovetail-angle');
+      // k = (2.6160 − 2.2745)/(0.500 − 0.375) = 2.732, α = 2·atan(1/(k − 1)) ≈ 60° (derived from REFERENCE.md §5.1).
+      expect(resultValue('Dovetail angle α')).toMatch(/^60°00'0\d"$/);
+      expect(resultValue('Corner width a')).toBe('1.2500');
+      const svg = el().querySelector('sw-roll-drawing svg');
+      expect(svg?.querySelectorAll('circle.roll.second')).toHaveLength(2);
+      expect(svg?.textContent).toContain('x₂ 2.6160 in');
+    });
+
+    it('should find a taper from readings over rolls at two heights', async () => {
+      await create('/pins-rolls?kind=taper-two-heights');
+      // tan(α/2) = (1.25 − 1.15)/(2 × 2) = 0.025: TPF 24 × 0.025 = 0.6 (common practice/derived).
+      expect(resultValue('Taper per foot')).toBe('0.60000');
+      expect(resultValue('Half angle (each side)')).toBe(`1°25'56"`);
+      expect(el().querySelector('sw-roll-drawing svg')?.textContent).toContain('ΔH 2.000 in');
+    });
+
+    it('should give the taper two discs set 3 in apart make', async () => {
+      await create('/pins-rolls?kind=taper-discs');
+      // Machinery's Handbook 31 p. 701: K = 0.25/3, TPF = 24K/√(1 − K²) = 2.00698.
+      expect(resultValue('Taper per foot')).toBe('2.00698');
+      await type('largeDisc', '0.4');
+      expect(fieldErrors()).toContain('Must be larger than smallDisc');
+    });
+
+    it('should find the disc centre distance for an angle', async () => {
+      await create('/pins-rolls?kind=taper-discs&discGiven=includedAngle&discAngle=10');
+      // C = ((D − d)/2) / sin 5° = 0.25 / 0.0871557 = 2.8684 (derived).
+      expect(resultValue('Centre distance of the discs')).toBe('2.8684');
+    });
+
+    it('should find an internal taper from two balls', async () => {
+      await create('/pins-rolls?kind=taper-balls');
+      // sin(α/2) = 0.25 / 1.5 → tan(α/2) = 1/√35, TPF = 24/√35 = 4.05674 (derived).
+      expect(resultValue('Taper per foot')).toBe('4.05674');
+      expect(resultValue('Centre distance of the balls')).toBe('1.5000');
+      expect(el().querySelector('sw-roll-drawing svg title')?.textContent).toContain('Internal taper');
+    });
+  });
+
   describe('trimDms', () => {
     it('should drop zero places only at the end', () => {
       expect(trimDms(`60°00'00"`)).toBe('60°');
@@ -91,6 +175,10 @@ describe('PinsRollsPage', () => {
   function resultValue(label: string): string | undefined {
     const row = Array.from(el().querySelectorAll('.result')).find((r) => r.querySelector('dt')?.textContent?.trim() === label);
     return row?.querySelector('.number')?.textContent?.trim();
+  }
+
+  function warningText(): string {
+    return Array.from(el().querySelectorAll('sw-warnings')).map((w) => w.textContent ?? '').join(' ');
   }
 
   function fieldErrors(): string {

@@ -31,10 +31,22 @@ export interface RollCircle {
   readonly radius: number;
   /** Where it touches the part (two points). */
   readonly contacts: readonly RollPoint[];
+  /** True for the second set-up of a two-reading check (drawn dashed). */
+  readonly second?: boolean;
 }
 
 /** Which dimension a line is. */
-export type RollDimensionKey = 'measurement' | 'width' | 'depth';
+export type RollDimensionKey =
+  | 'measurement'
+  | 'measurement2'
+  | 'width'
+  | 'depth'
+  | 'height'
+  | 'large'
+  | 'small'
+  | 'centres'
+  | 'largeDepth'
+  | 'smallDepth';
 
 /** A linear dimension between two points (see LatheDimension for the offset convention). */
 export interface RollDimension {
@@ -46,6 +58,11 @@ export interface RollDimension {
   readonly to: RollPoint;
   /** Distance to the dimension line, positive to the left of from→to on the paper. */
   readonly offset: number;
+  /**
+   * Extra rows of clearance on screen: a dimension stacked outside another one on the same side
+   * is drawn this many label rows further out (0 or absent: none).
+   */
+  readonly tier?: number;
 }
 
 /** An angle to mark with an arc: about `vertex`, from direction `fromDeg` to `toDeg` (counter-clockwise on the paper). */
@@ -68,8 +85,14 @@ export interface RollShape {
   readonly rolls: readonly RollCircle[];
   /** Dimensions: the measurement over/between the rolls (or the pin's height), the width and the depth. */
   readonly dimensions: readonly RollDimension[];
-  /** The angle to mark: α at the left corner, or β at the V's point. */
+  /** The angle to mark: α at the left corner, β at the V's point, or a taper's half angle. */
   readonly angle: RollAngle;
+  /** Supports drawn under the part or rolls (the surface plate, gauge-block stacks): outlines. */
+  readonly supports?: readonly (readonly RollPoint[])[];
+  /** Straight lines drawn as the part's sides where there is no part outline (a taper's straightedges). */
+  readonly sides?: readonly (readonly [RollPoint, RollPoint])[];
+  /** The taper's axis, drawn as a centre line. */
+  readonly axis?: readonly [RollPoint, RollPoint];
   /** Smallest box holding every shape and dimension line: [minX, minY, width, height]. */
   readonly bounds: readonly [number, number, number, number];
 }
@@ -98,20 +121,21 @@ export interface VGrooveInput {
   readonly grooveWidth: number;
 }
 
-const DEG = Math.PI / 180;
+/** Radians per degree. */
+export const DEG = Math.PI / 180;
 
 /** Rounds to 1e-6 so coordinates carry no float noise. */
-function r6(value: number): number {
+export function r6(value: number): number {
   const rounded = Math.round(value * 1e6) / 1e6;
   return Object.is(rounded, -0) ? 0 : rounded;
 }
 
-function pt(x: number, y: number): RollPoint {
+export function pt(x: number, y: number): RollPoint {
   return { x: r6(x), y: r6(y) };
 }
 
 /** The box around points and dimension lines. */
-function boundsOf(points: RollPoint[], dimensions: readonly RollDimension[]): [number, number, number, number] {
+export function boundsOf(points: RollPoint[], dimensions: readonly RollDimension[]): [number, number, number, number] {
   const all = [...points];
   for (const dim of dimensions) {
     const dx = dim.to.x - dim.from.x;
