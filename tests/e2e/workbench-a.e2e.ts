@@ -21,14 +21,6 @@ afterAll(async () => {
   await browser.close();
 });
 
-/**
- * Problems other than the anonymous session check: the shell asks GET /api/auth/me once, which
- * answers 401 for a visitor and Chromium logs that as a failed resource.
- */
-function realProblems(o: OpenPage): string[] {
-  return o.problems.filter((p) => !/status of 401/.test(p));
-}
-
 /** The number shown for the result with this label. */
 async function result(page: Page, label: string): Promise<string> {
   const item = page.locator('.result').filter({ has: page.locator('.result-label', { hasText: new RegExp(`^${label}$`) }) }).first();
@@ -129,7 +121,7 @@ describe('taper planner', () => {
 
     const steps = await openDerivation(page);
     expect(steps).toEqual(expect.arrayContaining(['Stock removed at the end', 'End thickness', 'Depth to stop (from the highest corner, face horizontal)']));
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -143,7 +135,7 @@ describe('taper planner', () => {
     expect(drawingBox && formBox && drawingBox.y < formBox.y).toBe(true);
     await fullScreenshot(o.page, 'taper-tablet');
     await expectAccessible(o.page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
   it('should show the taper page on a phone, drawing first', async () => {
@@ -153,7 +145,7 @@ describe('taper planner', () => {
     const width = await o.page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(390);
     await fullScreenshot(o.page, 'taper-phone');
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 });
@@ -209,7 +201,7 @@ describe('taper work-holding, label room and print', () => {
         expect(width).toBeLessThanOrEqual(viewport.width);
         await fullScreenshot(o.page, `taper-${holding}-${viewport.width}`);
       }
-      expect(realProblems(o)).toEqual([]);
+      expect(o.problems).toEqual([]);
       await o.context.close();
     });
   }
@@ -225,7 +217,7 @@ describe('taper work-holding, label room and print', () => {
     await o.page.getByLabel('Sine plate length', { exact: true }).fill('-5');
     await expectFieldMessage(o.page, 'Must be greater than 0');
     await expectAccessible(o.page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -242,7 +234,7 @@ describe('taper work-holding, label room and print', () => {
       await o.page.locator('.result-label', { hasText: label }).first().waitFor();
       expect({ name, pages: await printedPages(o.page, name) }).toEqual({ name, pages: 1 });
     }
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -272,7 +264,7 @@ describe('taper work-holding, label room and print', () => {
       await formField.locator('mat-error', { hasText: message }).waitFor({ timeout: 5_000 });
       expect(await o.page.locator('main, .mat-sidenav-content').first().innerText()).not.toMatch(/NaN|Infinity/);
     }
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 });
@@ -304,7 +296,7 @@ describe('sine bar & plate', () => {
     await expectResult(page, 'Angle', '30°00\'00"');
     const steps = await openDerivation(page);
     expect(steps).toEqual(expect.arrayContaining(['Angle', 'Sensitivity']));
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -326,7 +318,7 @@ describe('sine bar & plate', () => {
     await page.waitForFunction(() => document.querySelectorAll('table.stack-table tr.mat-mdc-row').length === 11);
     await fullScreenshot(page, 'sine-bar-table-desktop');
     await expectAccessible(page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -345,7 +337,7 @@ describe('sine bar & plate', () => {
     // asin(2.5 / 5) = 30° each; cos φ = cos² 30° = 0.75 → φ = 41°24′35″ (derived).
     await expectResult(page, 'Resultant tilt', '41°24\'35"');
     await expectAccessible(page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -358,7 +350,7 @@ describe('sine bar & plate', () => {
       expect(width).toBeLessThanOrEqual(390);
       await fullScreenshot(o.page, `sine-bar-${mode}-phone`);
     }
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -368,7 +360,7 @@ describe('sine bar & plate', () => {
     await expectResult(o.page, 'Stack height', '1.2519');
     await fullScreenshot(o.page, 'sine-bar-tablet');
     await expectAccessible(o.page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 });
@@ -399,7 +391,7 @@ describe('gauge blocks', () => {
     );
     const steps = await openDerivation(page);
     expect(steps.length).toBeGreaterThan(0);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 
@@ -409,7 +401,78 @@ describe('gauge blocks', () => {
     await o.page.locator('.result').first().waitFor();
     await fullScreenshot(o.page, 'gauge-blocks-tablet');
     await expectAccessible(o.page);
-    expect(realProblems(o)).toEqual([]);
+    expect(o.problems).toEqual([]);
+    await o.context.close();
+  });
+});
+
+describe('team inventory', () => {
+  /** The blocks of a result, as a list, and their sum in ten-thousandths. */
+  async function blocksOf(page: Page, label: string): Promise<{ blocks: string[]; sum: number }> {
+    const blocks = (await result(page, label)).split(' + ');
+    return { blocks, sum: blocks.reduce((total, b) => total + Math.round(Number(b) * 10_000), 0) };
+  }
+
+  it('should stack from the demo team box when signed in, leaving out its missing 0.1007 block', async () => {
+    const o = await openPage(browser, DESKTOP);
+    const { page, context } = o;
+    await signInByApi(context, 'machinist@demo.test');
+    // The demo seed (fixtures/demo.json) gives the team an 81-piece inch box with 0.1007 missing and 0.137 damaged.
+    const firstStack = page.waitForResponse((r) => r.url().includes('/api/inventories/gauge-sets/') && r.url().includes('target=1.2519'));
+    await page.goto('/gauge-blocks');
+    expect((await firstStack).status()).toBe(200);
+    await page.locator('.box-note', { hasText: 'From our box: Inch 81-piece set, cabinet 2' }).waitFor();
+    expect(await page.locator('mat-select[formcontrolname="set"]').innerText()).toContain('Our box: Inch 81-piece set, cabinet 2');
+    expect((await blocksOf(page, 'Fewest blocks')).sum).toBe(12_519);
+
+    // 0.2507 in: from the full standard set the fewest stack is 0.1007 + 0.150 (derived by hand from the set's sizes).
+    const asked = page.waitForResponse((r) => r.url().includes('/stack?') && new URL(r.url()).searchParams.get('target') === '0.2507');
+    await page.getByLabel('Stack length', { exact: true }).fill('0.2507');
+    expect((await asked).status()).toBe(200);
+    await page.waitForFunction(() => document.querySelector('.result .number')?.textContent?.includes('0.1') === true && !document.querySelector('.box-note [role="status"]'));
+    const fromBox = await blocksOf(page, 'Fewest blocks');
+    expect(fromBox.sum).toBe(2_507);
+    expect(fromBox.blocks).not.toContain('0.1007');
+    expect(await page.locator('.box-note .left-out').innerText()).toContain('0.1007 in (1 missing); 0.137 in (1 damaged)');
+    const drawing = await drawingTexts(page);
+    expect(drawing.texts).toEqual(expect.arrayContaining([`Fewest: ${fromBox.blocks.length} blocks`, ...fromBox.blocks, '0.2507 in']));
+    await fullScreenshot(page, 'gauge-blocks-own-box-desktop');
+    await expectAccessible(page);
+
+    // The same target from the standard set does use 0.1007.
+    await page.locator('mat-select[formcontrolname="set"]').click();
+    await page.getByRole('option', { name: 'Inch 81-piece set', exact: true }).click();
+    await page.locator('.box-note').waitFor({ state: 'detached' });
+    await page.waitForFunction(() => Array.from(document.querySelectorAll('.result .number')).some((n) => n.textContent?.includes('0.1007')));
+    const standard = await blocksOf(page, 'Fewest blocks');
+    expect(standard.blocks).toContain('0.1007');
+    expect(standard.blocks.length).toBeLessThan(fromBox.blocks.length);
+
+    // The sine bar picks the blocks under the roll from the box too: 0.2507 in under a 5 in bar.
+    await page.goto('/sine-bar?mode=stack&stackHeight=0.2507');
+    await page.locator('.box-note', { hasText: 'From our box' }).waitFor();
+    await page.waitForFunction(() => !document.querySelector('.box-note [role="status"]') && /\d/.test(document.querySelector('.result .number')?.textContent ?? ''));
+    await page.locator('svg .block-label').first().waitFor();
+    const underRoll = await blocksOf(page, 'Blocks');
+    expect(underRoll.sum).toBe(2_507);
+    expect(underRoll.blocks).not.toContain('0.1007');
+    expect(await page.locator('svg .block-label').allTextContents()).toEqual(underRoll.blocks);
+    await fullScreenshot(page, 'sine-bar-own-box-desktop');
+    expect(o.problems).toEqual([]);
+    await context.close();
+  });
+
+  it('should fit the team box note on a tablet', async () => {
+    const o = await openPage(browser, TABLET);
+    await signInByApi(o.context, 'machinist@demo.test');
+    await o.page.goto('/gauge-blocks?target=0.2507');
+    await o.page.locator('.box-note .left-out').waitFor();
+    await o.page.waitForFunction(() => !document.querySelector('.box-note [role="status"]'));
+    const width = await o.page.evaluate(() => document.documentElement.scrollWidth);
+    expect(width).toBeLessThanOrEqual(768);
+    await fullScreenshot(o.page, 'gauge-blocks-own-box-tablet');
+    await expectAccessible(o.page);
+    expect(o.problems).toEqual([]);
     await o.context.close();
   });
 });
@@ -439,8 +502,8 @@ describe('saved set-ups', () => {
     await again.page.getByText('Set-up “Wedge 12 degree trial”').waitFor();
     await expectResult(again.page, 'Depth to stop', '0.4158');
     expect(await again.page.getByLabel('Angle', { exact: true }).inputValue()).toBe('12');
-    expect(realProblems(o)).toEqual([]);
-    expect(realProblems(again)).toEqual([]);
+    expect(o.problems).toEqual([]);
+    expect(again.problems).toEqual([]);
     await again.context.close();
     await context.close();
   });

@@ -1,9 +1,12 @@
-import type { GaugeStackRequest } from '../../../shared/api/calc';
-import type { GaugeStackResult, StackAnswer } from '../../../shared/calc/gauge-stack';
+import { type GaugeStackRequest, gaugeStackRequestSchema, parseRequest } from '../../../shared/api/calc';
+import { DECIMAL_TEXT } from '../../../shared/api/setup';
+import { type GaugeStackResult, type StackAnswer, calculateGaugeStack } from '../../../shared/calc/gauge-stack';
+import { type CalcResult, invalid, succeed } from '../../../shared/calc/step';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import type { ResultItem } from '../workbench/result-list';
 import type { GaugeBlockPiece, GaugeStackSceneInput } from './gauge-stack-scene';
+import { type BoxStackQuery, boxIdOf } from './own-boxes';
 
 /** The gauge-block form's values: all text, as typed. */
 export type GaugeBlocksFormValues = {
@@ -61,6 +64,37 @@ export function toGaugeStackRequest(values: GaugeBlocksFormValues): GaugeStackRe
     grade: (values.grade || undefined) as GaugeStackRequest['grade'],
     temperature: values.temperature,
   };
+}
+
+/**
+ * What the page works from: the engine's answer in the browser for a standard set, or — for one
+ * of the team's own sets — the checked query for the inventory route (the box is server data).
+ */
+export type GaugeOutcome =
+  | { readonly source: 'engine'; readonly result: GaugeStackResult }
+  | { readonly source: 'box'; readonly query: BoxStackQuery };
+
+/** Fields the inventory route takes, checked with the engine's own rules so the messages match. */
+const boxFieldsSchema = gaugeStackRequestSchema.pick({ target: true, grade: true });
+
+/**
+ * Runs the form: a standard set through the engine; an own box only checks the fields and gives
+ * the query (stack length as typed, the box's wear-block pair when chosen, the grade or the box's
+ * own grade when blank). Never throws.
+ */
+export function runGaugeBlocks(values: GaugeBlocksFormValues): CalcResult<GaugeOutcome> {
+  const setId = boxIdOf(values.set);
+  if (setId === null) {
+    const r = calculateGaugeStack(toGaugeStackRequest(values));
+    return r.ok ? succeed({ source: 'engine', result: r.value }) : r;
+  }
+  const checked = parseRequest('Gauge stack', boxFieldsSchema, { target: values.target, grade: values.grade || undefined });
+  if (!checked.ok) return checked;
+  const target = values.target.trim();
+  // The inventory route reads plain decimals (no sign, no leading point, at most 6 decimals).
+  if (!DECIMAL_TEXT.test(target)) return invalid('Gauge stack', 'target', 'must be written with digits before the point, e.g. 0.2507 (at most 6 decimals)');
+  const query: BoxStackQuery = { setId, target, wear: values.wearBlocks !== '', ...(values.grade ? { grade: values.grade } : {}) };
+  return succeed({ source: 'box', query });
 }
 
 /** The numbers of a stack answer for the result list. */

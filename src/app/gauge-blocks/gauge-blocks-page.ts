@@ -7,7 +7,7 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 
-import { GAUGE_BLOCK_CAUTIONS, type GaugeStackResult, calculateGaugeStack } from '../../../shared/calc/gauge-stack';
+import { GAUGE_BLOCK_CAUTIONS, type GaugeStackResult } from '../../../shared/calc/gauge-stack';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -20,10 +20,14 @@ import { SaveSetup } from '../workbench/save-setup';
 import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import {
-  GAUGE_BLOCKS_DEFAULTS, GAUGE_LENGTH_FIELDS, GRADE_OPTIONS, type GaugeBlocksFormValues, gaugeResultItems, gaugeSceneInput,
-  gaugeSetsInUnit, toGaugeStackRequest,
+  GAUGE_BLOCKS_DEFAULTS, GAUGE_LENGTH_FIELDS, GRADE_OPTIONS, type GaugeBlocksFormValues, type GaugeOutcome, gaugeResultItems, gaugeSceneInput,
+  gaugeSetsInUnit, runGaugeBlocks,
 } from './gauge-blocks-form';
 import { GaugeStackDrawing } from './gauge-stack-drawing';
+import { bindOwnBoxes, boxStackState, excludedNote } from './own-boxes';
+
+/** The standard set a unit starts with. */
+const standardDefault = (unit: LengthUnit): string => gaugeSetsInUnit(unit)[0]?.id ?? '';
 
 /** Gauge blocks: the fewest-block stack from the box in wringing order, beside the last-digit method. */
 @Component({
@@ -41,13 +45,12 @@ export default class GaugeBlocksPage {
   protected readonly form = inject(NonNullableFormBuilder).group({ ...GAUGE_BLOCKS_DEFAULTS });
   /** URL query and `?setup=` in step with the form. */
   protected readonly query = bindQueryState(this.form, 'gauge-blocks');
-  /** The engine's answer, recomputed in the browser. */
-  protected readonly calc = liveCalc<GaugeBlocksFormValues, GaugeStackResult>(this.form, (v) => calculateGaugeStack(toGaugeStackRequest(v)), {
+  /** The engine's answer (standard sets), or the checked query for the team's box; recomputed after each pause in typing. */
+  protected readonly calc = liveCalc<GaugeBlocksFormValues, GaugeOutcome>(this.form, runGaugeBlocks, {
     aliases: { 'missing.0': 'missing', unit: 'set' },
   });
 
   protected readonly cautions = GAUGE_BLOCK_CAUTIONS;
-  protected readonly gradeOptions = GRADE_OPTIONS;
   protected readonly controlMessage = controlMessage;
 
   private readonly unitValue = toSignal(this.form.controls.unit.valueChanges, { initialValue: this.form.controls.unit.value });
@@ -55,18 +58,58 @@ export default class GaugeBlocksPage {
 
   /** The unit in use. */
   protected readonly unit = computed<LengthUnit>(() => (this.unitValue() === 'mm' ? 'mm' : 'in'));
-  /** Sets in the unit. */
-  protected readonly sets = computed(() => gaugeSetsInUnit(this.unit()));
+  /** The signed-in team's gauge-block sets (none for a visitor). */
+  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, standardDefault);
+  /** The team's set chosen, or null for a standard set. */
+  protected readonly ownBox = computed(() => this.boxes().find((b) => b.value === this.setValue()) ?? null);
+  /** The stack from the box, asked of the inventory route (only for a set the team's list holds). */
+  protected readonly boxState = boxStackState(
+    computed(() => {
+      const o = this.calc.value();
+      return o?.source === 'box' && this.ownBox() ? o.query : null;
+    }),
+  );
+  /** The picker: the team's own sets in the unit first, then the standard sets. */
+  protected readonly sets = computed(() => [
+    ...this.boxes().filter((b) => b.unit === this.unit()).map((b) => ({ id: b.value, name: b.label, notes: b.notes })),
+    ...gaugeSetsInUnit(this.unit()),
+  ]);
   /** What the chosen set holds. */
   protected readonly setNotes = computed(() => this.sets().find((s) => s.id === this.setValue())?.notes ?? '');
+  /** Grade choices; for the team's box a blank grade means the grade recorded for it. */
+  protected readonly gradeOptions = computed(() => {
+    const box = this.ownBox();
+    return box ? GRADE_OPTIONS.map((g) => (g.value === '' ? { value: '', label: `The box's grade (${box.grade ?? 'none recorded'})` } : g)) : GRADE_OPTIONS;
+  });
+  /** The answer shown: the engine's, or the box's (the previous one while a newer is on its way). */
+  protected readonly answer = computed<GaugeStackResult | null>(() => {
+    const o = this.calc.value();
+    if (!o) return null;
+    if (o.source === 'engine') return o.result;
+    const st = this.boxState();
+    return st.status === 'done' || st.status === 'loading' ? st.answer : null;
+  });
+  /** Whether the box's stack is being asked for. */
+  protected readonly asking = computed(() => this.calc.value()?.source === 'box' && this.boxState().status === 'loading');
+  /** Why the box cannot give the stack, for the problem list. */
+  protected readonly boxProblems = computed(() => {
+    const st = this.boxState();
+    return this.calc.value()?.source === 'box' && st.status === 'failed' ? [st.message] : [];
+  });
+  /** The blocks the inventory leaves out of the solve, as a note (empty when none). */
+  protected readonly leftOut = computed(() => {
+    const st = this.boxState();
+    const list = st.status === 'failed' ? st.excluded : st.status === 'idle' ? [] : (st.answer?.excluded ?? []);
+    return excludedNote(list, this.unit());
+  });
   /** The result list. */
   protected readonly items = computed(() => {
-    const r = this.calc.value();
+    const r = this.answer();
     return r ? gaugeResultItems(r) : [];
   });
   /** The drawing's model. */
   protected readonly scene = computed(() => {
-    const r = this.calc.value();
+    const r = this.answer();
     return r ? gaugeSceneInput(r) : null;
   });
   /** A name to start the save dialog with. */
@@ -76,7 +119,13 @@ export default class GaugeBlocksPage {
   protected changeUnit(to: LengthUnit): void {
     convertLengthControls(this.form.controls, GAUGE_LENGTH_FIELDS, this.unit(), to);
     this.form.controls.wearBlocks.setValue('', { emitEvent: false });
-    this.form.patchValue({ unit: to, set: gaugeSetsInUnit(to)[0]?.id ?? '', missing: '' });
+    const own = this.boxes().find((b) => b.unit === to);
+    this.form.patchValue({ unit: to, set: own?.value ?? standardDefault(to), missing: '' });
+  }
+
+  /** A new set: the missing list and wear blocks belonged to the old one. */
+  protected setChosen(): void {
+    this.form.patchValue({ missing: '', wearBlocks: '' });
   }
 
   /** Opens the print dialog. */

@@ -5,7 +5,7 @@ import { AngleArcMark, DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
 import { hatchPath, polygonPath, polylinePath, segmentsPath } from '../drawing/shapes';
 import { type Point, type ViewFit, fitView } from '../drawing/view-fit';
-import { type Box, type PlacedLabel, boxAround, nearestOnBox, placeLabel, rotatedTextBox, textBox } from '../pins-rolls/label-placement';
+import { type Box, type PlacedLabel, boxAround, nearestOnBox, placeLabel, rotatedTextBox, textBox } from '../drawing/label-placement';
 import { type LatheDimensionKey, type LathePoint, type LatheWorkInput, latheWorkGeometry } from './lathe-work-geometry';
 
 /** Text of each dimension, by key (a missing key leaves that dimension off). */

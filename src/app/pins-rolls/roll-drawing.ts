@@ -5,7 +5,7 @@ import { AngleArcMark, DimensionMark } from '../drawing/dimension-mark';
 import { hostWidth } from '../drawing/element-width';
 import { hatchPath, polygonPath, segmentsPath } from '../drawing/shapes';
 import { type Point, type ViewFit, fitView } from '../drawing/view-fit';
-import { type Box, type PlacedLabel, boxAround, nearestOnBox, placeLabel, rotatedTextBox } from './label-placement';
+import { type Box, type PlacedLabel, boxAround, nearestOnBox, placeLabel, rotatedTextBox } from '../drawing/label-placement';
 import { type DovetailInput, type RollDimensionKey, type RollPoint, type RollShape, type VGrooveInput, dovetailGeometry, vGrooveGeometry } from './roll-geometry';
 import {
   type BallsInput,

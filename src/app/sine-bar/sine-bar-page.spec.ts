@@ -1,8 +1,15 @@
 import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatSelect } from '@angular/material/select';
+import { By } from '@angular/platform-browser';
 import { Router, provideRouter } from '@angular/router';
 
+import type { InventorySetDto } from '../../../shared/api/inventory';
+import { calculateGaugeStack } from '../../../shared/calc/gauge-stack';
+import { findGaugeSet } from '../../../shared/data/gauge-sets';
+import { Auth } from '../core/auth';
+import { setsInUnit } from './sine-bar-form';
 import SineBarPage from './sine-bar-page';
 
 describe('SineBarPage', () => {
@@ -102,5 +109,114 @@ describe('SineBarPage', () => {
     await new Promise((resolve) => setTimeout(resolve, 150));
     fixture.detectChanges();
     await fixture.whenStable();
+  }
+});
+
+/** The demo team's inch box as GET /api/inventories lists it (demo seed: .1007 missing, .137 damaged). */
+const DEMO_BOX: InventorySetDto = {
+  id: 7, type: 'gauge-blocks', name: 'Inch 81-piece set, cabinet 2', unit: 'in', standardSet: 'inch-81', grade: '0',
+  wearBlockSize: '0.050', wearBlockCount: 2, notes: '', version: 3,
+  totals: { sizes: 81, blocks: 81, missing: 1, damaged: 1, available: 79 }, createdAt: '2026-01-01T00:00:00Z', updatedAt: '2026-01-01T00:00:00Z',
+};
+const EXCLUDED = [{ size: '0.1007', missing: 1, damaged: 0 }, { size: '0.137', missing: 0, damaged: 1 }];
+
+/** What the inventory route answers for the demo box: the shared engine on the blocks left (as the server does). */
+function boxAnswer(target: string): object {
+  const set = findGaugeSet('inch-81');
+  if (!set) throw new Error('inch-81 missing from the standard sets');
+  const gone = new Set(EXCLUDED.map((b) => Number(b.size)));
+  const r = calculateGaugeStack({ target, unit: 'in', blocks: set.blocks.filter((b) => !gone.has(Number(b.size))).map((b) => ({ size: b.size, count: b.count })) });
+  if (!r.ok) throw new Error(r.error);
+  return { ...r.value, inventory: { id: 7, name: DEMO_BOX.name, version: 3 }, excluded: EXCLUDED };
+}
+
+describe('SineBarPage with the team inventory', () => {
+  let fixture: ComponentFixture<SineBarPage>;
+  let http: HttpTestingController;
+
+  async function create(signedIn: boolean, url = '/sine-bar'): Promise<void> {
+    TestBed.configureTestingModule({
+      providers: [provideRouter([{ path: 'sine-bar', children: [] }]), provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    const loading = TestBed.inject(Auth).load();
+    http.expectOne('/api/auth/session').flush({ user: signedIn ? { id: 4, email: 'machinist@demo.test', name: 'Demo machinist', role: 'machinist' } : null });
+    await loading;
+    await TestBed.inject(Router).navigateByUrl(url);
+    fixture = TestBed.createComponent(SineBarPage);
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  afterEach(() => http.verify());
+
+  it('should offer the team box first and pick the blocks of the stack height from it', async () => {
+    // From the standard set 0.2507 in is 0.1007 + 0.150; the demo box has no 0.1007 (derived by hand).
+    await create(true, '/sine-bar?mode=stack&stackHeight=0.2507');
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await settle();
+    expect(await optionTexts()).toEqual(['No set: round to 0.0001 in', 'Our box: Inch 81-piece set, cabinet 2', ...setsInUnit('in').map((s) => s.name)]);
+    await closeSelect();
+    const req = http.expectOne((r) => r.url === '/api/inventories/gauge-sets/7/stack');
+    expect([req.request.params.get('target'), req.request.params.get('wear')]).toEqual(['0.2507', 'no']);
+    req.flush(boxAnswer('0.2507'));
+    await settle();
+    // asin(0.2507 / 5) = 2.8740° (derived).
+    expect(resultValue('Angle')).toMatch(/^2°52'/);
+    const blocks = (resultValue('Blocks') ?? '').split(' + ');
+    expect(blocks.reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0)).toBe(2_507);
+    expect(blocks).not.toContain('0.1007');
+    expect(Array.from(el().querySelectorAll('svg .block-label')).map((t) => t.textContent)).toEqual(blocks);
+    expect(el().querySelector('.box-note .left-out')?.textContent).toContain('0.1007 in (1 missing); 0.137 in (1 damaged)');
+    expect(el().querySelector('input[formcontrolname="missing"]')).toBeNull();
+  });
+
+  it('should list stacks without blocks for the box in the table, asking nothing per row', async () => {
+    await create(true, '/sine-bar?mode=table&set=box:7');
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await settle();
+    http.expectNone((r) => r.url.endsWith('/stack'));
+    expect(el().querySelectorAll('table.stack-table tr.mat-mdc-row').length).toBe(21);
+    expect(el().querySelector('.box-note')?.textContent).toContain('picked for one setting at a time');
+  });
+
+  it('should keep the standard sets only and ask nothing of the inventory for a visitor', async () => {
+    await create(false);
+    http.expectNone('/api/inventories');
+    expect(await optionTexts()).toEqual(['No set: round to 0.0001 in', ...setsInUnit('in').map((s) => s.name)]);
+    await closeSelect();
+    expect(resultValue('Stack height')).toBe('1.2519');
+    expect(el().querySelector('.box-note')).toBeNull();
+  });
+
+  function el(): HTMLElement {
+    return fixture.nativeElement as HTMLElement;
+  }
+  async function settle(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve, 150));
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+  async function optionTexts(): Promise<string[]> {
+    const select = fixture.debugElement.queryAll(By.directive(MatSelect)).find((d) => d.attributes['formControlName'] === 'set');
+    (select?.componentInstance as MatSelect).open();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    return Array.from(document.querySelectorAll('mat-option')).map((o) => o.textContent?.trim() ?? '');
+  }
+  async function closeSelect(): Promise<void> {
+    for (const d of fixture.debugElement.queryAll(By.directive(MatSelect))) (d.componentInstance as MatSelect).close();
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+  function resultValue(label: string): string | undefined {
+    const row = Array.from(el().querySelectorAll('.result')).find((r) => r.querySelector('dt')?.textContent?.trim() === label);
+    return row?.querySelector('.number')?.textContent?.trim();
+  }
+  async function type(name: string, value: string): Promise<void> {
+    const input = el().querySelector(`input[formcontrolname="${name}"]`) as HTMLInputElement;
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    await settle();
   }
 });

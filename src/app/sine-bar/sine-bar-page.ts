@@ -9,8 +9,9 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 
-import { SINE_BAR_CAUTIONS, calculateSineBar } from '../../../shared/calc/sine-bar';
+import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar } from '../../../shared/calc/sine-bar';
 import type { LengthUnit } from '../../../shared/units/length-unit';
+import { type BoxStackQuery, bindOwnBoxes, boxIdOf, boxStackState, excludedNote } from '../gauge-blocks/own-boxes';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
 import { DerivationPanel } from '../workbench/derivation-panel';
@@ -45,8 +46,13 @@ export default class SineBarPage {
   protected readonly form = inject(NonNullableFormBuilder).group({ ...SINE_BAR_DEFAULTS });
   /** URL query and `?setup=` in step with the form. */
   protected readonly query = bindQueryState(this.form, 'sine-bar');
-  /** The engine's answer, recomputed in the browser. */
-  protected readonly calc = liveCalc<SineBarFormValues, SineBarOutcome>(this.form, runSineBar, { aliases: SINE_BAR_ALIASES });
+  /**
+   * The engine's answer, recomputed in the browser. With the team's own box the engine works
+   * without a set (stack rounded to the unit's step) and the blocks come from the inventory route.
+   */
+  protected readonly calc = liveCalc<SineBarFormValues, SineBarOutcome>(this.form, (v) => runSineBar(boxIdOf(v.set) === null ? v : { ...v, set: '', missing: '' }), {
+    aliases: SINE_BAR_ALIASES,
+  });
   /** The table row shown in the drawing (index into the rows). */
   protected readonly selectedRow = signal(0);
 
@@ -68,10 +74,44 @@ export default class SineBarPage {
   protected readonly mode = computed(() => sineBarMode(this.modeValue()));
   /** Whether a compound plate is set from two angles (otherwise two stacks give the angles). */
   protected readonly compoundByAngles = computed(() => this.compoundByValue() !== 'stacks');
-  /** The single-setting answer (stack for an angle or angle from a stack), or null. */
-  protected readonly single = computed(() => {
+  /** The engine's single-setting answer, before any blocks from the team's box. */
+  private readonly engineSingle = computed(() => {
     const o = this.calc.value();
     return o && (o.mode === 'angle' || o.mode === 'stack') ? o.single : null;
+  });
+  /** The signed-in team's gauge-block sets (none for a visitor). */
+  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, defaultSet);
+  /** The team's set chosen, or null. */
+  protected readonly ownBox = computed(() => this.boxes().find((b) => b.value === this.setValue()) ?? null);
+  /** The blocks of the stack height from the team's box, asked of the inventory route (no wear blocks under a roll). */
+  private readonly boxState = boxStackState(
+    computed<BoxStackQuery | null>(() => {
+      const box = this.ownBox();
+      const r = this.engineSingle();
+      return box && r && Number(r.stackHeight) > 0 ? { setId: box.id, target: r.stackHeight, wear: false } : null;
+    }),
+  );
+  /** The single-setting answer (stack for an angle or angle from a stack), with the box's blocks for an own box; or null. */
+  protected readonly single = computed<SineBarResult | null>(() => {
+    const r = this.engineSingle();
+    if (!r || !this.ownBox()) return r;
+    if (Number(r.stackHeight) === 0) return { ...r, blocks: [], blockCount: 0 };
+    const st = this.boxState();
+    const blocks = st.status === 'done' && st.query.target === r.stackHeight ? st.answer.blocks : null;
+    return { ...r, blocks, blockCount: blocks ? blocks.length : null };
+  });
+  /** Why the box gives no blocks for the stack, or the blocks it leaves out. */
+  protected readonly boxNotes = computed(() => {
+    const box = this.ownBox();
+    if (!box) return null;
+    const st = this.boxState();
+    const gone = st.status === 'done' ? st.answer.excluded : st.status === 'failed' ? st.excluded : [];
+    return {
+      name: box.name,
+      problem: st.status === 'failed' ? st.message : null,
+      asking: st.status === 'loading',
+      leftOut: excludedNote(gone, this.unit()),
+    };
   });
   /** The table of stacks, or null. */
   protected readonly table = computed(() => {
@@ -87,13 +127,28 @@ export default class SineBarPage {
   protected readonly shownRow = computed(() => Math.min(this.selectedRow(), Math.max(0, (this.table()?.rows.length ?? 1) - 1)));
   /** Whether a set of blocks is chosen. */
   protected readonly hasSet = computed(() => this.setValue() !== '');
-  /** Sets in the unit in use. */
-  protected readonly sets = computed(() => setsInUnit(this.unit()));
+  /** Whether a standard set is chosen (the missing list belongs to it; the team's box keeps its own). */
+  protected readonly hasStandardSet = computed(() => this.hasSet() && boxIdOf(this.setValue()) === null);
+  /** The picker: the team's own sets in the unit first, then the standard sets. */
+  protected readonly sets = computed(() => [
+    ...this.boxes().filter((b) => b.unit === this.unit()).map((b) => ({ id: b.value, name: b.label })),
+    ...setsInUnit(this.unit()),
+  ]);
   /** One-tap bar lengths for the unit. */
   protected readonly barLengths = computed(() => BAR_LENGTHS[this.unit()]);
   /** The result list. */
   protected readonly items = computed(() => {
     const o = this.calc.value();
+    const single = this.single();
+    if (o && (o.mode === 'angle' || o.mode === 'stack') && single) {
+      const items = outcomeItems({ ...o, single });
+      // The box's blocks are on their way or cannot be had: say so where the blocks go.
+      if (this.ownBox() && !single.blocks) {
+        const at = items.findIndex((i) => i.label === 'Sensitivity');
+        items.splice(at < 0 ? items.length : at, 0, { label: 'Blocks', value: this.boxNotes()?.asking ? '…' : 'none from the box', unit: '', note: 'From the team\'s box' });
+      }
+      return items;
+    }
     return o ? outcomeItems(o) : [];
   });
   /** The drawing's model: the setting, or the table row shown. */
@@ -114,7 +169,7 @@ export default class SineBarPage {
     const r = this.single();
     const v = this.calc.values();
     if (!r || sineBarMode(v.mode) !== 'angle' || Number(r.angleDeg) <= 45) return null;
-    const other = calculateSineBar({ ...toSineBarRequest(v), angle: r.complementDeg });
+    const other = calculateSineBar({ ...toSineBarRequest(boxIdOf(v.set) === null ? v : { ...v, set: '', missing: '' }), angle: r.complementDeg });
     return other.ok ? other.value : null;
   });
   /** The complement drawing's model. */
@@ -140,7 +195,13 @@ export default class SineBarPage {
   /** Converts the lengths, switches the unit and picks a set in the new unit. */
   protected changeUnit(to: LengthUnit): void {
     convertLengthControls(this.form.controls, SINE_BAR_LENGTH_FIELDS, this.unit(), to);
-    this.form.patchValue({ unit: to, set: this.hasSet() ? defaultSet(to) : '', missing: '' });
+    const own = this.boxes().find((b) => b.unit === to);
+    this.form.patchValue({ unit: to, set: this.hasSet() ? (own?.value ?? defaultSet(to)) : '', missing: '' });
+  }
+
+  /** A new set: the missing list belonged to the old one. */
+  protected setChosen(): void {
+    this.form.controls.missing.setValue('');
   }
 
   /** Sets the bar length to a standard one. */

@@ -8,7 +8,9 @@ import { MatIcon } from '@angular/material/icon';
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (items().length) {
-      <ul class="warnings" [class.problem]="tone() === 'problem'" role="alert">
+      <!-- The live region wraps the list: role="alert" on the <ul> itself would hide its list semantics. -->
+      <div role="alert">
+      <ul class="warnings" [class.problem]="tone() === 'problem'">
         @for (text of items(); track text) {
           <li class="warning">
             <mat-icon aria-hidden="true">{{ tone() === 'problem' ? 'error' : 'warning' }}</mat-icon>
@@ -16,6 +18,7 @@ import { MatIcon } from '@angular/material/icon';
           </li>
         }
       </ul>
+      </div>
     }
   `,
   styles: `
