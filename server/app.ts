@@ -2,7 +2,6 @@ import path from 'node:path';
 import fs from 'node:fs';
 import express, { type Express } from 'express';
 import session from 'express-session';
-import connectSessionSequelize from 'connect-session-sequelize';
 import helmet from 'helmet';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
@@ -26,6 +25,7 @@ import { createTeamAdminRouter } from './routes/team-admin';
 import { createTeamExportRouter } from './routes/team-export';
 import { createTrainingRouter } from './routes/training';
 import { configureMail } from './services/mailer';
+import { createSessionStore } from './services/session-store';
 
 /** Name of the session cookie (not the library's default). */
 export const SESSION_COOKIE = 'slantwise.sid';
@@ -68,18 +68,8 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
     }),
   );
 
-  const SequelizeStore = connectSessionSequelize(session.Store);
-  const store = new SequelizeStore({
-    db: sequelize,
-    table: 'Session',
-    checkExpirationInterval: 15 * 60_000,
-    expiration: config.sessionIdleMs,
-    extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { userId?: number }) => ({
-      data: defaults.data,
-      expires: defaults.expires,
-      userId: sess.userId ?? null,
-    }),
-  });
+  const sessions = createSessionStore(sequelize, config.sessionIdleMs);
+  const store = sessions.store;
 
   app.use('/api', express.json({ limit: '100kb' }));
   app.use('/api/health', createHealthRouter(sequelize));
@@ -145,6 +135,6 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
 
   return {
     app,
-    close: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions(),
+    close: () => sessions.stop(),
   };
 }

@@ -119,6 +119,13 @@ describe('sign-out and /me', () => {
     await c.agent.get('/api/auth/me').expect(401);
   });
 
+  it('ends a session on the server once its idle expiry has passed', async () => {
+    const c = await client(t.app, m.admin);
+    await c.agent.get('/api/auth/me').expect(200);
+    await Session.update({ expires: new Date(Date.now() - 1000) }, { where: { userId: m.admin.id } });
+    await c.agent.get('/api/auth/me').expect(401);
+  });
+
   it('ends the session of a member deactivated while signed in', async () => {
     const extra = await User.create({ teamId: m.team.id, email: `late.${m.team.id}@example.test`, name: 'Late', role: 'machinist', passwordHash: m.lead.passwordHash });
     const c = await client(t.app, extra);
