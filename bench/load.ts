@@ -42,7 +42,10 @@ interface Row {
   s5xx: number;
 }
 
+const ONLY = process.env['BENCH_ROUTES']?.split(',');
+
 async function load(name: string, opts: autocannon.Options): Promise<Row> {
+  if (ONLY && !name.startsWith('bare') && !ONLY.some((part) => name.includes(part))) return { name, rps: 0, p50: 0, p99: 0, errors: 0, non2xx: 0, s5xx: 0 };
   const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
   const row: Row = {
     name,
@@ -89,8 +92,9 @@ async function main(): Promise<void> {
     console.log(`Seeded ${SETUPS} set-ups in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 
     const appPort = await freePort();
+    const profile = process.env['BENCH_PROFILE'] ? ['--cpu-prof', `--cpu-prof-dir=${process.env['BENCH_PROFILE']}`] : [];
     const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000' };
-    children.push(await startChild(['--import', 'tsx', 'server/main.ts'], env, /listening/));
+    children.push(await startChild([...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/));
     const barePort = await freePort();
     children.push(await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort) }, /LISTENING/));
     const base = `http://127.0.0.1:${appPort}`;
@@ -134,7 +138,11 @@ async function main(): Promise<void> {
     check(list.p99 < 100, `${list.name}: p99 ${list.p99} ms (< 100 ms)`);
     check(rows.every((r) => r.non2xx === 0), 'every answer was 2xx');
   } finally {
-    for (const c of children) c.kill('SIGTERM');
+    for (const c of children) {
+      const exited = new Promise((r) => c.once('exit', r));
+      c.kill('SIGTERM');
+      await exited;
+    }
     await mariadb.stop();
     fs.rmSync(dir, { recursive: true, force: true });
   }

@@ -8,7 +8,7 @@ export function createSequelize(config: AppConfig['db']): Sequelize {
     port: config.port,
     dialect: 'mariadb',
     logging: false,
-    pool: { max: 10, min: 0, idle: 10_000, acquire: 10_000 },
+    pool: { max: Number(process.env['DB_POOL_MAX'] ?? 10) || 10, min: 0, idle: 10_000, acquire: 10_000 },
     timezone: '+00:00',
     dialectOptions: { connectTimeout: 5_000 },
     define: { underscored: false },
