@@ -1,28 +1,14 @@
-import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
-import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import { Router, provideRouter } from '@angular/router';
-
+import { pageSpec } from '../workbench/testing/page-spec-harness';
 import PinsRollsPage, { trimDms } from './pins-rolls-page';
 
 describe('PinsRollsPage', () => {
-  let fixture: ComponentFixture<PinsRollsPage>;
-
-  async function create(url = '/pins-rolls'): Promise<void> {
-    TestBed.configureTestingModule({
-      providers: [provideRouter([{ path: 'pins-rolls', children: [] }]), provideHttpClient(), provideHttpClientTesting()],
-    });
-    await TestBed.inject(Router).navigateByUrl(url);
-    fixture = TestBed.createComponent(PinsRollsPage);
-    fixture.detectChanges();
-    await fixture.whenStable();
-  }
+  const page = pageSpec(PinsRollsPage, 'pins-rolls');
 
   it('should show the demo dovetail’s reading over the rolls and draw it', async () => {
-    await create();
+    await page.open();
     // REFERENCE.md §5.1, Machinery's Handbook "Measuring dovetail slides": 60°, D 0.375, a 1.250 → 2.2745.
-    expect(resultValue('Reading over the rolls')).toBe('2.2745');
-    const svg = el().querySelector('sw-roll-drawing svg');
+    expect(page.resultValue('Reading over the rolls')).toBe('2.2745');
+    const svg = page.el.querySelector('sw-roll-drawing svg');
     expect(svg?.querySelector('title')?.textContent).toContain('Male dovetail');
     expect(svg?.querySelectorAll('circle.roll')).toHaveLength(2);
     expect(svg?.textContent).toContain('x 2.2745 in');
@@ -30,133 +16,133 @@ describe('PinsRollsPage', () => {
   });
 
   it('should recompute as the user types a roll size', async () => {
-    await create();
-    await type('rollDiameter', '0.5');
-    await type('width', '2');
+    await page.open();
+    await page.type('rollDiameter', '0.5');
+    await page.type('width', '2');
     // REFERENCE.md §5.1 check value: 60°, D 0.500, a 2.000 → 3.3660.
-    expect(resultValue('Reading over the rolls')).toBe('3.3660');
+    expect(page.resultValue('Reading over the rolls')).toBe('3.3660');
   });
 
   it('should put the schema’s message under a bad roll diameter and clear the results', async () => {
-    await create();
-    await type('rollDiameter', '-1');
-    expect(fieldErrors()).toContain('Must be greater than 0');
-    expect(el().querySelector('.no-results')).not.toBeNull();
-    expect(el().querySelector('sw-roll-drawing')).toBeNull();
+    await page.open();
+    await page.type('rollDiameter', '-1');
+    expect(page.fieldErrors()).toContain('Must be greater than 0');
+    expect(page.el.querySelector('.no-results')).not.toBeNull();
+    expect(page.el.querySelector('sw-roll-drawing')).toBeNull();
   });
 
   it('should warn when the roll would touch above the dovetail’s depth', async () => {
-    await create();
-    await type('depth', '0.2');
+    await page.open();
+    await page.type('depth', '0.2');
     // Contact height r·(1 + cos α) = 0.1875 · 1.5 = 0.28125 > 0.2 (derived).
-    const warnings = Array.from(el().querySelectorAll('sw-warnings')).map((w) => w.textContent).join(' ');
+    const warnings = Array.from(page.el.querySelectorAll('sw-warnings')).map((w) => w.textContent).join(' ');
     expect(warnings).toContain('use a smaller roll');
   });
 
   it('should restore a female dovetail from the URL', async () => {
-    await create('/pins-rolls?side=female&rollDiameter=0.5&width=2.5&depth=');
+    await page.open('/pins-rolls?side=female&rollDiameter=0.5&width=2.5&depth=');
     // REFERENCE.md §5.1 check value: 60°, D 0.500, b 2.500 → 1.1340.
-    expect(resultValue('Reading between the rolls')).toBe('1.1340');
+    expect(page.resultValue('Reading between the rolls')).toBe('1.1340');
   });
 
   it('should give the pin’s height in a V-groove', async () => {
-    await create('/pins-rolls?kind=v-groove&includedAngle=90&pinDiameter=0.5&grooveWidth=1');
+    await page.open('/pins-rolls?kind=v-groove&includedAngle=90&pinDiameter=0.5&grooveWidth=1');
     // Derived: 0.25 / sin 45° + 0.25 − 0.5 = 0.1036.
-    expect(resultValue('Pin top over the surface')).toBe('0.1036');
-    expect(el().querySelector('sw-roll-drawing svg title')?.textContent).toContain('V-groove');
+    expect(page.resultValue('Pin top over the surface')).toBe('0.1036');
+    expect(page.el.querySelector('sw-roll-drawing svg title')?.textContent).toContain('V-groove');
   });
 
   it('should convert the entered lengths when switching to mm', async () => {
-    await create();
-    const mm = Array.from(el().querySelectorAll('mat-button-toggle button')).find((b) => b.textContent?.trim() === 'mm') as HTMLButtonElement;
+    await page.open();
+    const mm = Array.from(page.el.querySelectorAll('mat-button-toggle button')).find((b) => b.textContent?.trim() === 'mm') as HTMLButtonElement;
     mm.click();
-    await settle();
-    expect((el().querySelector('input[formcontrolname="rollDiameter"]') as HTMLInputElement).value).toBe('9.525');
+    await page.settle();
+    expect((page.el.querySelector('input[formcontrolname="rollDiameter"]') as HTMLInputElement).value).toBe('9.525');
     // 31.75 + 9.525 × 2.7320508 = 57.7728 mm (derived).
-    expect(resultValue('Reading over the rolls')).toBe('57.773');
+    expect(page.resultValue('Reading over the rolls')).toBe('57.773');
   });
 
   describe('from a measured reading', () => {
     it('should work a male dovetail back to its width now and what is left to cut', async () => {
-      await create('/pins-rolls?mode=check&reading=2.2900');
+      await page.open('/pins-rolls?mode=check&reading=2.2900');
       // Derived from REFERENCE.md §5.1: a = x − D·(1 + cot 30°) = 2.29 − 0.375 × 2.7320508 = 1.2655;
       // at a = 1.250 the reading is 2.2745, so 2.2900 − 2.2745 = 0.0155 is left on the width.
-      expect(resultValue('Corner width a now')).toBe('1.2655');
-      expect(resultValue('Left to cut on the width')).toBe('0.0155');
-      expect(el().querySelector('.stop-value')?.textContent?.trim()).toBe('2.2745 in');
-      expect(el().querySelector('.stop-left')?.textContent).toContain('0.0155 in left to cut on the width');
-      expect(el().querySelector('sw-roll-drawing svg')?.textContent).toContain('stop at x 2.2745 in');
+      expect(page.resultValue('Corner width a now')).toBe('1.2655');
+      expect(page.resultValue('Left to cut on the width')).toBe('0.0155');
+      expect(page.el.querySelector('.stop-value')?.textContent?.trim()).toBe('2.2745 in');
+      expect(page.el.querySelector('.stop-left')?.textContent).toContain('0.0155 in left to cut on the width');
+      expect(page.el.querySelector('sw-roll-drawing svg')?.textContent).toContain('stop at x 2.2745 in');
     });
 
     it('should count a female dovetail’s remaining cut the other way round', async () => {
-      await create('/pins-rolls?mode=check&side=female&rollDiameter=0.5&width=2.5&reading=1.1200&depth=');
+      await page.open('/pins-rolls?mode=check&side=female&rollDiameter=0.5&width=2.5&reading=1.1200&depth=');
       // y at b = 2.500 is 1.1340 (REFERENCE.md §5.1); the rolls are 1.1200 apart now: 0.0140 to go.
-      expect(resultValue('Left to cut on the width')).toBe('0.0140');
+      expect(page.resultValue('Left to cut on the width')).toBe('0.0140');
     });
 
     it('should say when the work is already past the drawing size', async () => {
-      await create('/pins-rolls?mode=check&reading=2.2700');
-      expect(resultValue('Left to cut on the width')).toBe('-0.0045');
+      await page.open('/pins-rolls?mode=check&reading=2.2700');
+      expect(page.resultValue('Left to cut on the width')).toBe('-0.0045');
       expect(warningText()).toContain('already 0.0045 in past the drawing size');
     });
 
     it('should give a V-groove’s width now and the depth left from the pin height', async () => {
-      await create('/pins-rolls?kind=v-groove&mode=check&pinHeight=0.1200');
+      await page.open('/pins-rolls?kind=v-groove&mode=check&pinHeight=0.1200');
       // Derived: e = 0.25/sin 45° + 0.25 − 0.12 = 0.4836, W = 2e·tan 45° = 0.9671; stop at 0.1036: 0.0164 deeper.
-      expect(resultValue('Groove width now')).toBe('0.9671');
-      expect(resultValue('Left to cut on the depth')).toBe('0.0164');
-      expect(el().querySelector('.stop-value')?.textContent?.trim()).toBe('0.1036 in');
+      expect(page.resultValue('Groove width now')).toBe('0.9671');
+      expect(page.resultValue('Left to cut on the depth')).toBe('0.0164');
+      expect(page.el.querySelector('.stop-value')?.textContent?.trim()).toBe('0.1036 in');
     });
 
     it('should ask for the reading when it is left empty or is not a number', async () => {
-      await create('/pins-rolls?mode=check');
-      await type('reading', '');
-      expect(fieldErrors()).toContain('Is required: type the reading you measured');
-      await type('reading', 'abc');
-      expect(fieldErrors()).toContain('Must be a decimal number');
-      expect(el().querySelector('sw-roll-drawing')).toBeNull();
+      await page.open('/pins-rolls?mode=check');
+      await page.type('reading', '');
+      expect(page.fieldErrors()).toContain('Is required: type the reading you measured');
+      await page.type('reading', 'abc');
+      expect(page.fieldErrors()).toContain('Must be a decimal number');
+      expect(page.el.querySelector('sw-roll-drawing')).toBeNull();
     });
   });
 
   describe('other measurements', () => {
     it('should find a dovetail’s angle from readings over two roll sizes', async () => {
-      await create('/pins-rolls?kind=dovetail-angle');
+      await page.open('/pins-rolls?kind=dovetail-angle');
       // k = (2.6160 − 2.2745)/(0.500 − 0.375) = 2.732, α = 2·atan(1/(k − 1)) ≈ 60° (derived from REFERENCE.md §5.1).
-      expect(resultValue('Dovetail angle α')).toMatch(/^60°00'0\d"$/);
-      expect(resultValue('Corner width a')).toBe('1.2500');
-      const svg = el().querySelector('sw-roll-drawing svg');
+      expect(page.resultValue('Dovetail angle α')).toMatch(/^60°00'0\d"$/);
+      expect(page.resultValue('Corner width a')).toBe('1.2500');
+      const svg = page.el.querySelector('sw-roll-drawing svg');
       expect(svg?.querySelectorAll('circle.roll.second')).toHaveLength(2);
       expect(svg?.textContent).toContain('x₂ 2.6160 in');
     });
 
     it('should find a taper from readings over rolls at two heights', async () => {
-      await create('/pins-rolls?kind=taper-two-heights');
+      await page.open('/pins-rolls?kind=taper-two-heights');
       // tan(α/2) = (1.25 − 1.15)/(2 × 2) = 0.025: TPF 24 × 0.025 = 0.6 (common practice/derived).
-      expect(resultValue('Taper per foot')).toBe('0.60000');
-      expect(resultValue('Half angle (each side)')).toBe(`1°25'56"`);
-      expect(el().querySelector('sw-roll-drawing svg')?.textContent).toContain('ΔH 2.000 in');
+      expect(page.resultValue('Taper per foot')).toBe('0.60000');
+      expect(page.resultValue('Half angle (each side)')).toBe(`1°25'56"`);
+      expect(page.el.querySelector('sw-roll-drawing svg')?.textContent).toContain('ΔH 2.000 in');
     });
 
     it('should give the taper two discs set 3 in apart make', async () => {
-      await create('/pins-rolls?kind=taper-discs');
+      await page.open('/pins-rolls?kind=taper-discs');
       // Machinery's Handbook 31 p. 701: K = 0.25/3, TPF = 24K/√(1 − K²) = 2.00698.
-      expect(resultValue('Taper per foot')).toBe('2.00698');
-      await type('largeDisc', '0.4');
-      expect(fieldErrors()).toContain('Must be larger than smallDisc');
+      expect(page.resultValue('Taper per foot')).toBe('2.00698');
+      await page.type('largeDisc', '0.4');
+      expect(page.fieldErrors()).toContain('Must be larger than smallDisc');
     });
 
     it('should find the disc centre distance for an angle', async () => {
-      await create('/pins-rolls?kind=taper-discs&discGiven=includedAngle&discAngle=10');
+      await page.open('/pins-rolls?kind=taper-discs&discGiven=includedAngle&discAngle=10');
       // C = ((D − d)/2) / sin 5° = 0.25 / 0.0871557 = 2.8684 (derived).
-      expect(resultValue('Centre distance of the discs')).toBe('2.8684');
+      expect(page.resultValue('Centre distance of the discs')).toBe('2.8684');
     });
 
     it('should find an internal taper from two balls', async () => {
-      await create('/pins-rolls?kind=taper-balls');
+      await page.open('/pins-rolls?kind=taper-balls');
       // sin(α/2) = 0.25 / 1.5 → tan(α/2) = 1/√35, TPF = 24/√35 = 4.05674 (derived).
-      expect(resultValue('Taper per foot')).toBe('4.05674');
-      expect(resultValue('Centre distance of the balls')).toBe('1.5000');
-      expect(el().querySelector('sw-roll-drawing svg title')?.textContent).toContain('Internal taper');
+      expect(page.resultValue('Taper per foot')).toBe('4.05674');
+      expect(page.resultValue('Centre distance of the balls')).toBe('1.5000');
+      expect(page.el.querySelector('sw-roll-drawing svg title')?.textContent).toContain('Internal taper');
     });
   });
 
@@ -168,34 +154,7 @@ describe('PinsRollsPage', () => {
     });
   });
 
-  function el(): HTMLElement {
-    return fixture.nativeElement as HTMLElement;
-  }
-
-  function resultValue(label: string): string | undefined {
-    const row = Array.from(el().querySelectorAll('.result')).find((r) => r.querySelector('dt')?.textContent?.trim() === label);
-    return row?.querySelector('.number')?.textContent?.trim();
-  }
-
   function warningText(): string {
-    return Array.from(el().querySelectorAll('sw-warnings')).map((w) => w.textContent ?? '').join(' ');
-  }
-
-  function fieldErrors(): string {
-    return Array.from(el().querySelectorAll('mat-error')).map((e) => e.textContent ?? '').join(' | ');
-  }
-
-  async function settle(): Promise<void> {
-    await new Promise((resolve) => setTimeout(resolve, 150));
-    fixture.detectChanges();
-    await fixture.whenStable();
-  }
-
-  async function type(name: string, value: string): Promise<void> {
-    const input = el().querySelector(`input[formcontrolname="${name}"]`) as HTMLInputElement;
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-    input.dispatchEvent(new Event('blur'));
-    await settle();
+    return Array.from(page.el.querySelectorAll('sw-warnings')).map((w) => w.textContent ?? '').join(' ');
   }
 });
