@@ -50,6 +50,14 @@ function stepAsync(name: string, cmd: string, args: string[]): Promise<boolean> 
   });
 }
 
+/** The plain closing line of the run: "tests: N passed, N failed[, N skipped]". */
+function jestSummary(file: string): string {
+  if (!fs.existsSync(file)) return '';
+  const r = JSON.parse(fs.readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numRuntimeErrorTestSuites: number };
+  const failed = r.numFailedTests + r.numRuntimeErrorTestSuites;
+  return `tests: ${r.numPassedTests} passed, ${failed} failed${r.numPendingTests ? `, ${r.numPendingTests} skipped` : ''}`;
+}
+
 async function main(): Promise<number> {
   const jestArgs = process.argv.slice(2);
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'slantwise-test-'));
@@ -72,6 +80,7 @@ async function main(): Promise<number> {
   const db = await startMariaDb({ dataDir: path.join(tmp, 'db'), port: config.db.port, database: config.db.name, user: config.db.user, password: config.db.password });
   const stops: Array<() => Promise<void>> = [() => db.stop()];
   let ok = true;
+  let summary = '';
   try {
     const sequelize = createSequelize(config.db);
     initModels(sequelize);
@@ -94,7 +103,9 @@ async function main(): Promise<number> {
     env['E2E_BASE_URL'] = server.url;
     console.log(`[test] app for end-to-end tests at ${server.url}`);
 
-    ok = (await stepAsync('jest (unit, web, api, e2e)', process.execPath, ['node_modules/jest/bin/jest.js', '--ci', ...jestArgs])) && ok;
+    const report = path.join(tmp, 'jest-report.json');
+    ok = (await stepAsync('jest (unit, web, api, e2e)', process.execPath, ['node_modules/jest/bin/jest.js', '--ci', '--json', `--outputFile=${report}`, ...jestArgs])) && ok;
+    summary = jestSummary(report);
   } catch (err) {
     console.error('[test] set-up failed:', err);
     ok = false;
@@ -102,6 +113,7 @@ async function main(): Promise<number> {
     for (const stop of stops.reverse()) await stop().catch((e: unknown) => console.error(e));
     fs.rmSync(tmp, { recursive: true, force: true });
   }
+  if (summary) console.log(`\n${summary}`);
   return ok ? 0 : 1;
 }
 
