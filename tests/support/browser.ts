@@ -77,6 +77,10 @@ const axeSource = fs.readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8'
 
 /** Runs axe-core in the page; returns the serious and critical violations. */
 export async function seriousA11yViolations(page: Page): Promise<AxeViolation[]> {
+  // Let entering messages finish fading in first: axe measures contrast on what is painted now.
+  await page
+    .waitForFunction(() => document.getAnimations().every((a) => a.playState !== 'running'), undefined, { timeout: 3_000 })
+    .catch(() => undefined);
   await page.evaluate(axeSource);
   const result = (await page.evaluate(`axe.run(document, { resultTypes: ['violations'] })`)) as { violations: AxeViolation[] };
   return result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
