@@ -14,10 +14,14 @@ import { migrate } from '../server/migrate';
 import { initModels, Setup, Team, User } from '../server/models';
 import { startMariaDb } from '../scripts/mariadb';
 import { freePort } from '../tests/support/isolated-db';
+import { workerCount } from '../server/workers';
 
 const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 8);
+const WARMUP_SECONDS = Number(process.env['BENCH_WARMUP_SECONDS'] ?? 2);
 const CONNECTIONS = Number(process.env['BENCH_CONNECTIONS'] ?? 100);
 const SETUPS = Number(process.env['BENCH_SETUPS'] ?? 10_000);
+/** App processes (cluster workers), for the app and the bare route alike: one per core unless set. */
+const WORKERS = workerCount(process.env['BENCH_WORKERS'] ?? 'auto', os.availableParallelism());
 const PASSWORD = 'bench-password-123';
 
 function startChild(args: string[], env: NodeJS.ProcessEnv, ready: RegExp): Promise<ChildProcess> {
@@ -46,6 +50,8 @@ const ONLY = process.env['BENCH_ROUTES']?.split(',');
 
 async function load(name: string, opts: autocannon.Options): Promise<Row> {
   if (ONLY && !name.startsWith('bare') && !ONLY.some((part) => name.includes(part))) return { name, rps: 0, p50: 0, p99: 0, errors: 0, non2xx: 0, s5xx: 0 };
+  // A short unmeasured run first, so every route is measured with warm JIT code, pools and caches.
+  await autocannon({ connections: CONNECTIONS, duration: WARMUP_SECONDS, ...opts });
   const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
   const row: Row = {
     name,
@@ -93,10 +99,10 @@ async function main(): Promise<void> {
 
     const appPort = await freePort();
     const profile = process.env['BENCH_PROFILE'] ? ['--cpu-prof', `--cpu-prof-dir=${process.env['BENCH_PROFILE']}`] : [];
-    const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000' };
+    const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000', WORKERS: String(WORKERS) };
     children.push(await startChild([...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/));
     const barePort = await freePort();
-    children.push(await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort) }, /LISTENING/));
+    children.push(await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort), WORKERS: String(WORKERS) }, /LISTENING/));
     const base = `http://127.0.0.1:${appPort}`;
 
     const csrfRes = await fetch(`${base}/api/auth/csrf`);
@@ -106,7 +112,7 @@ async function main(): Promise<void> {
     if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
     const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
 
-    console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, loopback`);
+    console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, loopback; app and bare route ${WORKERS} worker(s) each, ${os.availableParallelism()} cores`);
     const json = { 'content-type': 'application/json' };
     const bare = await load('bare Express route (ceiling)', { url: `http://127.0.0.1:${barePort}/bare` });
     const calc = [
@@ -125,10 +131,11 @@ async function main(): Promise<void> {
         setupRequest: (req) => ({ ...req, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: (1 + (n++ % 100_000) / 10_000).toFixed(4), taperLength: '1.250', depthPerPass: '0.040' }) }),
       }],
     });
+    const me = await load('GET /api/auth/me (session only)', { url: `${base}/api/auth/me`, headers: { cookie } });
     const list = await load('GET /api/setups (paged, filtered)', { url: `${base}/api/setups?page=3&pageSize=25&kind=taper&status=released`, headers: { cookie } });
     const detail = await load('GET /api/setups/:id', { url: `${base}/api/setups/${sample!.id}`, headers: { cookie } });
 
-    const rows = [...calc, fresh, list, detail];
+    const rows = [...calc, fresh, me, list, detail];
     console.log('\nAgainst the targets:');
     const check = (ok: boolean, text: string) => console.log(`  ${ok ? 'met ' : 'MISS'}  ${text}`);
     check(rows.every((r) => r.errors === 0 && r.s5xx === 0) && bare.errors === 0, 'zero errors and zero 5xx on every route');

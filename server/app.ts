@@ -9,7 +9,6 @@ import type { AppConfig } from './config';
 import { loadUser, requireUser } from './middleware/auth';
 import { requireCsrf } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { Session } from './models/session';
 import { createAuthRouter } from './routes/auth';
 import { createCalcRouter } from './routes/calc';
 import { createHealthRouter } from './routes/health';
@@ -107,7 +106,7 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
     }),
   );
 
-  app.use('/api', requireCsrf(['/calc/']), loadUser);
+  app.use('/api', requireCsrf(['/calc/']), loadUser(sessions));
   app.use('/api/auth', createAuthRouter(new LoginThrottle({ limit: 8, windowMs: 10 * 60_000 })));
   const storage = createStorage(config.uploads);
   app.use('/api/setups', requireUser, createSetupsRouter({ sequelize, storage, config }));

@@ -1,9 +1,12 @@
+import cluster from 'node:cluster';
 import type { Server } from 'node:http';
+import os from 'node:os';
 import type { Sequelize } from 'sequelize';
 import { createApp } from './app';
 import { loadConfig, type AppConfig } from './config';
 import { createSequelize } from './db';
 import { initModels } from './models';
+import { superviseWorkers, workerCount } from './workers';
 
 export interface RunningServer {
   readonly url: string;
@@ -35,17 +38,34 @@ export async function startServer(config: AppConfig): Promise<RunningServer> {
   };
 }
 
-// Run directly (one stateless instance, e.g. behind a load balancer): the database must be migrated already.
+// Run directly (one stateless instance, e.g. behind a load balancer): the database must be migrated
+// already. WORKERS=n (or "auto", one per core) runs n such instances as cluster workers on one port.
 if (require.main === module) {
-  startServer(loadConfig())
-    .then((running) => {
-      console.log(`Slantwise instance listening on ${running.url}`);
-      const stop = () => void running.close().then(() => process.exit(0));
+  const fail = (err: unknown) => {
+    console.error('Could not start:', err instanceof Error ? err.message : err);
+    process.exit(1);
+  };
+  try {
+    const count = workerCount(process.env['WORKERS'], os.availableParallelism());
+    if (count > 1 && cluster.isPrimary) {
+      const supervisor = superviseWorkers(count);
+      void supervisor.ready.then((url) => console.log(`Slantwise: ${count} workers listening on ${url}`));
+      let stopping: Promise<void> | undefined;
+      const stop = () => void (stopping ??= supervisor.stop()).then(() => process.exit(0));
       process.once('SIGINT', stop);
       process.once('SIGTERM', stop);
-    })
-    .catch((err: unknown) => {
-      console.error('Could not start:', err instanceof Error ? err.message : err);
-      process.exit(1);
-    });
+    } else {
+      startServer(loadConfig())
+        .then((running) => {
+          if (cluster.isPrimary) console.log(`Slantwise instance listening on ${running.url}`);
+          let closing: Promise<void> | undefined;
+          const stop = () => void (closing ??= running.close()).then(() => process.exit(0));
+          process.once('SIGINT', stop);
+          process.once('SIGTERM', stop);
+        })
+        .catch(fail);
+    }
+  } catch (err) {
+    fail(err);
+  }
 }

@@ -10,15 +10,15 @@ import { ANGLE_BLOCK_SETS } from '../../shared/data/angle-block-sets';
 import { GAUGE_BLOCK_SETS } from '../../shared/data/gauge-sets';
 import { MACHINE_TAPERS } from '../../shared/data/machine-tapers';
 
-/** A calculation answer ready to send: the status and the JSON text. */
+/** A calculation answer ready to send: the status and the JSON bytes (encoded once, sent as they are). */
 interface Answer {
   readonly status: number;
-  readonly json: string;
+  readonly json: Buffer;
 }
 
 function answer<T>(result: CalcResult<T>): Answer {
-  if (result.ok) return { status: 200, json: JSON.stringify(result.value) };
-  return { status: result.kind === 'invalid' ? 400 : 422, json: JSON.stringify({ error: result.error, fields: result.fields }) };
+  if (result.ok) return { status: 200, json: Buffer.from(JSON.stringify(result.value)) };
+  return { status: result.kind === 'invalid' ? 400 : 422, json: Buffer.from(JSON.stringify({ error: result.error, fields: result.fields })) };
 }
 
 /**
@@ -77,7 +77,9 @@ export function createCalcRouter(cache = new AnswerCache()): Router {
   for (const [path, calc] of Object.entries(calcs)) {
     router.post(path, (req: Request, res: Response) => {
       const { status, json } = cache.answer(path, req.body, () => answer(calc(req.body)));
-      res.status(status).type('application/json').send(json);
+      // Sent as stored: an answer to a POST needs no ETag, so Express's hashing of each body is skipped.
+      res.status(status).setHeader('Content-Type', 'application/json; charset=utf-8');
+      res.end(json);
     });
   }
   router.get('/gauge-sets', (_req, res) => {

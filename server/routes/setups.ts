@@ -1,5 +1,5 @@
 import { Router, type Request, type Response } from 'express';
-import { Op, type Order, type Sequelize, type WhereOptions } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import {
   SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
   type SetupExportDto, type SetupPageDto, type SetupStatus,
@@ -14,7 +14,8 @@ import { Setup } from '../models/setup';
 import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
-import { canChangeSetup, canReleaseSetup, findVisibleSetup, SETUP_PEOPLE } from '../services/setup-access';
+import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
+import { listSetups, readVisibleSetup } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
 import { notifySetupReleased } from '../services/team-mail';
@@ -42,41 +43,13 @@ function listQuery(req: Request) {
   return parsed.data;
 }
 
-/** Escapes LIKE wildcards so a search for "50%" means those characters. */
-function likeText(word: string): string {
-  return `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
-
 /** /api/setups: the team's set-up library. */
 export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps): Router {
   const router = Router();
 
   router.get('/', async (req, res) => {
-    const user = currentUser(req);
     const q = listQuery(req);
-    const and: WhereOptions[] = [{ teamId: user.teamId }];
-    // Visibility in SQL, so totals and pages count only what this user may see.
-    if (user.role !== 'admin' && user.role !== 'lead') and.push({ [Op.or]: [{ status: { [Op.ne]: 'draft' } }, { ownerId: user.id }] });
-    if (q.kind) and.push({ kind: q.kind });
-    if (q.status) and.push({ status: q.status });
-    if (q.ownerId) and.push({ ownerId: q.ownerId });
-    if (q.job) and.push({ job: q.job });
-    for (const word of (q.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
-      const like = likeText(word);
-      and.push({ [Op.or]: [{ name: { [Op.like]: like } }, { job: { [Op.like]: like } }, { notes: { [Op.like]: like } }] });
-    }
-    const sort = q.sort ?? 'updatedAt';
-    const dir = (q.dir ?? (sort === 'updatedAt' || sort === 'createdAt' ? 'desc' : 'asc')).toUpperCase();
-    const order: Order = sort === 'owner' ? [[{ model: User, as: 'owner' }, 'name', dir], ['id', dir]] : [[sort, dir], ['id', dir]];
-    const pageSize = q.pageSize ?? DEFAULT_PAGE_SIZE;
-    const page = q.page ?? 1;
-    // The count needs no joins (owner and releaser are one row each); the page joins them.
-    const where = { [Op.and]: and };
-    const [count, rows] = await Promise.all([
-      Setup.count({ where }),
-      Setup.findAll({ where, include: SETUP_PEOPLE, order, limit: pageSize, offset: (page - 1) * pageSize }),
-    ]);
-    const body: SetupPageDto = { setups: rows.map((s) => s.toDto()), total: count, page, pageSize };
+    const body: SetupPageDto = await listSetups(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE });
     res.json(body);
   });
 
@@ -113,7 +86,9 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
 
   router.get('/:id', async (req, res) => {
     const user = currentUser(req);
-    res.json((await findVisibleSetup(parseId(req.params['id']), user)).toDto());
+    const setup = await readVisibleSetup(sequelize, parseId(req.params['id']), user);
+    if (!setup) throw new HttpError(404, NOT_IN_TEAM);
+    res.json(setup);
   });
 
   router.put('/:id', async (req, res) => {

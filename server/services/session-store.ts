@@ -1,10 +1,16 @@
 import connectSessionSequelize from 'connect-session-sequelize';
 import session, { type SessionData, type Store } from 'express-session';
-import type { Sequelize } from 'sequelize';
-import { Session } from '../models/session';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { User } from '../models/user';
 
 export interface SessionStore {
   readonly store: Store;
+  /**
+   * The active user read together with session `sid` by this request's session load, once (or
+   * undefined when there is none to hand over, e.g. no user, or a second request on the session
+   * took it first: the caller then reads the user itself).
+   */
+  takeUser(sid: string): User | undefined;
   /** Stops the periodic sweep of expired rows. */
   stop(): void;
 }
@@ -15,8 +21,37 @@ export interface SessionStore {
  * - a session whose `expires` has passed is treated as gone at once (the library leaves that to its
  *   periodic sweep), so idle expiry holds on the server and not only in the browser;
  * - the rolling expiry is written at most once per `touchEveryMs` per session and instance, instead
- *   of one UPDATE per request (the expiry may then run up to that long early).
+ *   of one UPDATE per request (the expiry may then run up to that long early);
+ * - the session row and its active user are read in one plain query, and the user is handed to
+ *   `loadUser` through `takeUser`, so a signed-in request costs one round trip before its route.
  */
+/** How long a user read with the session may wait for `loadUser` of the same request. */
+const HAND_OVER_MS = 1_000;
+
+const SESSION_WITH_USER = `SELECT s.data, s.expires, u.id AS uId, u.teamId AS uTeamId, u.email AS uEmail, u.name AS uName,
+  u.passwordHash AS uPasswordHash, u.role AS uRole, u.createdAt AS uCreatedAt, u.updatedAt AS uUpdatedAt
+  FROM sessions s LEFT JOIN users u ON u.id = s.userId AND u.active = 1 WHERE s.sid = ? LIMIT 1`;
+
+interface SessionUserRow {
+  data: string | null;
+  expires: Date | string | null;
+  uId: number | null;
+  uTeamId: number;
+  uEmail: string;
+  uName: string;
+  uPasswordHash: string;
+  uRole: User['role'];
+  uCreatedAt: Date;
+  uUpdatedAt: Date;
+}
+
+function userFromRow(row: SessionUserRow): User {
+  return User.build(
+    { id: row.uId!, teamId: row.uTeamId, email: row.uEmail, name: row.uName, passwordHash: row.uPasswordHash, role: row.uRole, active: true, createdAt: row.uCreatedAt, updatedAt: row.uUpdatedAt },
+    { isNewRecord: false, raw: true },
+  );
+}
+
 export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEveryMs = Math.min(60_000, idleMs / 10)): SessionStore {
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({
@@ -31,13 +66,26 @@ export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEv
     }),
   });
 
+  const handOver = new Map<string, { user: User; at: number }>();
   store.get = (sid: string, callback: (err: unknown, session?: SessionData | null) => void) => {
-    Session.findOne({ where: { sid } })
-      .then((row) => {
-        if (!row || !row.data || (row.expires && row.expires.getTime() <= Date.now())) return callback(null, null);
+    sequelize
+      .query<SessionUserRow>(SESSION_WITH_USER, { replacements: [sid], type: QueryTypes.SELECT })
+      .then(([row]) => {
+        if (!row || !row.data || (row.expires && new Date(row.expires).getTime() <= Date.now())) return callback(null, null);
+        if (row.uId !== null) {
+          if (handOver.size > 10_000) handOver.clear();
+          handOver.set(sid, { user: userFromRow(row), at: Date.now() });
+        }
         callback(null, JSON.parse(row.data) as SessionData);
       })
       .catch((err: unknown) => callback(err));
+  };
+  const takeUser = (sid: string): User | undefined => {
+    const entry = handOver.get(sid);
+    if (!entry) return undefined;
+    handOver.delete(sid);
+    // Only the read of this very request counts; anything older is read again.
+    return Date.now() - entry.at < HAND_OVER_MS ? entry.user : undefined;
   };
 
   const touchedAt = new Map<string, number>();
@@ -51,5 +99,5 @@ export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEv
     return touch(sid, data, callback);
   };
 
-  return { store, stop: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions() };
+  return { store, takeUser, stop: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions() };
 }

@@ -8,10 +8,13 @@ export const SETUP_PEOPLE = [
   { model: User, as: 'releasedBy', attributes: ['id', 'name'] },
 ];
 
+/** The 404 of a set-up id that is not (visibly) in the user's team. */
+export const NOT_IN_TEAM = 'No set-up with that id in your team.';
+
 /** A set-up of the user's team that the user may see, or a 404 (never a hint that it exists). */
 export async function findVisibleSetup(id: number, user: User): Promise<Setup> {
   const setup = await Setup.findOne({ where: { id, teamId: user.teamId }, include: SETUP_PEOPLE });
-  if (!setup || !canSeeSetup(user, setup)) throw new HttpError(404, 'No set-up with that id in your team.');
+  if (!setup || !canSeeSetup(user, setup)) throw new HttpError(404, NOT_IN_TEAM);
   return setup;
 }
 
