@@ -4,7 +4,7 @@ import cluster, { type Worker } from 'node:cluster';
 export function workerCount(value: string | undefined, cores: number): number {
   if (value === undefined || value.trim() === '') return 1;
   if (value.trim() === 'auto') return Math.max(1, cores);
-  const n = Number(value);
+  const n = /^\d{1,3}$/.test(value.trim()) ? Number(value.trim()) : NaN;
   if (!Number.isInteger(n) || n < 1 || n > 64) throw new Error(`WORKERS must be a whole number from 1 to 64, or "auto" (got "${value}").`);
   return n;
 }
@@ -12,15 +12,20 @@ export function workerCount(value: string | undefined, cores: number): number {
 export interface Supervisor {
   /** Resolves once every worker listens, with the address they share. */
   readonly ready: Promise<string>;
-  /** Stops every worker (SIGTERM, so each closes its connections) and resolves when all have exited. */
-  stop(): Promise<void>;
+  /**
+   * Stops every worker (SIGTERM, so each closes its connections; SIGKILL for one still running
+   * after `graceMs`) and resolves when all have exited.
+   */
+  stop(graceMs?: number): Promise<void>;
 }
 
 /**
  * Runs `count` copies of this script as cluster workers sharing one port (Node's cluster module:
  * the primary hands new connections to the workers in turn). The workers are the same stateless
  * instances as separate machines would be — sessions, data and uploads live outside them — so this
- * only uses more cores of one machine. A worker that dies unexpectedly is replaced after a pause.
+ * only uses more cores of one machine. A worker that dies unexpectedly is replaced after a pause;
+ * if a worker fails before any has listened (a port in use, a wrong setting), the primary gives up
+ * and exits 1 instead of restarting it for ever.
  */
 export function superviseWorkers(count: number, log: (line: string) => void = console.log): Supervisor {
   let stopping = false;
@@ -32,12 +37,19 @@ export function superviseWorkers(count: number, log: (line: string) => void = co
     const worker = cluster.fork();
     worker.once('listening', (address) => {
       listening += 1;
-      if (listening === count) resolveReady(`http://${address.address ?? '127.0.0.1'}:${address.port}`);
+      const host = address.address ?? '127.0.0.1';
+      if (listening === count) resolveReady(`http://${host.includes(':') ? `[${host}]` : host}:${address.port}`);
     });
     return worker;
   };
   cluster.on('exit', (worker, code, signal) => {
     if (stopping) return;
+    if (listening === 0) {
+      log(`worker ${worker.process.pid} failed before any worker listened (${signal ?? `exit code ${code}`}); stopping`);
+      stopping = true;
+      for (const w of Object.values(cluster.workers ?? {})) w?.process.kill('SIGTERM');
+      process.exit(1);
+    }
     log(`worker ${worker.process.pid} stopped (${signal ?? `exit code ${code}`}); starting a new one in 1 s`);
     setTimeout(() => {
       if (!stopping) fork();
@@ -47,7 +59,7 @@ export function superviseWorkers(count: number, log: (line: string) => void = co
 
   return {
     ready,
-    stop: async () => {
+    stop: async (graceMs = 10_000) => {
       stopping = true;
       const workers = Object.values(cluster.workers ?? {}).filter((w): w is Worker => w !== undefined);
       await Promise.all(
@@ -55,7 +67,11 @@ export function superviseWorkers(count: number, log: (line: string) => void = co
           (w) =>
             new Promise<void>((resolve) => {
               if (w.isDead()) return resolve();
-              w.once('exit', () => resolve());
+              const kill = setTimeout(() => w.process.kill('SIGKILL'), graceMs);
+              w.once('exit', () => {
+                clearTimeout(kill);
+                resolve();
+              });
               w.process.kill('SIGTERM');
             }),
         ),

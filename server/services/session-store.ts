@@ -1,6 +1,7 @@
 import connectSessionSequelize from 'connect-session-sequelize';
 import session, { type SessionData, type Store } from 'express-session';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { selectRows } from '../db';
 import { User } from '../models/user';
 
 export interface SessionStore {
@@ -68,8 +69,7 @@ export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEv
 
   const handOver = new Map<string, { user: User; at: number }>();
   store.get = (sid: string, callback: (err: unknown, session?: SessionData | null) => void) => {
-    sequelize
-      .query<SessionUserRow>(SESSION_WITH_USER, { replacements: [sid], type: QueryTypes.SELECT })
+    selectRows<SessionUserRow>(sequelize, SESSION_WITH_USER, [sid])
       .then(([row]) => {
         if (!row || !row.data || (row.expires && new Date(row.expires).getTime() <= Date.now())) return callback(null, null);
         if (row.uId !== null) {

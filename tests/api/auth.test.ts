@@ -126,6 +126,20 @@ describe('sign-out and /me', () => {
     await c.agent.get('/api/auth/me').expect(401);
   });
 
+  it('answers many requests in flight on one session each with that session\'s member and current role', async () => {
+    const extra = await User.create({ teamId: m.team.id, email: `busy.${m.team.id}@example.test`, name: 'Busy', role: 'machinist', passwordHash: m.lead.passwordHash });
+    const c = await client(t.app, extra);
+    const other = await client(t.app, m.apprentice);
+    const answers = await Promise.all(Array.from({ length: 24 }, (_, i) => (i % 3 === 2 ? other : c).agent.get('/api/auth/me')));
+    answers.forEach((res, i) => {
+      expect(res.status).toBe(200);
+      expect(res.body.id).toBe(i % 3 === 2 ? m.apprentice.id : extra.id);
+    });
+    // A role changed between requests shows on the next one: the user is read with each request's session.
+    await extra.update({ role: 'lead' });
+    expect((await c.agent.get('/api/auth/me').expect(200)).body.role).toBe('lead');
+  });
+
   it('ends the session of a member deactivated while signed in', async () => {
     const extra = await User.create({ teamId: m.team.id, email: `late.${m.team.id}@example.test`, name: 'Late', role: 'machinist', passwordHash: m.lead.passwordHash });
     const c = await client(t.app, extra);

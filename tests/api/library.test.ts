@@ -1,4 +1,5 @@
 import { BatchRun, Setup, SetupRevision } from '../../server/models';
+import { SETUP_PEOPLE } from '../../server/services/setup-access';
 import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
 import { pdfText } from '../support/pdf-text';
 
@@ -94,6 +95,20 @@ describe('set-up library', () => {
       expect((await w.lead.agent.get('/api/setups?q=J-300').expect(200)).body.total).toBe(2);
       expect((await w.lead.agent.get('/api/setups?q=50%25_').expect(200)).body.total).toBe(1);
       expect((await w.lead.agent.get('/api/setups?q=%25').expect(200)).body.total).toBe(1);
+    });
+
+    it('should answer each list row and the detail exactly as the stored set-up reads through its model', async () => {
+      const res = await w.lead.agent.get('/api/setups?pageSize=100').expect(200);
+      expect(res.body.setups).toHaveLength(7);
+      for (const row of res.body.setups as Array<{ id: number }>) {
+        const model = await Setup.findByPk(row.id, { include: SETUP_PEOPLE });
+        const expected = JSON.parse(JSON.stringify(model!.toDto()));
+        expect(row).toEqual(expected);
+        expect((await w.lead.agent.get(`/api/setups/${row.id}`).expect(200)).body).toEqual(expected);
+      }
+      // Released rows name their releaser, drafts do not; both read back their inputs as objects.
+      const released = res.body.setups.find((s: { name: string }) => s.name === 'Charlie sine');
+      expect(released).toMatchObject({ status: 'released', releasedByName: team.lead.name, inputs: { barLength: '5' } });
     });
 
     it('should answer 400 naming each bad query parameter', async () => {
