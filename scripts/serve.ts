@@ -51,7 +51,7 @@ async function main(): Promise<void> {
       execFileSync(process.execPath, ['node_modules/@angular/cli/bin/ng.js', 'build', '--configuration', 'production'], { stdio: 'inherit' });
     }
 
-    const server = await startServer(config);
+    const server = await startServer(config, { sweepUploads: true });
     stops.push(() => server.close());
     console.log(`\nSlantwise is running at ${server.url}/`);
     console.log(`Demo sign-ins (password: ${process.env['DEMO_PASSWORD'] ? 'the DEMO_PASSWORD you set' : config.demoPassword}):`);

@@ -30,11 +30,27 @@ export interface AppConfig {
     readonly maxBytes: number;
     readonly s3?: { readonly endpoint: string; readonly bucket: string; readonly region: string; readonly accessKeyId: string; readonly secretAccessKey: string };
   };
+  /** Removal of upload files no attachment refers to (left by a crash mid-upload). */
+  readonly uploadSweep: {
+    /** Time between sweeps in milliseconds; 0 = no timer. */
+    readonly everyMs: number;
+    /** Files younger than this are never removed: an upload stores its file before its row commits. */
+    readonly graceMs: number;
+  };
 }
 
 function int(value: string | undefined, fallback: number): number {
   const n = value === undefined || value === '' ? NaN : Number(value);
   return Number.isInteger(n) ? n : fallback;
+}
+
+/** A whole number of minutes from `min` to `max`, or the fallback when unset; anything else is refused by name. */
+function minutes(env: NodeJS.ProcessEnv, name: string, fallback: number, min: number, max: number): number {
+  const value = env[name];
+  if (value === undefined || value.trim() === '') return fallback;
+  const n = /^\d{1,7}$/.test(value.trim()) ? Number(value.trim()) : NaN;
+  if (!Number.isInteger(n) || n < min || n > max) throw new Error(`${name} must be a whole number of minutes from ${min} to ${max} (got "${value}").`);
+  return n;
 }
 
 function trustProxy(value: string | undefined): boolean | number | string {
@@ -86,6 +102,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
             secretAccessKey: env['S3_SECRET_ACCESS_KEY'] ?? '',
           }
         : undefined,
+    },
+    uploadSweep: {
+      // Off under jest (NODE_ENV=test) unless a test sets it; at most a week (a timer's limit is 24.8 days).
+      everyMs: minutes(env, 'UPLOAD_SWEEP_MINUTES', env['NODE_ENV'] === 'test' ? 0 : 60, 0, 10_080) * 60_000,
+      graceMs: minutes(env, 'UPLOAD_SWEEP_GRACE_MINUTES', 60, 1, 525_600) * 60_000,
     },
   };
 }

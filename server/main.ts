@@ -6,6 +6,9 @@ import { createApp } from './app';
 import { loadConfig, type AppConfig } from './config';
 import { createSequelize } from './db';
 import { initModels } from './models';
+import { createStorage } from './services/storage/create-storage';
+import { S3Storage } from './services/storage/s3-storage';
+import { scheduleUploadSweeps } from './services/upload-sweep';
 import { superviseWorkers, workerCount } from './workers';
 
 export interface RunningServer {
@@ -15,14 +18,31 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
+export interface ServerOptions {
+  /**
+   * Remove orphaned upload files on a timer (every UPLOAD_SWEEP_MINUTES, first a minute after
+   * start). Only `server/main.ts` run directly asks for it, so servers started by tests never sweep.
+   */
+  readonly sweepUploads?: boolean;
+}
+
 /** Connects to the database and serves the app on config.host:config.port (port 0 picks a free one). */
-export async function startServer(config: AppConfig): Promise<RunningServer> {
+export async function startServer(config: AppConfig, options: ServerOptions = {}): Promise<RunningServer> {
   const sequelize = createSequelize(config.db);
   initModels(sequelize);
   const { app, close } = createApp({ config, sequelize });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));
   });
+  let stopSweeps = () => {};
+  if (options.sweepUploads && config.uploadSweep.everyMs > 0) {
+    const storage = createStorage(config.uploads);
+    const sweeper = scheduleUploadSweeps({ sequelize, storage, everyMs: config.uploadSweep.everyMs, graceMs: config.uploadSweep.graceMs });
+    stopSweeps = () => {
+      sweeper.stop();
+      if (storage instanceof S3Storage) storage.close();
+    };
+  }
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   return {
@@ -31,6 +51,7 @@ export async function startServer(config: AppConfig): Promise<RunningServer> {
     sequelize,
     async close() {
       close();
+      stopSweeps();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await sequelize.close();
@@ -55,7 +76,7 @@ if (require.main === module) {
       process.once('SIGINT', stop);
       process.once('SIGTERM', stop);
     } else {
-      startServer(loadConfig())
+      startServer(loadConfig(), { sweepUploads: true })
         .then((running) => {
           if (cluster.isPrimary) console.log(`Slantwise instance listening on ${running.url}`);
           let closing: Promise<void> | undefined;

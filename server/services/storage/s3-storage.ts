@@ -1,5 +1,5 @@
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
-import { assertKey, ObjectNotFound, type ObjectStorage } from './object-storage';
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import { assertKey, ObjectNotFound, STORAGE_KEY, type ObjectStorage, type StoredObject } from './object-storage';
 
 /** Connection settings of an S3-compatible object store. */
 export interface S3Settings {
@@ -67,6 +67,26 @@ export class S3Storage implements ObjectStorage {
 
   async delete(key: string): Promise<void> {
     await this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.key(key) }));
+  }
+
+  /**
+   * ListObjectsV2, page after page (continuation tokens). Keys come back without the settings'
+   * prefix; objects whose names the server could not have made are skipped.
+   */
+  async list(prefix: string): Promise<StoredObject[]> {
+    const base = this.settings.prefix ? `${this.settings.prefix}/` : '';
+    const found: StoredObject[] = [];
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(new ListObjectsV2Command({ Bucket: this.settings.bucket, Prefix: base + prefix, ContinuationToken: token }));
+      for (const object of page.Contents ?? []) {
+        const key = object.Key?.slice(base.length);
+        if (!object.Key?.startsWith(base) || !key || !STORAGE_KEY.test(key) || !object.LastModified) continue;
+        found.push({ key, lastModified: object.LastModified });
+      }
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
+    return found;
   }
 
   /** Closes the SDK's connections. */
