@@ -92,7 +92,7 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
       '--no-defaults', '--user=root', `--datadir=${dataDir}`, `--socket=${socket}`, `--pid-file=${path.join(dir, 'mysqld.pid')}`,
       '--bind-address=127.0.0.1', `--port=${opts.port}`, '--skip-name-resolve', `--log-error=${path.join(dir, 'mysqld.err')}`,
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=128M',
-      '--max-connections=300', '--innodb-flush-log-at-trx-commit=2',
+      '--max-connections=300', '--thread-handling=pool-of-threads', '--innodb-flush-log-at-trx-commit=2',
       ...(opts.extraArgs ?? []),
     ],
     { stdio: 'ignore' },
