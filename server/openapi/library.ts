@@ -64,6 +64,12 @@ export const libraryPaths = {
     },
     post: { summary: 'Save a set-up (a draft)', parameters: csrf, requestBody: json({ ...setupBody, required: ['name', 'kind', 'inputs'] }), responses: { 201: { description: 'Created', ...json(setup) }, 400: err('Invalid fields'), 401: err('Not signed in'), 403: err('Missing CSRF token') } },
   },
+  '/api/setups/owners': {
+    get: {
+      summary: 'Everyone who owns set-ups you may see, with how many (sorted by name): the choices of the list\'s ownerId filter',
+      responses: { 200: { description: '{owners: [{id, name, count}]}', ...json({ type: 'object', properties: { owners: { type: 'array', items: { type: 'object', properties: { id: { type: 'integer' }, name: { type: 'string' }, count: { type: 'integer' } } } } } }) }, 401: err('Not signed in') },
+    },
+  },
   '/api/setups/{id}': {
     get: { summary: 'One set-up', parameters: id, responses: { 200: { description: 'Set-up', ...json(setup) }, 404: err('Unknown, another team\'s, or a draft you may not see') } },
     put: { summary: 'Change a set-up: version is required; editing released content makes a new draft for a lead to release; archived set-ups are read-only', parameters: [...id, ...csrf], requestBody: json(setupBody), responses: { 200: { description: 'Updated', ...json(setup) }, 400: err('Invalid fields (version missing, …)'), 403: err('Not yours to change'), 404: err('Unknown'), 409: conflict } },

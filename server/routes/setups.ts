@@ -15,7 +15,7 @@ import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
 import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
-import { listSetups, readVisibleSetup } from '../services/setup-reads';
+import { listOwners, listSetups, readVisibleSetup } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
 import { notifySetupReleased } from '../services/team-mail';
@@ -51,6 +51,10 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     const q = listQuery(req);
     const body: SetupPageDto = await listSetups(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE });
     res.json(body);
+  });
+
+  router.get('/owners', async (req, res) => {
+    res.json(await listOwners(sequelize, currentUser(req)));
   });
 
   router.post('/', async (req, res) => {

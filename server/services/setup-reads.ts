@@ -1,6 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { selectRows } from '../db';
-import type { SetupCheck, SetupDto, SetupKind, SetupPageDto, SetupSort, SetupStatus } from '../../shared/api/setup';
+import type { SetupCheck, SetupDto, SetupKind, SetupOwnersDto, SetupPageDto, SetupSort, SetupStatus } from '../../shared/api/setup';
 import type { User } from '../models/user';
 
 /**
@@ -127,6 +127,17 @@ export async function listSetups(sequelize: Sequelize, user: User, f: SetupListF
     ),
   ]);
   return { setups: rows.map(toDto), total: Number(counted[0]?.n ?? 0), page: f.page, pageSize: f.pageSize };
+}
+
+/** Everyone who owns set-ups this user may see, with how many, by name (the list's owner filter). */
+export async function listOwners(sequelize: Sequelize, user: User): Promise<SetupOwnersDto> {
+  const where = listWhere(user, { page: 1, pageSize: 1 });
+  const rows = await selectRows<{ id: number; name: string; count: number | bigint }>(
+    sequelize,
+    `SELECT s.ownerId AS id, o.name AS name, COUNT(*) AS count FROM setups s JOIN users o ON o.id = s.ownerId WHERE ${where.sql} GROUP BY s.ownerId, o.name ORDER BY o.name, s.ownerId`,
+    where.params,
+  );
+  return { owners: rows.map((r) => ({ id: r.id, name: r.name, count: Number(r.count) })) };
 }
 
 /** One team set-up this user may see, or null (the caller answers 404 without a hint). */

@@ -136,6 +136,18 @@ export const setupListQuery = z.object({
 });
 export type SetupListQuery = z.input<typeof setupListQuery>;
 
+/** Someone who owns set-ups the caller may see, with how many: the library's owner filter. */
+export interface SetupOwnerDto {
+  id: number;
+  name: string;
+  count: number;
+}
+
+/** Answer of GET /api/setups/owners, sorted by name. */
+export interface SetupOwnersDto {
+  owners: SetupOwnerDto[];
+}
+
 /** A page of the library: the set-ups plus the paging figures. */
 export interface SetupPageDto {
   setups: SetupDto[];

@@ -111,6 +111,27 @@ describe('set-up library', () => {
       expect(released).toMatchObject({ status: 'released', releasedByName: team.lead.name, inputs: { barLength: '5' } });
     });
 
+    it('should name everyone who owns set-ups the caller may see, with how many, for the owner filter', async () => {
+      const byId = (owners: Array<{ id: number; name: string; count: number }>) => Object.fromEntries(owners.map((o) => [o.id, [o.name, o.count]]));
+      const lead = (await w.lead.agent.get('/api/setups/owners').expect(200)).body.owners;
+      expect(byId(lead)).toEqual({
+        [team.machinist.id]: [team.machinist.name, 3],
+        [team.other.id]: [team.other.name, 2],
+        [team.apprentice.id]: [team.apprentice.name, 1],
+        [team.lead.id]: [team.lead.name, 1],
+      });
+      const names = lead.map((o: { name: string }) => o.name);
+      expect(names).toEqual([...names].sort((a: string, b: string) => a.localeCompare(b)));
+      // A machinist sees released set-ups and their own drafts only: the apprentice's draft is not counted.
+      const machinist = (await w.machinist.agent.get('/api/setups/owners').expect(200)).body.owners;
+      expect(byId(machinist)).toEqual({ [team.machinist.id]: [team.machinist.name, 3], [team.other.id]: [team.other.name, 1], [team.lead.id]: [team.lead.name, 1] });
+      // Each count is what the list shows for that owner.
+      for (const o of machinist as Array<{ id: number; count: number }>) {
+        expect((await w.machinist.agent.get(`/api/setups?ownerId=${o.id}`).expect(200)).body.total).toBe(o.count);
+      }
+      expect((await c.foreign.agent.get('/api/setups/owners').expect(200)).body.owners.map((o: { id: number }) => o.id)).not.toContain(team.machinist.id);
+    });
+
     it('should answer 400 naming each bad query parameter', async () => {
       const res = await w.lead.agent.get('/api/setups?page=0&pageSize=1000&sort=colour&kind=lathe-spindle&status=gone').expect(400);
       expect(Object.keys(res.body.fields).sort()).toEqual(['kind', 'page', 'pageSize', 'sort', 'status']);

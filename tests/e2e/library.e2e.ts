@@ -80,6 +80,20 @@ describe('set-up library, end to end', () => {
     expect(await contentViolations(page)).toBe('');
     await page.goto('/library');
     await page.getByRole('link', { name: NAME }).waitFor();
+    // The Owner filter: the machinist's set-ups include the new one, the lead's own do not.
+    await page.getByRole('combobox', { name: 'Owner' }).click();
+    await page.getByRole('option', { name: /^Ines Halloran \(\d+\)$/ }).click();
+    await page.waitForFunction(() => {
+      const owners = Array.from(document.querySelectorAll('tr.mat-mdc-row td.mat-column-owner')).map((td) => td.textContent?.trim());
+      return owners.length > 0 && owners.every((o) => o === 'Ines Halloran');
+    });
+    await page.getByRole('link', { name: NAME }).waitFor();
+    await page.getByRole('combobox', { name: 'Owner' }).click();
+    await page.getByRole('option', { name: 'Me' }).click();
+    await page.getByRole('link', { name: NAME }).waitFor({ state: 'detached' });
+    await page.getByRole('combobox', { name: 'Owner' }).click();
+    await page.getByRole('option', { name: 'Anyone' }).click();
+    await page.getByRole('link', { name: NAME }).waitFor();
     await screenshot(page, 'library-list-desktop');
     await page.setViewportSize(TABLET);
     await screenshot(page, 'library-list-768');

@@ -44,6 +44,7 @@ const RULES: Record<string, Rule> = {
   'GET /api/access/password-reset/:token': 'public',
   'POST /api/access/password-reset/complete': 'public',
   'GET /api/setups': 'member',
+  'GET /api/setups/owners': 'member',
   'POST /api/setups': 'member',
   'POST /api/setups/import': 'member',
   'GET /api/setups/:id': 'member',

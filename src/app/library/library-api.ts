@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { type Observable, filter, map } from 'rxjs';
 
 import type {
-  AttachmentDto, RevisionDto, SetupCheck, SetupDto, SetupExportDto, SetupPageDto, SetupSort, SetupStatus,
+  AttachmentDto, RevisionDto, SetupCheck, SetupDto, SetupExportDto, SetupOwnerDto, SetupPageDto, SetupSort, SetupStatus,
 } from '../../../shared/api/setup';
 import { quietErrors } from '../core/api-error';
 
@@ -65,6 +65,16 @@ export class LibraryApi {
       if (value !== undefined && value !== null && value !== '') params = params.set(key, String(value));
     }
     return this.http.get<unknown>('/api/setups', { params }).pipe(map(parseSetupPage));
+  }
+
+  /** Everyone who owns set-ups the caller may see, with how many, by name. */
+  owners(): Observable<SetupOwnerDto[]> {
+    return this.http.get<{ owners?: unknown }>('/api/setups/owners').pipe(
+      map((body) => {
+        if (!body || !Array.isArray(body.owners)) throw new Error('LibraryApi: the server sent an owner list without owners.');
+        return body.owners as SetupOwnerDto[];
+      }),
+    );
   }
 
   get(id: number): Observable<SetupDto> {

@@ -31,6 +31,8 @@ describe('LibraryPage', () => {
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(LibraryPage);
     fixture.detectChanges();
+    http.expectOne('/api/setups/owners').flush({ owners: [{ id: 7, name: 'Ines', count: 2 }, { id: 9, name: 'Teodor', count: 3 }] });
+    fixture.detectChanges();
   });
 
   afterEach(() => http.verify());
@@ -57,19 +59,45 @@ describe('LibraryPage', () => {
     expect((fixture.nativeElement as HTMLElement).querySelector('.mat-mdc-paginator-range-label')?.textContent?.trim()).toBe('1 – 2 of 2');
   });
 
-  it('should send search, filters and "only mine" to the server and go back to page 1', async () => {
+  /** Opens the Owner select; its options render in the overlay. */
+  async function openOwnerSelect(): Promise<void> {
+    const field = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')?.textContent?.trim() === 'Owner')!;
+    (field.querySelector('.mat-mdc-select-trigger') as HTMLElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  /** Opens the Owner select and picks the option with this text. */
+  async function pickOwner(text: string): Promise<void> {
+    await openOwnerSelect();
+    const option = Array.from(document.querySelectorAll('mat-option')).find((o) => o.textContent?.trim() === text) as HTMLElement | undefined;
+    expect(option).toBeDefined();
+    option!.click();
+    fixture.detectChanges();
+  }
+
+  it('should offer anyone, me and the other owners with their counts', async () => {
+    await answer({ total: 5 });
+    await openOwnerSelect();
+    // The signed-in member (id 7) is "Me", not listed again by name.
+    expect(Array.from(document.querySelectorAll('mat-option')).map((o) => o.textContent?.trim())).toEqual(['Anyone', 'Me', 'Teodor (3)']);
+  });
+
+  it('should send search, filters and the owner to the server and go back to page 1', async () => {
     await answer({ total: 60 });
     const input = (fixture.nativeElement as HTMLElement).querySelector('input[type=search]') as HTMLInputElement;
     input.value = 'wedge';
     input.dispatchEvent(new Event('input'));
-    const toggle = (fixture.nativeElement as HTMLElement).querySelector('mat-slide-toggle button') as HTMLButtonElement;
-    toggle.click();
-    fixture.detectChanges();
+    await pickOwner('Me');
     const params = await answer({ setups: [setup(1, 'Fixture wedge')], total: 1 });
     expect(params.get('q')).toBe('wedge');
     expect(params.get('ownerId')).toBe('7');
     expect(params.get('page')).toBe('1');
     expect(rows()).toEqual(['Fixture wedge']);
+    await pickOwner('Teodor (3)');
+    expect((await answer({ total: 0 })).get('ownerId')).toBe('9');
+    await pickOwner('Anyone');
+    expect((await answer({ total: 60 })).has('ownerId')).toBe(false);
   });
 
   it('should say so when nothing matches', async () => {

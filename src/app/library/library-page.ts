@@ -10,13 +10,12 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 
-import { SETUP_KINDS, SETUP_STATUSES, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
+import { SETUP_KINDS, SETUP_STATUSES, type SetupOwnerDto, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
 import { apiErrorMessage } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
@@ -30,7 +29,7 @@ const PAGE_SIZES = [10, 25, 50];
   selector: 'app-library-page',
   imports: [
     DatePipe, FormsModule, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule,
-    MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatSlideToggleModule, MatSortModule, MatTableModule,
+    MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatSortModule, MatTableModule,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './library-page.html',
@@ -51,7 +50,16 @@ export default class LibraryPage {
   protected readonly kind = signal('');
   protected readonly status = signal<SetupStatus | ''>('');
   protected readonly job = signal('');
-  protected readonly mineOnly = signal(false);
+  /** The owner filter: '' anyone, 'me' the signed-in member, otherwise an owner's id. */
+  protected readonly owner = signal('');
+  /** Owners of set-ups this member may see (not the member), for the owner filter. */
+  protected readonly owners = toSignal(
+    this.api.owners().pipe(
+      map((list) => list.filter((o) => o.id !== this.auth.user()?.id)),
+      catchError(() => of([] as SetupOwnerDto[])),
+    ),
+    { initialValue: [] as SetupOwnerDto[] },
+  );
   protected readonly sort = signal<Sort>({ active: 'updatedAt', direction: 'desc' });
   protected readonly pageIndex = signal(0);
   protected readonly pageSize = signal(25);
@@ -63,7 +71,7 @@ export default class LibraryPage {
     kind: this.kind(),
     status: this.status(),
     job: this.job().trim(),
-    ownerId: this.mineOnly() ? (this.auth.user()?.id ?? null) : null,
+    ownerId: this.owner() === 'me' ? (this.auth.user()?.id ?? null) : this.owner() ? Number(this.owner()) : null,
     sort: (this.sort().direction ? this.sort().active : 'updatedAt') as SetupSort,
     dir: this.sort().direction || 'desc',
     page: this.pageIndex() + 1,
@@ -127,7 +135,7 @@ export default class LibraryPage {
     this.kind.set('');
     this.status.set('');
     this.job.set('');
-    this.mineOnly.set(false);
+    this.owner.set('');
     this.pageIndex.set(0);
   }
 
