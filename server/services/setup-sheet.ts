@@ -3,7 +3,7 @@ import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
 import { setupResults, type SetupResults } from '../../shared/library/setup-results';
-import { angleSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
+import { angleBlocksSketch, angleSketch, dovetailSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
 /** What a set-up sheet is made from. */
@@ -69,15 +69,35 @@ export function sketchFor(kind: string, inputs: Record<string, unknown>, results
     const a = num(v['angleDeg']) ?? angleOf(inputs['angle']);
     if (L && a !== null && a >= 0 && a < 90) return sineBarSketch(L, a, `${String(v['stackHeight'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
   }
+  if (kind === 'gauge-blocks' && Array.isArray(v['blocks']) && v['blocks'].length > 0) {
+    return gaugeStackSketch(v['blocks'].map(String), `${String(v['total'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+  }
+  if (kind === 'angle-blocks' && Array.isArray(v['blocks']) && v['blocks'].length > 0) {
+    const blocks = (v['blocks'] as Array<Record<string, unknown>>).map((b) => ({ angleDeg: num(b['angleDeg']) ?? 0, label: String(b['angle'] ?? ''), reversed: b['direction'] === 'reverse' }));
+    return angleBlocksSketch(blocks, String(v['achievedAngleDms'] ?? ''));
+  }
+  if (kind === 'pins-rolls' && v['kind'] === 'dovetail' && (inputs['side'] === 'male' || inputs['side'] === 'female')) {
+    const values = (v['values'] ?? {}) as Record<string, unknown>;
+    const W = num(values['width']);
+    const a = num(values['angleDeg']);
+    const D = num(inputs['rollDiameter']);
+    if (W && a && D && a > 0 && a < 90) return dovetailSketch(inputs['side'], W, a, D, num(inputs['depth']), `${String(values['measurement'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+  }
+  if (kind === 'lathe-taper') {
+    const half = num(v['halfAngleDeg']);
+    if (half !== null && half > 0 && half < 45) return latheTaperSketch(half, String(v['halfAngleDms'] ?? `${half}°`), num(v['largeDiameter']), num(v['length']));
+  }
   const a = num(v['angleDeg']) ?? num(v['includedAngleDeg']) ?? angleOf(inputs['angle']);
   return a !== null && a > 0 && a < 90 ? angleSketch(a, `${a}°`) : null;
 }
 
 function drawSketch(doc: PDFKit.PDFDocument, sketch: Sketch, x: number, y: number, w: number, h: number): void {
   const { minX, minY, maxX, maxY } = sketch.box;
-  const scale = Math.min(w / (maxX - minX || 1), h / (maxY - minY || 1)) * 0.9;
+  // The title takes the top line of the box; the drawing fits below it.
+  const title = 16;
+  const scale = Math.min(w / (maxX - minX || 1), (h - title) / (maxY - minY || 1)) * 0.9;
   const ox = x + (w - (maxX - minX) * scale) / 2;
-  const oy = y + h - (h - (maxY - minY) * scale) / 2;
+  const oy = y + h - (h - title - (maxY - minY) * scale) / 2;
   const at = (p: { x: number; y: number }): [number, number] => [ox + (p.x - minX) * scale, oy - (p.y - minY) * scale];
   doc.save().lineWidth(0.8).rect(x, y, w, h).strokeColor('#c9d3d9').stroke().restore();
   const fills: Record<SketchShape['style'], [string, string]> = {
@@ -110,8 +130,13 @@ function drawSketch(doc: PDFKit.PDFDocument, sketch: Sketch, x: number, y: numbe
       }
     }
     doc.restore();
-    if (s.label && (s.kind === 'dimension' || s.kind === 'circle' || s.style === 'block')) {
-      const p = s.kind === 'dimension' ? at({ x: ((s.points[0]?.x ?? 0) + (s.points[1]?.x ?? 0)) / 2, y: ((s.points[0]?.y ?? 0) + (s.points[1]?.y ?? 0)) / 2 }) : at(s.points[0] ?? { x: 0, y: 0 });
+    if (s.label && (s.kind === 'dimension' || s.kind === 'circle' || s.style === 'block' || s.labelAt)) {
+      // A label goes where the shape says, else a dimension's at its middle and the rest at the first point.
+      const p = s.labelAt
+        ? at(s.labelAt)
+        : s.kind === 'dimension'
+          ? at({ x: ((s.points[0]?.x ?? 0) + (s.points[1]?.x ?? 0)) / 2, y: ((s.points[0]?.y ?? 0) + (s.points[1]?.y ?? 0)) / 2 })
+          : at(s.points[0] ?? { x: 0, y: 0 });
       doc.fillColor(s.style === 'block' ? MUTED : ACCENT).fontSize(8).text(pdfText(s.label), p[0] + 5, p[1] - 4, { lineBreak: false });
     }
   }

@@ -18,6 +18,8 @@ export interface SketchShape {
   r?: number;
   /** Text for a dimension or a callout. */
   label?: string;
+  /** Where the label goes, when not at the shape's usual place. */
+  labelAt?: Pt;
   style: 'part' | 'block' | 'removed' | 'cut' | 'tool' | 'mark';
 }
 
@@ -92,6 +94,114 @@ export function sineBarSketch(barLength: number, angleDeg: number, stackLabel: s
     { kind: 'dimension', style: 'mark', points: [{ x: x2 + w, y: 0 }, { x: x2 + w, y: H }], label: `H ${stackLabel}` },
   ];
   return { title: 'Sine bar on the gauge-block stack', shapes, box: bounds(shapes) };
+}
+
+/**
+ * A gauge-block stack as wrung, largest block at the bottom, each block labelled with its size and
+ * the total beside it. Thin blocks get a minimum drawn height so each label has room: the sketch
+ * shows the order and the sizes, not the proportions.
+ */
+export function gaugeStackSketch(blocks: readonly string[], totalLabel: string): Sketch {
+  const sizes = blocks.map(Number).filter((n) => Number.isFinite(n) && n > 0);
+  const order = [...sizes.keys()].sort((i, j) => sizes[j]! - sizes[i]!);
+  const total = sizes.reduce((a, b) => a + b, 0);
+  const minH = total * 0.08;
+  const w = Math.max(total * 0.35, minH * 3);
+  const shapes: SketchShape[] = [{ kind: 'line', style: 'cut', points: [{ x: -w * 0.4, y: 0 }, { x: w * 1.9, y: 0 }], label: 'surface plate' }];
+  let y = 0;
+  for (const i of order) {
+    const h = Math.max(sizes[i]!, minH);
+    shapes.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y }, { x: w, y }, { x: w, y: y + h }, { x: 0, y: y + h }], label: blocks[i], labelAt: { x: w * 0.05, y: y + h / 2 } });
+    y += h;
+  }
+  shapes.push({ kind: 'dimension', style: 'mark', points: [{ x: w * 1.3, y: 0 }, { x: w * 1.3, y }], label: totalLabel });
+  return { title: 'Gauge-block stack, largest block at the bottom (block heights not to scale)', shapes, box: bounds(shapes) };
+}
+
+/**
+ * Work turned with a taper: the large end toward the headstock, the small end toward the tail
+ * stock, and the compound (or the tail-stock offset) set to the half angle. The taper is drawn at
+ * least 6° a side so a slight taper still shows; the title says when it is exaggerated.
+ */
+export function latheTaperSketch(halfAngleDeg: number, halfAngleLabel: string, largeDiameter: number | null, length: number | null): Sketch {
+  const L = length ?? 6;
+  const D = largeDiameter ?? L / 4;
+  const drawn = Math.max(halfAngleDeg, 6);
+  const d = Math.max(D - 2 * L * Math.tan(drawn * RAD), D * 0.25);
+  const run = (D - d) / 2 / Math.tan(drawn * RAD);
+  const shapes: SketchShape[] = [
+    { kind: 'polygon', style: 'block', points: [{ x: -L * 0.25, y: -D * 0.8 }, { x: 0, y: -D * 0.8 }, { x: 0, y: D * 0.8 }, { x: -L * 0.25, y: D * 0.8 }], label: 'chuck' },
+    { kind: 'polygon', style: 'part', points: [{ x: 0, y: -D / 2 }, { x: run, y: -d / 2 }, { x: run, y: d / 2 }, { x: 0, y: D / 2 }] },
+    { kind: 'line', style: 'mark', points: [{ x: -L * 0.3, y: 0 }, { x: run + L * 0.3, y: 0 }] },
+    { kind: 'line', style: 'cut', points: [{ x: 0, y: D / 2 }, { x: run + L * 0.15, y: D / 2 - (run + L * 0.15) * Math.tan(drawn * RAD) }], label: `compound at ${halfAngleLabel}`, labelAt: { x: run * 0.2, y: D / 2 + D * 0.12 } },
+    { kind: 'dimension', style: 'mark', points: [{ x: 0, y: -D / 2 - D * 0.25 }, { x: run, y: -D / 2 - D * 0.25 }], label: length !== null ? `L ${length}` : 'taper length' },
+  ];
+  const title = drawn > halfAngleDeg ? 'Taper on the work, tool path at the half angle (angle exaggerated)' : 'Taper on the work, tool path at the half angle';
+  return { title, shapes, box: bounds(shapes) };
+}
+
+/** One angle block of a combination: its angle in degrees, its label, and whether it is turned round. */
+export interface SketchAngleBlock {
+  angleDeg: number;
+  label: string;
+  reversed: boolean;
+}
+
+/**
+ * Angle blocks wrung into a combination, bottom first: each block adds its angle, or takes it away
+ * when turned round (thick end on the other side), so the top face ends at the sum.
+ */
+export function angleBlocksSketch(blocks: readonly SketchAngleBlock[], resultLabel: string): Sketch {
+  const L = 10;
+  const t = 0.8;
+  const shapes: SketchShape[] = [{ kind: 'line', style: 'cut', points: [{ x: -1, y: 0 }, { x: L + 1, y: 0 }] }];
+  let origin: Pt = { x: 0, y: 0 };
+  let dir = 0;
+  for (const b of blocks) {
+    const u = rotate({ x: 1, y: 0 }, dir);
+    const n = rotate({ x: 0, y: 1 }, dir);
+    const rise = L * Math.tan(b.angleDeg * RAD);
+    const at = (along: number, up: number): Pt => ({ x: origin.x + u.x * along + n.x * up, y: origin.y + u.y * along + n.y * up });
+    const [left, right] = b.reversed ? [t + rise, t] : [t, t + rise];
+    const corners = [at(0, 0), at(L, 0), at(L, right), at(0, left)];
+    shapes.push({ kind: 'polygon', style: 'block', points: corners, label: b.reversed ? `${b.label} turned round` : b.label, labelAt: at(L * 0.06, Math.min(left, right) * 0.35) });
+    origin = corners[3]!;
+    dir += b.reversed ? -b.angleDeg : b.angleDeg;
+  }
+  const top = rotate({ x: L, y: 0 }, dir);
+  shapes.push({ kind: 'line', style: 'mark', points: [origin, { x: origin.x + top.x, y: origin.y + top.y }], label: `top face at ${resultLabel}`, labelAt: { x: origin.x + top.x * 0.5, y: origin.y + top.y * 0.5 + 1.2 } });
+  return { title: 'Angle blocks wrung together, bottom block first; a block turned round takes its angle away', shapes, box: bounds(shapes) };
+}
+
+/**
+ * A dovetail checked with two equal rolls: on a male dovetail the rolls sit in the undercut beside
+ * it and the reading is over them; in a female slot they sit in its corners and the reading is
+ * between them. Each roll touches the base and the flank, so its centre is r·cot(α/2) from the
+ * sharp corner along the base (REFERENCE.md §5).
+ */
+export function dovetailSketch(side: 'male' | 'female', width: number, angleDeg: number, rollDiameter: number, depth: number | null, measurementLabel: string): Sketch {
+  const W = width;
+  const r = rollDiameter / 2;
+  const h = depth ?? W * 0.35;
+  const run = h / Math.tan(angleDeg * RAD);
+  const offset = r / Math.tan((angleDeg / 2) * RAD);
+  const B = W / 2 + Math.max(run, 0) + W * 0.45;
+  const shapes: SketchShape[] = [];
+  let cx: number;
+  if (side === 'male') {
+    shapes.push({ kind: 'polygon', style: 'block', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: 0 }, { x: -B, y: 0 }] });
+    shapes.push({ kind: 'polygon', style: 'part', points: [{ x: -W / 2, y: 0 }, { x: W / 2, y: 0 }, { x: W / 2 + run, y: h }, { x: -W / 2 - run, y: h }] });
+    cx = W / 2 + offset;
+  } else {
+    shapes.push({ kind: 'polygon', style: 'part', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: h }, { x: W / 2 - run, y: h }, { x: W / 2, y: 0 }, { x: -W / 2, y: 0 }, { x: -W / 2 + run, y: h }, { x: -B, y: h }] });
+    cx = W / 2 - offset;
+  }
+  shapes.push({ kind: 'circle', style: 'tool', points: [{ x: -cx, y: r }], r }, { kind: 'circle', style: 'tool', points: [{ x: cx, y: r }], r });
+  const reach = side === 'male' ? cx + r : cx - r;
+  shapes.push({ kind: 'dimension', style: 'mark', points: [{ x: -reach, y: h + r * 1.5 }, { x: reach, y: h + r * 1.5 }], label: `M ${measurementLabel}` });
+  shapes.push({ kind: 'line', style: 'mark', points: [{ x: -reach, y: r }, { x: -reach, y: h + r * 1.5 }] }, { kind: 'line', style: 'mark', points: [{ x: reach, y: r }, { x: reach, y: h + r * 1.5 }] });
+  const title = side === 'male' ? 'Male dovetail: reading over two rolls' : 'Female dovetail: reading between two rolls';
+  return { title, shapes, box: bounds(shapes) };
 }
 
 /** A right triangle showing the angle: the sketch for areas without their own. */
