@@ -3,7 +3,7 @@ import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
 import { setupResults, type SetupResults } from '../../shared/library/setup-results';
-import { angleBlocksSketch, angleSketch, dovetailSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
+import { angleBlocksSketch, angleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
 /** What a set-up sheet is made from. */
@@ -82,6 +82,13 @@ export function sketchFor(kind: string, inputs: Record<string, unknown>, results
     const a = num(values['angleDeg']);
     const D = num(inputs['rollDiameter']);
     if (W && a && D && a > 0 && a < 90) return dovetailSketch(inputs['side'], W, a, D, num(inputs['depth']), `${String(values['measurement'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+  }
+  if (kind === 'pins-rolls' && v['kind'] === 'v-groove') {
+    const values = (v['values'] ?? {}) as Record<string, unknown>;
+    const W = num(values['grooveWidth']);
+    const a = num(values['includedAngleDeg']);
+    const D = num(inputs['pinDiameter']);
+    if (W && a && D && a > 0 && a < 180) return vGrooveSketch(W, a, D, `${String(values['measurement'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
   }
   if (kind === 'lathe-taper') {
     const half = num(v['halfAngleDeg']);

@@ -3,7 +3,7 @@ import { calculateLatheTaper } from '../../shared/calc/lathe-taper';
 import { setupResults } from '../../shared/library/setup-results';
 import { sketchFor } from './setup-sheet';
 import { calculateAngleBlocks } from '../../shared/calc/angle-blocks';
-import { angleBlocksSketch, angleSketch, dovetailSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperSketch } from './sheet-drawing';
+import { angleBlocksSketch, angleSketch, dovetailSketch, gaugeStackSketch, vGrooveSketch, latheTaperSketch, sineBarSketch, taperSketch } from './sheet-drawing';
 
 // Plain trigonometry of the sketch (derived): h = L·sin α and H = L·sin θ, REFERENCE.md §1 and §2.1.
 describe('sheet-drawing', () => {
@@ -128,6 +128,27 @@ describe('sheet-drawing', () => {
       const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
       expect(sketch.title).toMatch(/Male dovetail/);
       expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('M 2.6830 in');
+    });
+  });
+
+  describe('vGrooveSketch', () => {
+    // Derived: the pin touches both flanks, centre r / sin(θ/2) above the apex, apex (W/2)·cot(θ/2)
+    // below the surface; for W 1, θ 90°, D 0.5 the top stands 0.25·√2 + 0.25 − 0.5 = 0.1036 proud.
+    it('should seat the pin on both flanks and dimension its top over the surface', () => {
+      const sketch = vGrooveSketch(1, 90, 0.5, '0.1036 in');
+      const pin = sketch.shapes.find((s) => s.kind === 'circle')!;
+      const groove = sketch.shapes.find((s) => s.style === 'part')!;
+      const [right, apex] = [groove.points[3]!, groove.points[4]!];
+      const distance = Math.abs((apex.x - right.x) * (right.y - pin.points[0]!.y) - (right.x - pin.points[0]!.x) * (apex.y - right.y)) / Math.hypot(apex.x - right.x, apex.y - right.y);
+      expect(distance).toBeCloseTo(0.25, 12);
+      const dim = sketch.shapes.find((s) => s.kind === 'dimension')!;
+      expect(dim.points[1]!.y - dim.points[0]!.y).toBeCloseTo(0.25 * Math.SQRT2 + 0.25 - 0.5, 12);
+      expect(dim.label).toBe('h 0.1036 in');
+    });
+    it('should be what sketchFor draws for a V-groove set-up, with the engine\'s height', () => {
+      const inputs = { kind: 'v-groove', unit: 'in', includedAngle: '90', pinDiameter: '0.500', grooveWidth: '1.000' };
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('h 0.1036 in');
     });
   });
 

@@ -204,6 +204,29 @@ export function dovetailSketch(side: 'male' | 'female', width: number, angleDeg:
   return { title, shapes, box: bounds(shapes) };
 }
 
+/**
+ * A pin resting in a V-groove of included angle θ and width W at the surface: the pin touches both
+ * flanks, so its centre is r / sin(θ/2) above the groove's apex; the reading is the height of its
+ * top over the surface (negative when it sits below).
+ */
+export function vGrooveSketch(width: number, includedAngleDeg: number, pinDiameter: number, heightLabel: string): Sketch {
+  const r = pinDiameter / 2;
+  const half = (includedAngleDeg / 2) * RAD;
+  const apex = width / 2 / Math.tan(half);
+  const centre = { x: 0, y: -apex + r / Math.sin(half) };
+  const top = centre.y + r;
+  const B = width / 2 + Math.max(width * 0.6, pinDiameter);
+  const floor = -apex - Math.max(apex * 0.4, pinDiameter * 0.3);
+  const x = Math.max(width / 2, r) + pinDiameter * 0.8;
+  const shapes: SketchShape[] = [
+    { kind: 'polygon', style: 'part', points: [{ x: -B, y: floor }, { x: B, y: floor }, { x: B, y: 0 }, { x: width / 2, y: 0 }, { x: 0, y: -apex }, { x: -width / 2, y: 0 }, { x: -B, y: 0 }] },
+    { kind: 'circle', style: 'tool', points: [centre], r },
+    { kind: 'line', style: 'mark', points: [{ x: 0, y: top }, { x, y: top }] },
+    { kind: 'dimension', style: 'mark', points: [{ x, y: 0 }, { x, y: top }], label: `h ${heightLabel}` },
+  ];
+  return { title: 'Pin in the V-groove: height of its top over the surface', shapes, box: bounds(shapes) };
+}
+
 /** A right triangle showing the angle: the sketch for areas without their own. */
 export function angleSketch(angleDeg: number, label: string): Sketch {
   const a = Math.min(Math.max(angleDeg, 1), 80);
