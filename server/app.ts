@@ -16,6 +16,8 @@ import { createSetupsRouter } from './routes/setups';
 import { createBatchesRouter } from './routes/batches';
 import { createInventoriesRouter } from './routes/inventories';
 import { createStorage } from './services/storage/create-storage';
+import type { ObjectStorage } from './services/storage/object-storage';
+import { S3Storage } from './services/storage/s3-storage';
 import { openApiDocument } from './openapi';
 import { LoginThrottle } from './services/login-throttle';
 import './session-types';
@@ -36,7 +38,9 @@ export interface AppDeps {
 
 export interface SlantwiseApp {
   readonly app: Express;
-  /** Stops background timers (the session store's expiry sweep). */
+  /** Where uploads are kept (the upload sweep works on the same storage). */
+  readonly storage: ObjectStorage;
+  /** Stops background timers (the session store's expiry sweep) and closes the storage client. */
   close(): void;
 }
 
@@ -134,6 +138,10 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
 
   return {
     app,
-    close: () => sessions.stop(),
+    storage,
+    close: () => {
+      sessions.stop();
+      if (storage instanceof S3Storage) storage.close();
+    },
   };
 }

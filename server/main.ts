@@ -6,8 +6,6 @@ import { createApp } from './app';
 import { loadConfig, type AppConfig } from './config';
 import { createSequelize } from './db';
 import { initModels } from './models';
-import { createStorage } from './services/storage/create-storage';
-import { S3Storage } from './services/storage/s3-storage';
 import { scheduleUploadSweeps } from './services/upload-sweep';
 import { superviseWorkers, workerCount } from './workers';
 
@@ -30,19 +28,13 @@ export interface ServerOptions {
 export async function startServer(config: AppConfig, options: ServerOptions = {}): Promise<RunningServer> {
   const sequelize = createSequelize(config.db);
   initModels(sequelize);
-  const { app, close } = createApp({ config, sequelize });
+  const { app, storage, close } = createApp({ config, sequelize });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? reject(err) : resolve(s)));
   });
-  let stopSweeps = () => {};
-  if (options.sweepUploads && config.uploadSweep.everyMs > 0) {
-    const storage = createStorage(config.uploads);
-    const sweeper = scheduleUploadSweeps({ sequelize, storage, everyMs: config.uploadSweep.everyMs, graceMs: config.uploadSweep.graceMs });
-    stopSweeps = () => {
-      sweeper.stop();
-      if (storage instanceof S3Storage) storage.close();
-    };
-  }
+  const sweeper = options.sweepUploads && config.uploadSweep.everyMs > 0
+    ? scheduleUploadSweeps({ sequelize, storage, everyMs: config.uploadSweep.everyMs, graceMs: config.uploadSweep.graceMs })
+    : null;
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   return {
@@ -50,8 +42,8 @@ export async function startServer(config: AppConfig, options: ServerOptions = {}
     server,
     sequelize,
     async close() {
+      sweeper?.stop();
       close();
-      stopSweeps();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await sequelize.close();

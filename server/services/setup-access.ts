@@ -22,7 +22,7 @@ export async function findVisibleSetup(id: number, user: User): Promise<Setup> {
  * Who may see a team set-up: leads and admins see all; machinists and apprentices see released
  * and archived team set-ups and their own drafts.
  */
-export function canSeeSetup(user: User, setup: Setup): boolean {
+export function canSeeSetup(user: User, setup: Pick<Setup, 'teamId' | 'ownerId' | 'status'>): boolean {
   if (setup.teamId !== user.teamId) return false;
   if (user.role === 'admin' || user.role === 'lead') return true;
   return setup.ownerId === user.id || setup.status !== 'draft';

@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { selectRows } from '../db';
+import { canSeeSetup } from './setup-access';
 import type { SetupCheck, SetupDto, SetupKind, SetupOwnersDto, SetupPageDto, SetupSort, SetupStatus } from '../../shared/api/setup';
 import type { User } from '../models/user';
 
@@ -86,7 +87,7 @@ function toDto(row: SetupRow): SetupDto {
 }
 
 /** Escapes LIKE wildcards so a search for "50%" means those characters. */
-export function likeText(word: string): string {
+function likeText(word: string): string {
   return `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
@@ -145,6 +146,5 @@ export async function readVisibleSetup(sequelize: Sequelize, id: number, user: U
   const rows = await selectRows<SetupRow>(sequelize, `SELECT ${COLUMNS} FROM setups s ${PEOPLE} WHERE s.id = ? AND s.teamId = ? LIMIT 1`, [id, user.teamId]);
   const row = rows[0];
   if (!row) return null;
-  if (user.role !== 'admin' && user.role !== 'lead' && row.status === 'draft' && row.ownerId !== user.id) return null;
-  return toDto(row);
+  return canSeeSetup(user, row) ? toDto(row) : null;
 }
