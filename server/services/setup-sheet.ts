@@ -92,7 +92,10 @@ export function sketchFor(kind: string, inputs: Record<string, unknown>, results
   }
   if (kind === 'lathe-taper') {
     const half = num(v['halfAngleDeg']);
-    if (half !== null && half > 0 && half < 45) return latheTaperSketch(half, String(v['halfAngleDms'] ?? `${half}°`), num(v['largeDiameter']), num(v['length']));
+    const length = num(v['length']);
+    // Printed as the engine wrote it (to the unit's resolution), with its unit.
+    const lengthLabel = length !== null ? `L ${String(v['length'])} ${String(v['unit'] ?? '')}`.trim() : undefined;
+    if (half !== null && half > 0 && half < 45) return latheTaperSketch(half, String(v['halfAngleDms'] ?? `${half}°`), num(v['largeDiameter']), length, lengthLabel);
   }
   const a = num(v['angleDeg']) ?? num(v['includedAngleDeg']) ?? angleOf(inputs['angle']);
   return a !== null && a > 0 && a < 90 ? angleSketch(a, `${a}°`) : null;

@@ -60,15 +60,16 @@ describe('sheet-drawing', () => {
       return (b!.y - a!.y) / (b!.x - a!.x);
     };
     it('should draw a 10° half angle as it is and label the length', () => {
-      const sketch = latheTaperSketch(10, "10°00'00\"", 1.5, 2);
+      const sketch = latheTaperSketch(10, "10°00'00\"", 1.5, 2, 'L 2.0000 in');
       expect(slope(sketch)).toBeCloseTo(Math.tan(10 * Math.PI / 180), 12);
       expect(sketch.title).not.toMatch(/exaggerated/);
-      expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('L 2');
+      expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('L 2.0000 in');
     });
     it('should exaggerate a slight taper to 6° a side and say so', () => {
       const sketch = latheTaperSketch(1.4377, "1°26'16\"", null, null);
       expect(slope(sketch)).toBeCloseTo(Math.tan(6 * Math.PI / 180), 12);
       expect(sketch.title).toMatch(/exaggerated/);
+      expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('taper length');
     });
   });
 
@@ -159,6 +160,12 @@ describe('sheet-drawing', () => {
       if (!engine.ok) throw new Error(engine.error);
       const sketch = sketchFor('gauge-blocks', inputs, setupResults('gauge-blocks', inputs));
       expect(sketch?.shapes.filter((s) => s.style === 'block').map((s) => s.label).sort()).toEqual([...engine.value.blocks].sort());
+    });
+    it('should label the taper length as the engine printed it, with its unit', () => {
+      // Derived: (1.0 − 0.9) / 0.05019583 in per inch = 1.9922 in (MT3 taper per inch from REFERENCE.md §4.2).
+      const inputs = { unit: 'in', taperPerFoot: '0.60235', largeDiameter: '1.0', smallDiameter: '0.9' };
+      const sketch = sketchFor('lathe-taper', inputs, setupResults('lathe-taper', inputs))!;
+      expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('L 1.9922 in');
     });
     it('should sketch a lathe-taper set-up at the engine\'s half angle', () => {
       // REFERENCE.md §4.2 (Morse tapers, Machinery's Handbook data): MT3 is 0.60235 in/ft, half angle 1°26'16".

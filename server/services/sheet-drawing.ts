@@ -123,7 +123,7 @@ export function gaugeStackSketch(blocks: readonly string[], totalLabel: string):
  * stock, and the compound (or the tail-stock offset) set to the half angle. The taper is drawn at
  * least 6° a side so a slight taper still shows; the title says when it is exaggerated.
  */
-export function latheTaperSketch(halfAngleDeg: number, halfAngleLabel: string, largeDiameter: number | null, length: number | null): Sketch {
+export function latheTaperSketch(halfAngleDeg: number, halfAngleLabel: string, largeDiameter: number | null, length: number | null, lengthLabel = 'taper length'): Sketch {
   const L = length ?? 6;
   const D = largeDiameter ?? L / 4;
   const drawn = Math.max(halfAngleDeg, 6);
@@ -134,7 +134,7 @@ export function latheTaperSketch(halfAngleDeg: number, halfAngleLabel: string, l
     { kind: 'polygon', style: 'part', points: [{ x: 0, y: -D / 2 }, { x: run, y: -d / 2 }, { x: run, y: d / 2 }, { x: 0, y: D / 2 }] },
     { kind: 'line', style: 'mark', points: [{ x: -L * 0.3, y: 0 }, { x: run + L * 0.3, y: 0 }] },
     { kind: 'line', style: 'cut', points: [{ x: 0, y: D / 2 }, { x: run + L * 0.15, y: D / 2 - (run + L * 0.15) * Math.tan(drawn * RAD) }], label: `compound at ${halfAngleLabel}`, labelAt: { x: run * 0.2, y: D / 2 + D * 0.12 } },
-    { kind: 'dimension', style: 'mark', points: [{ x: 0, y: -D / 2 - D * 0.25 }, { x: run, y: -D / 2 - D * 0.25 }], label: length !== null ? `L ${length}` : 'taper length' },
+    { kind: 'dimension', style: 'mark', points: [{ x: 0, y: -D / 2 - D * 0.25 }, { x: run, y: -D / 2 - D * 0.25 }], label: lengthLabel },
   ];
   const title = drawn > halfAngleDeg ? 'Taper on the work, tool path at the half angle (angle exaggerated)' : 'Taper on the work, tool path at the half angle';
   return { title, shapes, box: bounds(shapes) };
