@@ -76,20 +76,25 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
   const dir = path.resolve(opts.dataDir);
   const dataDir = path.join(dir, 'data');
   const socket = path.join(dir, 'mysqld.sock');
-  fs.mkdirSync(dir, { recursive: true });
+  // A temp folder of this server's own (see mariadb-install-db below).
+  const tmpDir = path.join(dir, 'tmp');
+  fs.mkdirSync(tmpDir, { recursive: true });
   await clearStale(dir);
 
   if (!fs.existsSync(path.join(dataDir, 'mysql'))) {
     fs.rmSync(dataDir, { recursive: true, force: true });
     await run('mariadb-install-db', [
       '--no-defaults', `--datadir=${dataDir}`, '--user=root', '--auth-root-authentication-method=socket', '--skip-test-db',
+      // `--tmpdir` reaches the bootstrap server: its temp tables are named after its pid, and a file
+      // left in the shared /tmp by an earlier server with the same pid made the bootstrap abort.
+      `--tmpdir=${tmpDir}`,
     ]);
   }
 
   const child: ChildProcess = spawn(
     'mariadbd',
     [
-      '--no-defaults', '--user=root', `--datadir=${dataDir}`, `--socket=${socket}`, `--pid-file=${path.join(dir, 'mysqld.pid')}`,
+      '--no-defaults', '--user=root', `--datadir=${dataDir}`, `--tmpdir=${tmpDir}`, `--socket=${socket}`, `--pid-file=${path.join(dir, 'mysqld.pid')}`,
       '--bind-address=127.0.0.1', `--port=${opts.port}`, '--skip-name-resolve', `--log-error=${path.join(dir, 'mysqld.err')}`,
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=128M',
       '--max-connections=300', '--thread-handling=pool-of-threads', '--innodb-flush-log-at-trx-commit=2',
