@@ -36,9 +36,41 @@ function startChild(args: string[], env: NodeJS.ProcessEnv, ready: RegExp): Prom
   });
 }
 
+/** CPU seconds used so far by these processes, from Linux's /proc (USER_HZ 100); 0 where unreadable. */
+function cpuSeconds(pids: readonly number[]): number {
+  let ticks = 0;
+  for (const pid of pids) {
+    try {
+      const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+      const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      ticks += Number(fields[11]) + Number(fields[12]); // utime and stime: fields 14 and 15 of proc(5)
+    } catch {
+      // gone, or not Linux
+    }
+  }
+  return ticks / 100;
+}
+
+/** A process and its children (the cluster primary and its workers). */
+function withChildren(pid: number): number[] {
+  try {
+    const children = fs.readFileSync(`/proc/${pid}/task/${pid}/children`, 'utf8').trim().split(/\s+/).filter(Boolean).map(Number);
+    return [pid, ...children];
+  } catch {
+    return [pid];
+  }
+}
+
+/** Whose CPU time a route's rows report: the processes serving it, and MariaDB. */
+let serving: number[] = [];
+let database: number[] = [];
+
 interface Row {
   name: string;
   rps: number;
+  /** CPU time per request, in microseconds, of the serving processes and of MariaDB. */
+  appUs: number;
+  dbUs: number;
   p50: number;
   p99: number;
   errors: number;
@@ -49,20 +81,28 @@ interface Row {
 const ONLY = process.env['BENCH_ROUTES']?.split(',');
 
 async function load(name: string, opts: autocannon.Options): Promise<Row> {
-  if (ONLY && !name.startsWith('bare') && !ONLY.some((part) => name.includes(part))) return { name, rps: 0, p50: 0, p99: 0, errors: 0, non2xx: 0, s5xx: 0 };
+  if (ONLY && !name.startsWith('bare') && !ONLY.some((part) => name.includes(part))) return { name, rps: 0, appUs: 0, dbUs: 0, p50: 0, p99: 0, errors: 0, non2xx: 0, s5xx: 0 };
   // A short unmeasured run first, so every route is measured with warm JIT code, pools and caches.
   await autocannon({ connections: CONNECTIONS, duration: WARMUP_SECONDS, ...opts });
+  const [app0, db0] = [cpuSeconds(serving), cpuSeconds(database)];
   const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
+  const [app1, db1] = [cpuSeconds(serving), cpuSeconds(database)];
+  const perRequest = (seconds: number) => Math.round((seconds * 1e6) / Math.max(1, r.requests.total));
   const row: Row = {
     name,
     rps: Math.round(r.requests.average),
+    appUs: perRequest(app1 - app0),
+    dbUs: perRequest(db1 - db0),
     p50: r.latency.p50,
     p99: r.latency.p99,
     errors: r.errors + r.timeouts,
     non2xx: r.non2xx,
     s5xx: (r as unknown as { '5xx': number })['5xx'],
   };
-  console.log(`  ${name.padEnd(34)} ${String(row.rps).padStart(7)} req/s  p50 ${String(row.p50).padStart(4)} ms  p99 ${String(row.p99).padStart(4)} ms  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`);
+  console.log(
+    `  ${name.padEnd(38)} ${String(row.rps).padStart(6)} req/s  p50 ${String(row.p50).padStart(3)} ms  p99 ${String(row.p99).padStart(3)} ms` +
+      `  CPU/req app ${String(row.appUs).padStart(4)} µs db ${String(row.dbUs).padStart(3)} µs  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`,
+  );
   return row;
 }
 
@@ -89,7 +129,9 @@ async function main(): Promise<void> {
         inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' },
         notes: 'Seeded for the load benchmark.',
         job: `JOB-${(i + k) % 200}`,
-        status: (['draft', 'released', 'archived'] as const)[(i + k) % 3],
+        // Status changes every six rows, so each kind has set-ups in every status (the list's filter
+        // below matches about 1 in 18, i.e. ~555 rows: page 3 is a full page).
+        status: (['draft', 'released', 'archived'] as const)[Math.floor((i + k) / kinds.length) % 3],
       }));
       await Setup.bulkCreate(rows);
     }
@@ -100,9 +142,12 @@ async function main(): Promise<void> {
     const appPort = await freePort();
     const profile = process.env['BENCH_PROFILE'] ? ['--cpu-prof', `--cpu-prof-dir=${process.env['BENCH_PROFILE']}`] : [];
     const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000', WORKERS: String(WORKERS) };
-    children.push(await startChild([...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/));
+    const app = await startChild([...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/);
+    children.push(app);
     const barePort = await freePort();
-    children.push(await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort), WORKERS: String(WORKERS) }, /LISTENING/));
+    const bareServer = await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort), WORKERS: String(WORKERS) }, /LISTENING/);
+    children.push(bareServer);
+    database = [Number(fs.readFileSync(path.join(dir, 'mysqld.pid'), 'utf8').trim())];
     const base = `http://127.0.0.1:${appPort}`;
 
     const csrfRes = await fetch(`${base}/api/auth/csrf`);
@@ -114,7 +159,10 @@ async function main(): Promise<void> {
 
     console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, loopback; app and bare route ${WORKERS} worker(s) each, ${os.availableParallelism()} cores`);
     const json = { 'content-type': 'application/json' };
+    console.log('CPU/req: CPU time of the serving processes and of MariaDB per request answered (autocannon\'s own not counted).');
+    serving = withChildren(bareServer.pid!);
     const bare = await load('bare Express route (ceiling)', { url: `http://127.0.0.1:${barePort}/bare` });
+    serving = withChildren(app.pid!);
     const calc = [
       await load('POST /api/calc/taper', { url: `${base}/api/calc/taper`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250', depthPerPass: '0.040' }) }),
       await load('POST /api/calc/sine-bar', { url: `${base}/api/calc/sine-bar`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', barLength: '5', angle: "14°30'", set: 'inch-81' }) }),

@@ -98,6 +98,9 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
       '--bind-address=127.0.0.1', `--port=${opts.port}`, '--skip-name-resolve', `--log-error=${path.join(dir, 'mysqld.err')}`,
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=128M',
       '--max-connections=300', '--thread-handling=pool-of-threads', '--innodb-flush-log-at-trx-commit=2',
+      // The query cache answers a repeated SELECT (a session, a library page) without running it again;
+      // MariaDB drops every cached result of a table on any write to it, so answers stay exact.
+      '--query-cache-type=1', '--query-cache-size=32M',
       ...(opts.extraArgs ?? []),
     ],
     { stdio: 'ignore' },

@@ -2,7 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import type { Sequelize } from 'sequelize';
 import {
   SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
-  type SetupExportDto, type SetupPageDto, type SetupStatus,
+  type SetupExportDto, type SetupStatus,
 } from '../../shared/api/setup';
 import type { AppConfig } from '../config';
 import { currentUser } from '../middleware/auth';
@@ -15,7 +15,7 @@ import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
 import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
-import { listOwners, listSetups, readVisibleSetup } from '../services/setup-reads';
+import { listOwners, listSetupsJson, readVisibleSetup } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
 import { notifySetupReleased } from '../services/team-mail';
@@ -49,8 +49,10 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
 
   router.get('/', async (req, res) => {
     const q = listQuery(req);
-    const body: SetupPageDto = await listSetups(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE });
-    res.json(body);
+    // A SetupPageDto, as JSON text built by the query (no ETag: a library page is read fresh each time).
+    const page = await listSetupsJson(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE });
+    res.setHeader('Content-Type', 'application/json; charset=utf-8');
+    res.end(page.json);
   });
 
   router.get('/owners', async (req, res) => {
