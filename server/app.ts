@@ -6,7 +6,7 @@ import helmet from 'helmet';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from './config';
-import { loadUser, requireUser } from './middleware/auth';
+import { loadUser, renewSessions, requireUser } from './middleware/auth';
 import { requireCsrf } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createAuthRouter } from './routes/auth';
@@ -104,12 +104,14 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      // Not on every response: renewSessions below renews the expiry (cookie and row) once a minute.
+      rolling: false,
       proxy: config.trustProxy !== false ? true : undefined,
       cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies ? true : 'auto', maxAge: config.sessionIdleMs, path: '/' },
     }),
   );
 
+  app.use('/api', renewSessions(Math.min(60_000, config.sessionIdleMs / 10)));
   app.use('/api', requireCsrf(['/calc/']), loadUser(sessions));
   app.use('/api/auth', createAuthRouter(new LoginThrottle({ limit: 8, windowMs: 10 * 60_000 })));
   const storage = createStorage(config.uploads);

@@ -4,6 +4,8 @@ declare module 'express-session' {
   interface SessionData {
     userId: number;
     csrfToken: string;
+    /** When the session's expiry was last renewed (ms since the epoch; see `renewSessions`). */
+    renewedAt: number;
   }
 }
 

@@ -24,6 +24,23 @@ export function loadUser(sessions: Pick<SessionStore, 'takeUser'>): RequestHandl
   };
 }
 
+/**
+ * Renews a stored session's idle expiry at most once per `everyMs`: the session is marked changed,
+ * so express-session writes it (with a new `expires`) and sends the cookie again with a new expiry.
+ * Between renewals a response carries no Set-Cookie, and nothing is written. A session that was
+ * never stored (no sign-in, no CSRF token) is left alone, so no row is made for it.
+ */
+export function renewSessions(everyMs: number): RequestHandler {
+  return (req, _res, next) => {
+    const session = req.session;
+    if (session && (session.userId !== undefined || session.csrfToken !== undefined)) {
+      const now = Date.now();
+      if (session.renewedAt === undefined || now - session.renewedAt >= everyMs) session.renewedAt = now;
+    }
+    next();
+  };
+}
+
 /** The signed-in user, or a 401. */
 export function currentUser(req: Request): User {
   if (!req.user) throw new HttpError(401, 'Sign in to do this.');

@@ -5,9 +5,12 @@ import { HttpError } from './http-error';
 
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
-/** The session's CSRF token, made on first use. */
+/** The session's CSRF token, made on first use (which stores the session: its expiry starts now). */
 export function csrfToken(req: Request): string {
-  req.session.csrfToken ??= randomBytes(32).toString('base64url');
+  if (req.session.csrfToken === undefined) {
+    req.session.csrfToken = randomBytes(32).toString('base64url');
+    req.session.renewedAt = Date.now();
+  }
   return req.session.csrfToken;
 }
 

@@ -53,6 +53,7 @@ export function createAuthRouter(throttle: LoginThrottle): Router {
     await regenerate(req);
     req.session.userId = user.id;
     if (token) req.session.csrfToken = token;
+    req.session.renewedAt = Date.now();
     await save(req);
     await Session.update({ userId: user.id }, { where: { sid: req.sessionID } });
     res.json({ user: user.toPublic() });

@@ -15,7 +15,7 @@ import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
 import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
-import { listOwners, listSetupsJson, readVisibleSetup } from '../services/setup-reads';
+import { listOwners, listSetupsJson, readVisibleSetupJson, type JsonText } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
 import { notifySetupReleased } from '../services/team-mail';
@@ -43,16 +43,23 @@ function listQuery(req: Request) {
   return parsed.data;
 }
 
+/**
+ * Sends JSON text as it is, without Express's ETag (a hash of every body): library reads are
+ * fetched fresh each time, never revalidated.
+ */
+function sendJsonText(res: Response, body: JsonText): void {
+  res.setHeader('Content-Type', 'application/json; charset=utf-8');
+  res.end(body.json);
+}
+
 /** /api/setups: the team's set-up library. */
 export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps): Router {
   const router = Router();
 
   router.get('/', async (req, res) => {
     const q = listQuery(req);
-    // A SetupPageDto, as JSON text built by the query (no ETag: a library page is read fresh each time).
-    const page = await listSetupsJson(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE });
-    res.setHeader('Content-Type', 'application/json; charset=utf-8');
-    res.end(page.json);
+    // A SetupPageDto, as JSON text built by the query.
+    sendJsonText(res, await listSetupsJson(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE }));
   });
 
   router.get('/owners', async (req, res) => {
@@ -92,9 +99,9 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
 
   router.get('/:id', async (req, res) => {
     const user = currentUser(req);
-    const setup = await readVisibleSetup(sequelize, parseId(req.params['id']), user);
+    const setup = await readVisibleSetupJson(sequelize, parseId(req.params['id']), user);
     if (!setup) throw new HttpError(404, NOT_IN_TEAM);
-    res.json(setup);
+    sendJsonText(res, setup);
   });
 
   router.put('/:id', async (req, res) => {

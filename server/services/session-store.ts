@@ -2,6 +2,7 @@ import connectSessionSequelize from 'connect-session-sequelize';
 import session, { type SessionData, type Store } from 'express-session';
 import type { Sequelize } from 'sequelize';
 import { selectRows } from '../db';
+import { Session } from '../models/session';
 import { User } from '../models/user';
 
 export interface SessionStore {
@@ -18,11 +19,12 @@ export interface SessionStore {
 
 /**
  * Sessions in MariaDB (connect-session-sequelize on the `sessions` table, created by a migration),
- * with two changes to the library's behaviour:
+ * with these changes to the library's behaviour:
  * - a session whose `expires` has passed is treated as gone at once (the library leaves that to its
  *   periodic sweep), so idle expiry holds on the server and not only in the browser;
- * - the rolling expiry is written at most once per `touchEveryMs` per session and instance, instead
- *   of one UPDATE per request (the expiry may then run up to that long early);
+ * - `touch` writes nothing: the expiry is renewed when `renewSessions` has the session saved, at
+ *   most once a minute, instead of one UPDATE per request (so it may run up to that long early);
+ *   and a save of a session read earlier only updates its row, so a destroyed session stays gone;
  * - the session row and its active user are read in one plain query, and the user is handed to
  *   `loadUser` through `takeUser`, so a signed-in request costs one round trip before its route.
  */
@@ -53,7 +55,7 @@ function userFromRow(row: SessionUserRow): User {
   );
 }
 
-export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEveryMs = Math.min(60_000, idleMs / 10)): SessionStore {
+export function createSessionStore(sequelize: Sequelize, idleMs: number): SessionStore {
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({
     db: sequelize,
@@ -68,10 +70,14 @@ export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEv
   });
 
   const handOver = new Map<string, { user: User; at: number }>();
+  /** Sessions this instance has read from the store (see `store.set` below). */
+  const read = new Set<string>();
   store.get = (sid: string, callback: (err: unknown, session?: SessionData | null) => void) => {
     selectRows<SessionUserRow>(sequelize, SESSION_WITH_USER, [sid])
       .then(([row]) => {
         if (!row || !row.data || (row.expires && new Date(row.expires).getTime() <= Date.now())) return callback(null, null);
+        if (read.size > 100_000) read.clear();
+        read.add(sid);
         if (row.uId !== null) {
           if (handOver.size > 10_000) handOver.clear();
           handOver.set(sid, { user: userFromRow(row), at: Date.now() });
@@ -88,15 +94,20 @@ export function createSessionStore(sequelize: Sequelize, idleMs: number, touchEv
     return Date.now() - entry.at < HAND_OVER_MS ? entry.user : undefined;
   };
 
-  const touchedAt = new Map<string, number>();
-  const touch = store.touch.bind(store);
-  store.touch = (sid: string, data: SessionData, callback?: (err?: unknown) => void) => {
-    const now = Date.now();
-    const last = touchedAt.get(sid);
-    if (last !== undefined && now - last < touchEveryMs) return callback?.();
-    if (touchedAt.size > 100_000) touchedAt.clear();
-    touchedAt.set(sid, now);
-    return touch(sid, data, callback);
+  // Expiry is renewed by saving the session once a minute (`renewSessions`), not by a write per request.
+  store.touch = (_sid: string, _data: SessionData, callback?: (err?: unknown) => void) => callback?.();
+
+  // A session read from the store is only ever updated, never created again: a save that races a
+  // sign-out (a request begun before it, renewing the session) must not bring the session back.
+  // The library's own `set` (find, else create) stays for sessions this instance never read.
+  const createOrUpdate = store.set.bind(store);
+  const expiration = (store as unknown as { expiration(data: SessionData): Date }).expiration.bind(store);
+  store.set = (sid: string, data: SessionData, callback?: (err?: unknown) => void) => {
+    if (!read.has(sid)) return createOrUpdate(sid, data, callback);
+    Session.update({ data: JSON.stringify(data), expires: expiration(data), userId: data.userId ?? null }, { where: { sid } }).then(
+      () => callback?.(),
+      (err: unknown) => callback?.(err),
+    );
   };
 
   return { store, takeUser, stop: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions() };

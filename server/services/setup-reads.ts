@@ -1,14 +1,14 @@
 import type { Sequelize } from 'sequelize';
 import { selectRows } from '../db';
 import { canSeeSetup } from './setup-access';
-import type { SetupCheck, SetupDto, SetupKind, SetupOwnersDto, SetupSort, SetupStatus } from '../../shared/api/setup';
+import type { SetupKind, SetupOwnersDto, SetupSort, SetupStatus } from '../../shared/api/setup';
 import type { User } from '../models/user';
 
 /**
- * The library's two hot reads — a page of the list and one set-up — as plain SQL mapped straight
- * to the API shape. They answer exactly what `Setup.toDto()` does with the owner and releaser
- * joined, at about a fifth of the CPU of building Sequelize instances (see docs/hardening.md,
- * "Load"). Writes stay on the models.
+ * The library's hot reads — a page of the list and one set-up — as plain SQL whose rows are the
+ * API's JSON, built by MariaDB. They answer exactly what `Setup.toDto()` does with the owner and
+ * releaser joined (tests/api/library compares every field), without building Sequelize instances
+ * or parsing and re-encoding each row here (see docs/hardening.md, "Load"). Writes stay on the models.
  */
 
 /** A filtered, sorted page of the library, as parsed from the query string. */
@@ -24,27 +24,6 @@ export interface SetupListFilter {
   pageSize: number;
 }
 
-interface SetupRow {
-  id: number;
-  teamId: number;
-  name: string;
-  kind: string;
-  inputs: string;
-  notes: string;
-  job: string | null;
-  status: SetupStatus;
-  version: number;
-  checks: string | null;
-  ownerId: number;
-  ownerName: string | null;
-  releasedAt: Date | null;
-  releasedByName: string | null;
-  createdAt: Date;
-  updatedAt: Date;
-}
-
-const COLUMNS = `s.id, s.teamId, s.name, s.kind, s.inputs, s.notes, s.job, s.status, s.version, s.checks, s.ownerId,
-  o.name AS ownerName, s.releasedAt, r.name AS releasedByName, s.createdAt, s.updatedAt`;
 const PEOPLE = 'LEFT JOIN users o ON o.id = s.ownerId LEFT JOIN users r ON r.id = s.releasedById';
 
 /** Sort keys of the API → SQL expressions (a fixed list: nothing from the request reaches SQL text). */
@@ -57,34 +36,6 @@ const ORDER_BY: Record<SetupSort, string> = {
   updatedAt: 's.updatedAt',
   createdAt: 's.createdAt',
 };
-
-function toDate(value: Date | string): Date {
-  return value instanceof Date ? value : new Date(value);
-}
-
-function parseChecks(raw: string | null): SetupCheck[] {
-  return raw === null || raw === '' ? [] : (JSON.parse(raw) as SetupCheck[]);
-}
-
-function toDto(row: SetupRow): SetupDto {
-  return {
-    id: row.id,
-    name: row.name,
-    kind: row.kind as SetupKind,
-    inputs: JSON.parse(row.inputs) as Record<string, unknown>,
-    notes: row.notes,
-    job: row.job ?? null,
-    status: row.status,
-    version: row.version,
-    checks: parseChecks(row.checks),
-    ownerId: row.ownerId,
-    ownerName: row.ownerName ?? null,
-    releasedAt: row.releasedAt ? toDate(row.releasedAt).toISOString() : null,
-    releasedByName: row.releasedByName ?? null,
-    createdAt: toDate(row.createdAt).toISOString(),
-    updatedAt: toDate(row.updatedAt).toISOString(),
-  };
-}
 
 /** Escapes LIKE wildcards so a search for "50%" means those characters. */
 function likeText(word: string): string {
@@ -119,8 +70,8 @@ function isoText(column: string): string {
 
 /**
  * One set-up in the API shape as JSON text, built by MariaDB: the same fields and values as
- * `toDto` below (a test compares them on every row), so the list never parses and re-encodes
- * each row's inputs, checks and dates in this process. (Cast to text where it is selected: the
+ * `Setup.toDto()` (a test compares them on every row), so this process never parses and re-encodes
+ * a row's inputs, checks and dates. (Cast to text where it is selected: the
  * driver would otherwise parse a JSON column into objects.)
  */
 const SETUP_JSON = `JSON_OBJECT('id', s.id, 'name', s.name, 'kind', s.kind, 'inputs', JSON_EXTRACT(s.inputs, '$'),
@@ -180,10 +131,13 @@ export async function listOwners(sequelize: Sequelize, user: User): Promise<Setu
   return { owners: rows.map((r) => ({ id: r.id, name: r.name, count: Number(r.count) })) };
 }
 
-/** One team set-up this user may see, or null (the caller answers 404 without a hint). */
-export async function readVisibleSetup(sequelize: Sequelize, id: number, user: User): Promise<SetupDto | null> {
-  const rows = await selectRows<SetupRow>(sequelize, `SELECT ${COLUMNS} FROM setups s ${PEOPLE} WHERE s.id = ? AND s.teamId = ? LIMIT 1`, [id, user.teamId]);
+/** One team set-up this user may see, as the JSON text of its `SetupDto`, or null (the caller answers 404 without a hint). */
+export async function readVisibleSetupJson(sequelize: Sequelize, id: number, user: User): Promise<JsonText | null> {
+  const rows = await selectRows<{ j: string; teamId: number; ownerId: number; status: SetupStatus }>(
+    sequelize,
+    `SELECT CAST(${SETUP_JSON} AS CHAR) AS j, s.teamId, s.ownerId, s.status FROM setups s ${PEOPLE} WHERE s.id = ? AND s.teamId = ? LIMIT 1`,
+    [id, user.teamId],
+  );
   const row = rows[0];
-  if (!row) return null;
-  return canSeeSetup(user, row) ? toDto(row) : null;
+  return row && canSeeSetup(user, row) ? { json: row.j } : null;
 }

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { SESSION_COOKIE } from '../../server/app';
 import { Session, User } from '../../server/models';
+import { createSessionStore } from '../../server/services/session-store';
 import { client, clientIp, makeTeam, openApp, PASSWORD, type Members, type TestApp } from '../support/api';
 
 let t: TestApp;
@@ -124,6 +125,45 @@ describe('sign-out and /me', () => {
     await c.agent.get('/api/auth/me').expect(200);
     await Session.update({ expires: new Date(Date.now() - 1000) }, { where: { userId: m.admin.id } });
     await c.agent.get('/api/auth/me').expect(401);
+  });
+
+  it('renews the session (its cookie and its row) at most once a minute, not on every response', async () => {
+    const c = await client(t.app, m.machinist);
+    await c.agent.get('/api/auth/me').expect(200);
+    const quiet = await c.agent.get('/api/auth/me').expect(200);
+    expect(quiet.headers['set-cookie']).toBeUndefined();
+    // Move the last renewal two minutes back and the row's expiry close: the next request renews both.
+    const [row] = await Session.findAll({ where: { userId: m.machinist.id }, order: [['updatedAt', 'DESC']], limit: 1 });
+    const data = JSON.parse(row!.data!) as { renewedAt: number };
+    expect(data.renewedAt).toBeGreaterThan(Date.now() - 60_000);
+    const soon = new Date(Date.now() + 60_000);
+    await row!.update({ data: JSON.stringify({ ...data, renewedAt: data.renewedAt - 120_000 }), expires: soon });
+    const renewed = await c.agent.get('/api/auth/me').expect(200);
+    const cookie = String(renewed.headers['set-cookie']);
+    expect(cookie).toMatch(new RegExp(`^${SESSION_COOKIE}=`));
+    const cookieExpires = new Date(/Expires=([^;]+)/.exec(cookie)![1]!).getTime();
+    expect(cookieExpires).toBeGreaterThan(Date.now() + t.config.sessionIdleMs - 5_000);
+    await row!.reload();
+    expect(row!.expires!.getTime()).toBeGreaterThan(soon.getTime() + 60_000);
+    expect(row!.userId).toBe(m.machinist.id);
+  });
+
+  it('keeps a signed-out session gone when a request that began before the sign-out saves it afterwards', async () => {
+    const store = createSessionStore(Session.sequelize!, t.config.sessionIdleMs);
+    try {
+      const call = <T>(fn: (done: (err: unknown, value?: T) => void) => void) => new Promise<T | undefined>((resolve, reject) => fn((err, value) => (err ? reject(err) : resolve(value))));
+      const sid = `race-${Date.now()}-${Math.random().toString(36).slice(2, 10)}`;
+      const data = { cookie: { originalMaxAge: 60_000, expires: new Date(Date.now() + 60_000) }, userId: m.machinist.id, csrfToken: 'x' };
+      await call((done) => store.store.set(sid, data as never, done));
+      const loaded = await call<object>((done) => store.store.get(sid, done));
+      expect(loaded).toMatchObject({ userId: m.machinist.id });
+      await call((done) => store.store.destroy(sid, done)); // the sign-out
+      await call((done) => store.store.set(sid, { ...data, renewedAt: Date.now() } as never, done)); // the late renewal
+      expect(await call((done) => store.store.get(sid, done))).toBeNull();
+      expect(await Session.count({ where: { sid } })).toBe(0);
+    } finally {
+      store.stop();
+    }
   });
 
   it('answers many requests in flight on one session each with that session\'s member and current role', async () => {
