@@ -85,10 +85,13 @@ export function createApp({ config, sequelize }: AppDeps): SlantwiseApp {
     rateLimit({
       windowMs: 60_000,
       limit: config.calcRateLimitPerMinute,
-      standardHeaders: 'draft-8',
+      // draft-7 headers (RateLimit, RateLimit-Policy): draft-8's adds a SHA-256 of the client's key to
+      // every answer. The library's configuration checks only log, on every request; this
+      // configuration is fixed and tested (`trust proxy` is set deliberately from TRUST_PROXY), so
+      // they are off.
+      standardHeaders: 'draft-7',
       legacyHeaders: false,
-      // `trust proxy` is set deliberately from TRUST_PROXY (a hop count or addresses in production).
-      validate: { trustProxy: false },
+      validate: false,
       handler: (_req, res) => {
         res.status(429).json({ error: 'Too many calculation requests from this address; wait a minute and try again.' });
       },

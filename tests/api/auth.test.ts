@@ -244,6 +244,28 @@ describe('throttling', () => {
     expect(statuses.slice(0, 5).every((s) => s === 401)).toBe(true);
     expect(statuses.at(-1)).toBe(429);
   });
+
+  it('answers 429 on the calculation routes past the per-address limit, telling what is left', async () => {
+    const limited = openApp({ calcRateLimitPerMinute: 3 });
+    try {
+      const body = { unit: 'in', barLength: '5', angle: '30' };
+      const ip = clientIp();
+      const calc = (from: string) => request(limited.app).post('/api/calc/sine-bar').set('X-Forwarded-For', from).send(body);
+      const first = await calc(ip).expect(200);
+      expect(first.headers['ratelimit-policy']).toBe('3;w=60');
+      expect(first.headers['ratelimit']).toMatch(/^limit=3, remaining=2, reset=\d+$/);
+      await calc(ip).expect(200);
+      await calc(ip).expect(200);
+      const refused = await calc(ip).expect(429);
+      expect(refused.headers['content-type']).toMatch(/json/);
+      expect(refused.body.error).toMatch(/wait a minute/);
+      expect(refused.headers['ratelimit']).toMatch(/remaining=0/);
+      // Another address is counted on its own.
+      await calc(clientIp()).expect(200);
+    } finally {
+      await limited.close();
+    }
+  });
 });
 
 describe('security headers and errors', () => {
