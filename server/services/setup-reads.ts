@@ -71,8 +71,8 @@ function isoText(column: string): string {
 /**
  * One set-up in the API shape as JSON text, built by MariaDB: the same fields and values as
  * `Setup.toDto()` (a test compares them on every row), so this process never parses and re-encodes
- * a row's inputs, checks and dates. (Cast to text where it is selected: the
- * driver would otherwise parse a JSON column into objects.)
+ * a row's inputs, checks and dates. Cast to text where it is selected: the driver would otherwise
+ * parse a JSON column into objects.
  */
 const SETUP_JSON = `JSON_OBJECT('id', s.id, 'name', s.name, 'kind', s.kind, 'inputs', JSON_EXTRACT(s.inputs, '$'),
   'notes', s.notes, 'job', s.job, 'status', s.status, 'version', s.version,
