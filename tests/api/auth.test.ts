@@ -1,3 +1,4 @@
+import type { SessionData } from 'express-session';
 import request from 'supertest';
 import { SESSION_COOKIE } from '../../server/app';
 import { Session, User } from '../../server/models';
@@ -155,7 +156,7 @@ describe('sign-out and /me', () => {
       const sid = `race-${Date.now()}-${Math.random().toString(36).slice(2, 10)}`;
       const data = { cookie: { originalMaxAge: 60_000, expires: new Date(Date.now() + 60_000) }, userId: m.machinist.id, csrfToken: 'x' };
       await call((done) => store.store.set(sid, data as never, done));
-      const loaded = await call<object>((done) => store.store.get(sid, done));
+      const loaded = await call<SessionData | null>((done) => store.store.get(sid, done));
       expect(loaded).toMatchObject({ userId: m.machinist.id });
       await call((done) => store.store.destroy(sid, done)); // the sign-out
       await call((done) => store.store.set(sid, { ...data, renewedAt: Date.now() } as never, done)); // the late renewal
