@@ -9,6 +9,7 @@ import { calculateTaper } from '../../shared/calc/taper';
 import { ANGLE_BLOCK_SETS } from '../../shared/data/angle-block-sets';
 import { GAUGE_BLOCK_SETS } from '../../shared/data/gauge-sets';
 import { MACHINE_TAPERS } from '../../shared/data/machine-tapers';
+import { sendJsonText } from './send-json';
 
 /** A calculation answer ready to send: the status and the JSON bytes (encoded once, sent as they are). */
 interface Answer {
@@ -77,9 +78,7 @@ export function createCalcRouter(cache = new AnswerCache()): Router {
   for (const [path, calc] of Object.entries(calcs)) {
     router.post(path, (req: Request, res: Response) => {
       const { status, json } = cache.answer(path, req.body, () => answer(calc(req.body)));
-      // Sent as stored: an answer to a POST needs no ETag, so Express's hashing of each body is skipped.
-      res.status(status).setHeader('Content-Type', 'application/json; charset=utf-8');
-      res.end(json);
+      sendJsonText(res, json, status);
     });
   }
   router.get('/gauge-sets', (_req, res) => {

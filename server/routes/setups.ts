@@ -15,12 +15,13 @@ import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
 import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
-import { listOwners, listSetupsJson, readVisibleSetupJson, type JsonText } from '../services/setup-reads';
+import { listOwners, listSetupsJson, readVisibleSetupJson } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
 import { notifySetupReleased } from '../services/team-mail';
 import type { ObjectStorage } from '../services/storage/object-storage';
 import { createAttachmentsRouter } from './attachments';
+import { sendJsonText } from './send-json';
 
 /** What the library routes need from the app. */
 export interface LibraryDeps {
@@ -43,15 +44,6 @@ function listQuery(req: Request) {
   return parsed.data;
 }
 
-/**
- * Sends JSON text as it is, without Express's ETag (a hash of every body): library reads are
- * fetched fresh each time, never revalidated.
- */
-function sendJsonText(res: Response, body: JsonText): void {
-  res.setHeader('Content-Type', 'application/json; charset=utf-8');
-  res.end(body.json);
-}
-
 /** /api/setups: the team's set-up library. */
 export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps): Router {
   const router = Router();
@@ -59,7 +51,7 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
   router.get('/', async (req, res) => {
     const q = listQuery(req);
     // A SetupPageDto, as JSON text built by the query.
-    sendJsonText(res, await listSetupsJson(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE }));
+    sendJsonText(res, (await listSetupsJson(sequelize, currentUser(req), { ...q, page: q.page ?? 1, pageSize: q.pageSize ?? DEFAULT_PAGE_SIZE })).json);
   });
 
   router.get('/owners', async (req, res) => {
@@ -101,7 +93,7 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     const user = currentUser(req);
     const setup = await readVisibleSetupJson(sequelize, parseId(req.params['id']), user);
     if (!setup) throw new HttpError(404, NOT_IN_TEAM);
-    sendJsonText(res, setup);
+    sendJsonText(res, setup.json);
   });
 
   router.put('/:id', async (req, res) => {

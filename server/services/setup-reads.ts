@@ -80,18 +80,7 @@ const SETUP_JSON = `JSON_OBJECT('id', s.id, 'name', s.name, 'kind', s.kind, 'inp
   'ownerId', s.ownerId, 'ownerName', o.name, 'releasedAt', ${isoText('s.releasedAt')}, 'releasedByName', r.name,
   'createdAt', ${isoText('s.createdAt')}, 'updatedAt', ${isoText('s.updatedAt')})`;
 
-/** The page's sort keys again, on the derived table's columns (see listSetupsJson). */
-const OUTER_ORDER_BY: Record<SetupSort, string> = {
-  name: 'p.name',
-  kind: 'p.kind',
-  status: 'p.status',
-  job: 'p.job',
-  owner: 'p.ownerName',
-  updatedAt: 'p.updatedAt',
-  createdAt: 'p.createdAt',
-};
-
-/** A JSON text ready to send as it is (see `sendJsonText`). */
+/** A JSON text ready to send as it is (server/routes/send-json.ts). */
 export interface JsonText {
   readonly json: string;
 }
@@ -106,13 +95,12 @@ export async function listSetupsJson(sequelize: Sequelize, user: User, f: SetupL
   const where = listWhere(user, f);
   const sort = f.sort ?? 'updatedAt';
   const dir = (f.dir ?? (sort === 'updatedAt' || sort === 'createdAt' ? 'desc' : 'asc')) === 'desc' ? 'DESC' : 'ASC';
-  const sortColumn = sort === 'owner' ? 'o.name AS ownerName' : `s.${sort}`;
   const rows = await selectRows<{ total: number | bigint; j: string | null }>(
     sequelize,
     `SELECT c.total, p.j FROM (SELECT COUNT(*) AS total FROM setups s WHERE ${where.sql}) c
-      LEFT JOIN (SELECT CAST(${SETUP_JSON} AS CHAR) AS j, ${sortColumn}, s.id FROM setups s ${PEOPLE} WHERE ${where.sql}
+      LEFT JOIN (SELECT CAST(${SETUP_JSON} AS CHAR) AS j, ${ORDER_BY[sort]} AS sortKey, s.id FROM setups s ${PEOPLE} WHERE ${where.sql}
         ORDER BY ${ORDER_BY[sort]} ${dir}, s.id ${dir} LIMIT ? OFFSET ?) p ON TRUE
-      ORDER BY ${OUTER_ORDER_BY[sort]} ${dir}, p.id ${dir}`,
+      ORDER BY p.sortKey ${dir}, p.id ${dir}`,
     [...where.params, ...where.params, f.pageSize, (f.page - 1) * f.pageSize],
   );
   const total = Number(rows[0]?.total ?? 0);
