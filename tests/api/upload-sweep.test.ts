@@ -143,6 +143,24 @@ describe('orphaned upload files on disk', () => {
     await expectDownloads(who, [image, drawing]);
   });
 
+  it('removes the folders its removals leave empty; folders with kept files stay', async () => {
+    const storage: ObjectStorage = new DiskStorage(dir);
+    const [image] = await uploadTwo(who);
+    // Files of a set-up whose rows are all gone (no row refers to anything in its folder).
+    const goneFolder = `teams/${m.team.id}/setups/${image.setupId + 100_000}`;
+    const gone = [`${goneFolder}/${randomUUID()}`, `${goneFolder}/${randomUUID()}-thumb`];
+    for (const key of gone) await storage.put(key, Buffer.from('orphan'), 'application/pdf');
+    const old = new Date(Date.now() - 2 * HOUR);
+    for (const key of gone) fs.utimesSync(path.join(dir, ...key.split('/')), old, old);
+
+    const result = await sweepOrphanUploads({ sequelize, storage, olderThanMs: HOUR });
+    expect([...result.removed].sort()).toEqual([...gone].sort());
+    expect(fs.existsSync(path.join(dir, ...goneFolder.split('/')))).toBe(false);
+    // The team's other set-up folders (with files still referred to) are where they were.
+    expect(fs.existsSync(path.join(dir, ...image.storageKey.split('/')))).toBe(true);
+    await expectDownloads(who, [image]);
+  });
+
   it('keeps referenced files when they are far more than one lookup chunk (1,200 attachments)', async () => {
     const bulkDir = path.join(base, 'bulk');
     const storage: ObjectStorage = new DiskStorage(bulkDir);

@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import fsp from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { DiskStorage } from './disk-storage';
@@ -100,3 +101,61 @@ describe('DiskStorage.list', () => {
     expect(fs.existsSync(path.join(outside, 'secret'))).toBe(true);
   });
 });
+
+describe('DiskStorage.delete', () => {
+  it('removes the folders a deleted key leaves empty, up to the upload folder, and no others', async () => {
+    await storage.put('teams/1/setups/2/aaa', Buffer.from('a'));
+    await storage.put('teams/1/setups/2/bbb', Buffer.from('b'));
+    await storage.put('teams/1/setups/3/ccc', Buffer.from('c'));
+    await storage.delete('teams/1/setups/2/aaa');
+    expect(fs.existsSync(path.join(root, 'teams/1/setups/2'))).toBe(true); // bbb is still in it
+    await storage.delete('teams/1/setups/2/bbb');
+    expect(fs.existsSync(path.join(root, 'teams/1/setups/2'))).toBe(false);
+    expect(fs.existsSync(path.join(root, 'teams/1/setups/3/ccc'))).toBe(true);
+    await storage.delete('teams/1/setups/3/ccc');
+    expect(fs.readdirSync(root)).toEqual([]); // teams/1/setups/3, teams/1/setups, teams/1 and teams went
+    expect(fs.existsSync(root)).toBe(true);
+    // A left-over temp file's folder goes the same way; a missing key is still not an error.
+    write('teams/4/setups/5/ddd.0123456789ab.part', 'half');
+    await storage.delete('teams/4/setups/5/ddd.0123456789ab.part');
+    expect(fs.readdirSync(root)).toEqual([]);
+    await expect(storage.delete('teams/4/setups/5/ddd')).resolves.toBeUndefined();
+  });
+
+  it('keeps a folder with anything else in it, and removes nothing through a symbolic link', async () => {
+    write('teams/1/setups/2/notes.txt', 'not ours, but in the folder');
+    await storage.put('teams/1/setups/2/aaa', Buffer.from('a'));
+    await storage.delete('teams/1/setups/2/aaa');
+    expect(fs.existsSync(path.join(root, 'teams/1/setups/2/notes.txt'))).toBe(true);
+
+    // teams/9 links to a folder outside: neither the file nor the empty folders there are touched.
+    fs.symlinkSync(outside, path.join(root, 'teams', '9'), 'dir');
+    fs.mkdirSync(path.join(outside, 'setups', 'empty'));
+    fs.writeFileSync(path.join(outside, 'setups', 'empty-key'), 'outside');
+    await storage.delete('teams/9/setups/empty-key');
+    await storage.delete('teams/9/setups/empty/zzz');
+    expect(fs.readFileSync(path.join(outside, 'setups', 'empty-key'), 'utf8')).toBe('outside');
+    expect(fs.existsSync(path.join(outside, 'setups', 'empty'))).toBe(true);
+    expect(fs.lstatSync(path.join(root, 'teams', '9')).isSymbolicLink()).toBe(true);
+  });
+
+  it('lets an upload land in a folder that a delete removed between making it and writing into it', async () => {
+    await storage.put('teams/1/setups/2/old', Buffer.from('old'));
+    // The delete of the folder's last file runs exactly between put's mkdir and its write.
+    const original = fsp.writeFile;
+    const spy = jest.spyOn(fsp, 'writeFile').mockImplementationOnce(async (...args: Parameters<typeof fsp.writeFile>) => {
+      await storage.delete('teams/1/setups/2/old');
+      expect(fs.existsSync(path.join(root, 'teams'))).toBe(false);
+      return original(...args);
+    });
+    try {
+      await storage.put('teams/1/setups/2/new', Buffer.from('new'));
+      expect(spy).toHaveBeenCalledTimes(2); // the first write found no folder; the second made it again
+    } finally {
+      spy.mockRestore();
+    }
+    expect(fs.readFileSync(path.join(root, 'teams/1/setups/2/new'), 'utf8')).toBe('new');
+    expect(keys(await storage.list(''))).toEqual(['teams/1/setups/2/new']);
+  });
+});
+

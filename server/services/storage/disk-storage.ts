@@ -31,10 +31,19 @@ export class DiskStorage implements ObjectStorage {
 
   async put(key: string, body: Buffer): Promise<void> {
     const target = this.file(key);
-    await fs.mkdir(path.dirname(target), { recursive: true });
     // Write then rename, so a reader never sees half a file.
     const temp = `${target}.${randomBytes(6).toString('hex')}.part`;
-    await fs.writeFile(temp, body, { mode: 0o640 });
+    // A delete elsewhere may remove the folder (once empty) between making it and writing into it:
+    // then the folder is made again. Once the temp file is in it, the folder is not empty any more.
+    for (let attempt = 1; ; attempt += 1) {
+      await fs.mkdir(path.dirname(target), { recursive: true });
+      try {
+        await fs.writeFile(temp, body, { mode: 0o640 });
+        break;
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code !== 'ENOENT' || attempt >= 5) throw err;
+      }
+    }
     await fs.rename(temp, target);
   }
 
@@ -56,18 +65,44 @@ export class DiskStorage implements ObjectStorage {
     }
   }
 
-  /** Also removes a leftover temp file (`<key>.<hex>.part`) that {@link list} reported. */
+  /**
+   * Also removes a leftover temp file (`<key>.<hex>.part`) that {@link list} reported. Folders the
+   * key's removal leaves empty are removed too, up to (not including) the upload folder. Nothing is
+   * removed through a symbolic link: the key's folder must really be inside the upload folder.
+   */
   async delete(key: string): Promise<void> {
-    if (!TEMP_KEY.test(key)) {
-      await fs.rm(this.file(key), { force: true });
-      return;
-    }
-    const full = this.inside(key);
-    // Only a plain file inside the real upload folder: never through a folder linked elsewhere.
-    const [realRoot, realDir] = await Promise.all([fs.realpath(this.root), fs.realpath(path.dirname(full)).catch(() => null)]);
-    if (realDir === null || (realDir !== realRoot && !realDir.startsWith(realRoot + path.sep))) return;
+    const full = TEMP_KEY.test(key) ? this.inside(key) : this.file(key);
+    if (!(await this.isOwnFolder(path.dirname(full)))) return;
     const stat = await fs.lstat(full).catch(() => null);
-    if (stat?.isFile()) await fs.rm(full, { force: true });
+    // A plain file (or a link itself, never what it points to: rm does not follow the last name).
+    if (stat && (stat.isFile() || stat.isSymbolicLink())) await fs.rm(full, { force: true });
+    await this.pruneEmptyFolders(key);
+  }
+
+  /** Whether `dir` exists and is reached from the upload folder without any symbolic link. */
+  private async isOwnFolder(dir: string): Promise<boolean> {
+    const [realRoot, realDir] = await Promise.all([fs.realpath(this.root).catch(() => null), fs.realpath(dir).catch(() => null)]);
+    if (realRoot === null || realDir === null) return false;
+    return realDir === path.join(realRoot, path.relative(this.root, dir));
+  }
+
+  /**
+   * Removes the key's folders from the deepest up while they are empty. `rmdir` removes only an
+   * empty folder, so a folder another upload is writing into stays; {@link put} makes its folder
+   * again if it went just before its write.
+   */
+  private async pruneEmptyFolders(key: string): Promise<void> {
+    const parts = key.split('/').slice(0, -1);
+    while (parts.length > 0) {
+      const dir = this.inside(parts.join('/'));
+      if (!(await this.isOwnFolder(dir))) return;
+      try {
+        await fs.rmdir(dir);
+      } catch {
+        return; // not empty, or already gone: the folders above are not empty either
+      }
+      parts.pop();
+    }
   }
 
   /**
