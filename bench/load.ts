@@ -16,8 +16,12 @@ import { startMariaDb } from '../scripts/mariadb';
 import { freePort } from '../tests/support/isolated-db';
 import { workerCount } from '../server/workers';
 
-const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 8);
+const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 6);
 const WARMUP_SECONDS = Number(process.env['BENCH_WARMUP_SECONDS'] ?? 2);
+/** Warm-up before a route in the second and later rounds (the code is warm by then). */
+const REWARM_SECONDS = Math.min(1, WARMUP_SECONDS);
+/** Each route is measured once per round; the targets are judged on the median of the rounds. */
+const ROUNDS = Math.max(1, Math.floor(Number(process.env['BENCH_ROUNDS'] ?? 3)));
 const CONNECTIONS = Number(process.env['BENCH_CONNECTIONS'] ?? 100);
 const SETUPS = Number(process.env['BENCH_SETUPS'] ?? 10_000);
 /** App processes (cluster workers), for the app and the bare route alike: one per core unless set. */
@@ -51,6 +55,18 @@ function cpuSeconds(pids: readonly number[]): number {
   return ticks / 100;
 }
 
+/** The whole machine's CPU ticks from /proc/stat: all of them, and those idle (idle + iowait) and stolen by the host. */
+function machineTicks(): { total: number; idle: number; steal: number } {
+  try {
+    const f = fs.readFileSync('/proc/stat', 'utf8').split('\n')[0]!.trim().split(/\s+/).slice(1).map(Number);
+    // user nice system idle iowait irq softirq steal (guest time is already counted in user)
+    const total = f.slice(0, 8).reduce((a, b) => a + b, 0);
+    return { total, idle: f[3]! + f[4]!, steal: f[7]! };
+  } catch {
+    return { total: 0, idle: 0, steal: 0 };
+  }
+}
+
 /** A process and its children (the cluster primary and its workers). */
 function withChildren(pid: number): number[] {
   try {
@@ -71,6 +87,9 @@ interface Row {
   /** CPU time per request, in microseconds, of the serving processes and of MariaDB. */
   appUs: number;
   dbUs: number;
+  /** Share of the machine's CPU time that was idle, and that the hypervisor took, while measuring (%). */
+  idlePct: number;
+  stealPct: number;
   p50: number;
   p99: number;
   errors: number;
@@ -80,19 +99,28 @@ interface Row {
 
 const ONLY = process.env['BENCH_ROUTES']?.split(',');
 
-async function load(name: string, opts: autocannon.Options): Promise<Row> {
-  if (ONLY && !name.startsWith('bare') && !ONLY.some((part) => name.includes(part))) return { name, rps: 0, appUs: 0, dbUs: 0, p50: 0, p99: 0, errors: 0, non2xx: 0, s5xx: 0 };
+interface Route {
+  name: string;
+  /** 'bare': the ceiling; 'calc' and 'list': routes with targets; 'info': measured, no target. */
+  kind: 'bare' | 'calc' | 'list' | 'info';
+  opts: autocannon.Options;
+}
+
+async function load(name: string, opts: autocannon.Options, warmupSeconds: number): Promise<Row> {
   // A short unmeasured run first, so every route is measured with warm JIT code, pools and caches.
-  await autocannon({ connections: CONNECTIONS, duration: WARMUP_SECONDS, ...opts });
-  const [app0, db0] = [cpuSeconds(serving), cpuSeconds(database)];
+  await autocannon({ connections: CONNECTIONS, duration: warmupSeconds, ...opts });
+  const [app0, db0, m0] = [cpuSeconds(serving), cpuSeconds(database), machineTicks()];
   const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
-  const [app1, db1] = [cpuSeconds(serving), cpuSeconds(database)];
+  const [app1, db1, m1] = [cpuSeconds(serving), cpuSeconds(database), machineTicks()];
+  const share = (a: number, b: number) => Math.round((100 * (b - a)) / Math.max(1, m1.total - m0.total));
   const perRequest = (seconds: number) => Math.round((seconds * 1e6) / Math.max(1, r.requests.total));
   const row: Row = {
     name,
     rps: Math.round(r.requests.average),
     appUs: perRequest(app1 - app0),
     dbUs: perRequest(db1 - db0),
+    idlePct: share(m0.idle, m1.idle),
+    stealPct: share(m0.steal, m1.steal),
     p50: r.latency.p50,
     p99: r.latency.p99,
     errors: r.errors + r.timeouts,
@@ -101,7 +129,7 @@ async function load(name: string, opts: autocannon.Options): Promise<Row> {
   };
   console.log(
     `  ${name.padEnd(38)} ${String(row.rps).padStart(6)} req/s  p50 ${String(row.p50).padStart(3)} ms  p99 ${String(row.p99).padStart(3)} ms` +
-      `  CPU/req app ${String(row.appUs).padStart(4)} µs db ${String(row.dbUs).padStart(3)} µs  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`,
+      `  CPU/req app ${String(row.appUs).padStart(4)} µs db ${String(row.dbUs).padStart(3)} µs  idle ${String(row.idlePct).padStart(2)} % steal ${row.stealPct} %  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`,
   );
   return row;
 }
@@ -142,10 +170,12 @@ async function main(): Promise<void> {
     const appPort = await freePort();
     const profile = process.env['BENCH_PROFILE'] ? ['--cpu-prof', `--cpu-prof-dir=${process.env['BENCH_PROFILE']}`] : [];
     const env = { ...process.env, PORT: String(appPort), DB_HOST: db.host, DB_PORT: String(db.port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password, STATIC_DIR: '', CALC_RATE_LIMIT: '100000000', WORKERS: String(WORKERS) };
-    const app = await startChild([...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/);
+    // Extra V8/Node flags for the app and the bare route alike (for trying runtime settings).
+    const flags = (process.env['BENCH_NODE_FLAGS'] ?? '').split(/\s+/).filter(Boolean);
+    const app = await startChild([...flags, ...profile, '--import', 'tsx', 'server/main.ts'], env, /listening/);
     children.push(app);
     const barePort = await freePort();
-    const bareServer = await startChild(['--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort), WORKERS: String(WORKERS) }, /LISTENING/);
+    const bareServer = await startChild([...flags, '--import', 'tsx', 'bench/bare-server.ts'], { PORT: String(barePort), WORKERS: String(WORKERS) }, /LISTENING/);
     children.push(bareServer);
     database = [Number(fs.readFileSync(path.join(dir, 'mysqld.pid'), 'utf8').trim())];
     const base = `http://127.0.0.1:${appPort}`;
@@ -157,41 +187,92 @@ async function main(): Promise<void> {
     if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
     const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
 
-    console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, loopback; app and bare route ${WORKERS} worker(s) each, ${os.availableParallelism()} cores`);
+    console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, ${ROUNDS} round(s), loopback; app and bare route ${WORKERS} worker(s) each, ${os.availableParallelism()} cores`);
     const json = { 'content-type': 'application/json' };
-    console.log('CPU/req: CPU time of the serving processes and of MariaDB per request answered (autocannon\'s own not counted).');
-    serving = withChildren(bareServer.pid!);
-    const bare = await load('bare Express route (ceiling)', { url: `http://127.0.0.1:${barePort}/bare` });
-    serving = withChildren(app.pid!);
-    const calc = [
-      await load('POST /api/calc/taper', { url: `${base}/api/calc/taper`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250', depthPerPass: '0.040' }) }),
-      await load('POST /api/calc/sine-bar', { url: `${base}/api/calc/sine-bar`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', barLength: '5', angle: "14°30'", set: 'inch-81' }) }),
-      await load('POST /api/calc/gauge-stack', { url: `${base}/api/calc/gauge-stack`, method: 'POST', headers: json, body: JSON.stringify({ target: '3.9762', set: 'inch-81' }) }),
-      await load('POST /api/calc/lathe-taper', { url: `${base}/api/calc/lathe-taper`, method: 'POST', headers: json, body: JSON.stringify({ unit: 'in', taperPerFoot: '0.60235', workLength: '6' }) }),
-    ];
+    console.log('CPU/req: CPU time of the serving processes and of MariaDB per request answered (autocannon\'s own not counted);');
+    console.log('idle, steal: share of the whole machine\'s CPU time left idle, and taken by the hypervisor, while the route was measured.');
+    const bareUrl = `http://127.0.0.1:${barePort}/bare`;
+    const calcRoute = (name: string, path: string, body: object): Route => ({ name, kind: 'calc', opts: { url: `${base}${path}`, method: 'POST', headers: json, body: JSON.stringify(body) } });
     // Every request a new body: the engine's own cost, with no help from the answer cache.
     let n = 0;
-    const fresh = await load('POST /api/calc/taper (all bodies new)', {
-      url: `${base}/api/calc/taper`,
-      requests: [{
-        method: 'POST',
-        headers: json,
-        setupRequest: (req) => ({ ...req, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: (1 + (n++ % 100_000) / 10_000).toFixed(4), taperLength: '1.250', depthPerPass: '0.040' }) }),
-      }],
-    });
-    const me = await load('GET /api/auth/me (session only)', { url: `${base}/api/auth/me`, headers: { cookie } });
-    const list = await load('GET /api/setups (paged, filtered)', { url: `${base}/api/setups?page=3&pageSize=25&kind=taper&status=released`, headers: { cookie } });
-    const detail = await load('GET /api/setups/:id', { url: `${base}/api/setups/${sample!.id}`, headers: { cookie } });
+    const allRoutes: Route[] = [
+      { name: 'bare Express route (ceiling)', kind: 'bare', opts: { url: bareUrl } },
+      calcRoute('POST /api/calc/taper', '/api/calc/taper', { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250', depthPerPass: '0.040' }),
+      calcRoute('POST /api/calc/sine-bar', '/api/calc/sine-bar', { unit: 'in', barLength: '5', angle: "14°30'", set: 'inch-81' }),
+      calcRoute('POST /api/calc/gauge-stack', '/api/calc/gauge-stack', { target: '3.9762', set: 'inch-81' }),
+      calcRoute('POST /api/calc/lathe-taper', '/api/calc/lathe-taper', { unit: 'in', taperPerFoot: '0.60235', workLength: '6' }),
+      {
+        name: 'POST /api/calc/taper (all bodies new)',
+        kind: 'info',
+        opts: {
+          url: `${base}/api/calc/taper`,
+          requests: [{
+            method: 'POST',
+            headers: json,
+            setupRequest: (req: autocannon.Request) => ({ ...req, body: JSON.stringify({ unit: 'in', thickness: '0.750', angle: (1 + (n++ % 100_000) / 10_000).toFixed(4), taperLength: '1.250', depthPerPass: '0.040' }) }),
+          }],
+        },
+      },
+      { name: 'GET /api/auth/me (session only)', kind: 'info', opts: { url: `${base}/api/auth/me`, headers: { cookie } } },
+      { name: 'GET /api/setups (paged, filtered)', kind: 'list', opts: { url: `${base}/api/setups?page=3&pageSize=25&kind=taper&status=released`, headers: { cookie } } },
+      { name: 'GET /api/setups/:id', kind: 'info', opts: { url: `${base}/api/setups/${sample!.id}`, headers: { cookie } } },
+    ];
+    const routes = allRoutes.filter((r) => r.kind === 'bare' || !ONLY || ONLY.some((part) => r.name.includes(part)));
 
-    const rows = [...calc, fresh, me, list, detail];
-    console.log('\nAgainst the targets:');
+    // Each round measures every route once, the ceiling first, so each ratio compares routes
+    // measured within the same minute; the host's speed drifts between rounds.
+    const rounds: Row[][] = [];
+    const appPids = withChildren(app.pid!);
+    const barePids = withChildren(bareServer.pid!);
+    for (let round = 1; round <= ROUNDS; round += 1) {
+      console.log(`\nRound ${round} of ${ROUNDS}:`);
+      const rows: Row[] = [];
+      for (const route of routes) {
+        serving = route.kind === 'bare' ? barePids : appPids;
+        rows.push(await load(route.name, route.opts, round === 1 ? WARMUP_SECONDS : REWARM_SECONDS));
+      }
+      rounds.push(rows);
+    }
+
+    const median = (values: number[]) => {
+      const sorted = [...values].sort((a, b) => a - b);
+      const mid = Math.floor(sorted.length / 2);
+      return sorted.length % 2 ? sorted[mid]! : Math.round(((sorted[mid - 1]! + sorted[mid]!) / 2) * 100) / 100;
+    };
+    const column = (i: number, pick: (r: Row) => number) => rounds.map((rows) => pick(rows[i]!));
+    const ratios = (i: number) => rounds.map((rows) => rows[i]!.rps / rows[0]!.rps);
+    if (ROUNDS > 1) {
+      console.log(`\nMedian of the ${ROUNDS} rounds (the ratio is the median of each round's ratio to that round's ceiling):`);
+      routes.forEach((route, i) => {
+        const m = (pick: (r: Row) => number) => median(column(i, pick));
+        console.log(
+          `  ${route.name.padEnd(38)} ${String(Math.round(m((r) => r.rps))).padStart(6)} req/s  p50 ${String(m((r) => r.p50)).padStart(3)} ms  p99 ${String(m((r) => r.p99)).padStart(3)} ms` +
+            `  CPU/req app ${String(Math.round(m((r) => r.appUs))).padStart(4)} µs db ${String(Math.round(m((r) => r.dbUs))).padStart(3)} µs` +
+            (route.kind === 'bare' ? '' : `  ${median(ratios(i)).toFixed(2)}× the ceiling`),
+        );
+      });
+    }
+
+    console.log(`\nAgainst the targets (medians of ${ROUNDS} round(s); in brackets, the rounds that met it):`);
     const check = (ok: boolean, text: string) => console.log(`  ${ok ? 'met ' : 'MISS'}  ${text}`);
-    check(rows.every((r) => r.errors === 0 && r.s5xx === 0) && bare.errors === 0, 'zero errors and zero 5xx on every route');
-    for (const r of calc) check(r.rps >= 0.5 * bare.rps, `${r.name}: ${(r.rps / bare.rps).toFixed(2)}× the bare route (≥ 0.5×)`);
-    console.log(`  info  ${fresh.name}: ${(fresh.rps / bare.rps).toFixed(2)}× the bare route, p99 ${fresh.p99} ms (the engine's cost without the answer cache)`);
-    for (const r of calc) check(r.p99 < 50, `${r.name}: p99 ${r.p99} ms (< 50 ms)`);
-    check(list.p99 < 100, `${list.name}: p99 ${list.p99} ms (< 100 ms)`);
-    check(rows.every((r) => r.non2xx === 0), 'every answer was 2xx');
+    const all = rounds.flat();
+    check(all.every((r) => r.errors === 0 && r.s5xx === 0), `zero errors and zero 5xx on every route of every round (${all.reduce((s, r) => s + r.errors, 0)} errors, ${all.reduce((s, r) => s + r.s5xx, 0)} 5xx)`);
+    const of = (values: number[], ok: (v: number) => boolean) => `${values.filter(ok).length} of ${values.length}`;
+    routes.forEach((route, i) => {
+      if (route.kind !== 'calc') return;
+      const r = ratios(i);
+      check(median(r) >= 0.5, `${route.name}: ${median(r).toFixed(2)}× the bare route (≥ 0.5×) [${of(r, (v) => v >= 0.5)}]`);
+    });
+    routes.forEach((route, i) => {
+      if (route.kind !== 'info' || !route.name.includes('bodies new')) return;
+      console.log(`  info  ${route.name}: ${median(ratios(i)).toFixed(2)}× the bare route, p99 ${median(column(i, (r) => r.p99))} ms (the engine's cost without the answer cache)`);
+    });
+    routes.forEach((route, i) => {
+      const p99 = column(i, (r) => r.p99);
+      if (route.kind === 'calc') check(median(p99) < 50, `${route.name}: p99 ${median(p99)} ms (< 50 ms) [${of(p99, (v) => v < 50)}]`);
+      if (route.kind === 'list') check(median(p99) < 100, `${route.name}: p99 ${median(p99)} ms (< 100 ms) [${of(p99, (v) => v < 100)}]`);
+    });
+    check(all.every((r) => r.non2xx === 0), 'every answer was 2xx');
   } finally {
     for (const c of children) {
       const exited = new Promise((r) => c.once('exit', r));
