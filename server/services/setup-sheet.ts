@@ -3,7 +3,7 @@ import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
 import { setupResults, type SetupResults } from '../../shared/library/setup-results';
-import { angleBlocksSketch, angleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperSketch, type Sketch, type SketchShape } from './sheet-drawing';
+import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
 /** What a set-up sheet is made from. */
@@ -89,6 +89,48 @@ export function sketchFor(kind: string, inputs: Record<string, unknown>, results
     const a = num(values['includedAngleDeg']);
     const D = num(inputs['pinDiameter']);
     if (W && a && D && a > 0 && a < 180) return vGrooveSketch(W, a, D, `${String(values['measurement'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+  }
+  if (kind === 'pins-rolls' && ['dovetail-angle', 'taper-two-heights', 'taper-discs', 'taper-balls'].includes(String(v['kind']))) {
+    // Lengths as set up or as the engine printed them, with the unit; angles as the engine's DMS.
+    const values = (v['values'] ?? {}) as Record<string, unknown>;
+    const dms = (v['dms'] ?? {}) as Record<string, unknown>;
+    const unit = String(v['unit'] ?? inputs['unit'] ?? '');
+    const given = (key: string) => `${String(inputs[key] ?? '')} ${unit}`.trim();
+    const tpf = values['taperPerFoot'] !== undefined ? `, TPF ${String(values['taperPerFoot'])} in/ft` : '';
+    const included = `α ${String(dms['includedAngleDeg'] ?? '')}${tpf}`;
+    let sketch: Sketch | null = null;
+    if (v['kind'] === 'dovetail-angle' && (inputs['side'] === 'male' || inputs['side'] === 'female')) {
+      const [D1, M1, D2, M2] = ['rollDiameter1', 'measurement1', 'rollDiameter2', 'measurement2'].map((k) => num(inputs[k]));
+      const over = inputs['side'] === 'male' ? 'over' : 'between';
+      if (D1 && M1 && D2 && M2) {
+        sketch = dovetailAngleSketch(inputs['side'], D1, M1, D2, M2, {
+          reading1: `M1 ${given('measurement1')} ${over} ${String(inputs['rollDiameter1'])} rolls`,
+          reading2: `M2 ${given('measurement2')} ${over} ${String(inputs['rollDiameter2'])} rolls`,
+          width: `${inputs['side'] === 'male' ? 'a' : 'b'} ${String(values['width'] ?? '')} ${unit}`,
+          angle: `α ${String(dms['angleDeg'] ?? '')}`,
+        });
+      }
+    } else if (v['kind'] === 'taper-two-heights') {
+      const [M1, M2, dH] = ['measurement1', 'measurement2', 'heightDifference'].map((k) => num(inputs[k]));
+      if (M1 && M2 && dH) sketch = taperTwoHeightsSketch(M1, M2, dH, { reading1: `M1 ${given('measurement1')}`, reading2: `M2 ${given('measurement2')}`, height: `ΔH ${given('heightDifference')}`, halfAngle: `α/2 ${String(dms['halfAngleDeg'] ?? '')}`, included });
+    } else if (v['kind'] === 'taper-discs') {
+      const [D, d, C] = [num(inputs['largeDisc']), num(inputs['smallDisc']), num(values['centreDistance'])];
+      if (D && d && C) sketch = taperDiscsSketch(inputs['reference'] === 'side' ? 'side' : 'axis', D, d, C, { large: `D ${given('largeDisc')}`, small: `d ${given('smallDisc')}`, centres: `C ${String(values['centreDistance'])} ${unit}`, angle: included });
+    } else if (v['kind'] === 'taper-balls') {
+      const [D, d, h1, h2] = ['largeBall', 'smallBall', 'largeBallDepth', 'smallBallDepth'].map((k) => num(inputs[k]));
+      if (D && d && h1 !== null && h1 !== undefined && h2 !== null && h2 !== undefined) {
+        sketch = taperBallsSketch(D, d, h1, h2, {
+          large: `D ${given('largeBall')}`,
+          small: `d ${given('smallBall')}`,
+          largeDepth: `h1 ${given('largeBallDepth')}`,
+          smallDepth: `h2 ${given('smallBallDepth')}`,
+          centres: `s ${String(values['centreDistance'] ?? '')} ${unit}`,
+          halfAngle: `α/2 ${String(dms['halfAngleDeg'] ?? '')}`,
+          included,
+        });
+      }
+    }
+    if (sketch) return sketch;
   }
   if (kind === 'lathe-taper') {
     const half = num(v['halfAngleDeg']);

@@ -3,7 +3,8 @@ import { calculateLatheTaper } from '../../shared/calc/lathe-taper';
 import { setupResults } from '../../shared/library/setup-results';
 import { sketchFor } from './setup-sheet';
 import { calculateAngleBlocks } from '../../shared/calc/angle-blocks';
-import { angleBlocksSketch, angleSketch, dovetailSketch, gaugeStackSketch, vGrooveSketch, latheTaperSketch, sineBarSketch, taperSketch } from './sheet-drawing';
+import { calculateOverPins } from '../../shared/calc/over-pins';
+import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, gaugeStackSketch, vGrooveSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Pt, type Sketch } from './sheet-drawing';
 
 // Plain trigonometry of the sketch (derived): h = L·sin α and H = L·sin θ, REFERENCE.md §1 and §2.1.
 describe('sheet-drawing', () => {
@@ -150,6 +151,259 @@ describe('sheet-drawing', () => {
       const inputs = { kind: 'v-groove', unit: 'in', includedAngle: '90', pinDiameter: '0.500', grooveWidth: '1.000' };
       const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
       expect(sketch.shapes.find((s) => s.kind === 'dimension')?.label).toBe('h 0.1036 in');
+    });
+  });
+
+  // Helpers for the two-reading and taper sketches of the pins-and-rolls area.
+  const DEG = Math.PI / 180;
+  /** Distance from p to the line through a and b. */
+  const lineDistance = (p: Pt, a: Pt, b: Pt) => Math.abs((b.x - a.x) * (a.y - p.y) - (a.x - p.x) * (b.y - a.y)) / Math.hypot(b.x - a.x, b.y - a.y);
+  /** Angle of the line a→b in degrees. */
+  const heading = (a: Pt, b: Pt) => Math.atan2(b.y - a.y, b.x - a.x) / DEG;
+  const dimensions = (sketch: Sketch) => sketch.shapes.filter((s) => s.kind === 'dimension');
+  const dimensionLength = (sketch: Sketch, label: string) => {
+    const dim = dimensions(sketch).find((s) => s.label === label)!;
+    return Math.hypot(dim.points[1]!.x - dim.points[0]!.x, dim.points[1]!.y - dim.points[0]!.y);
+  };
+  /** Every coordinate and radius is a finite number and the box has room. */
+  const expectDrawable = (sketch: Sketch | null) => {
+    expect(sketch).not.toBeNull();
+    const numbers = sketch!.shapes.flatMap((s) => [...s.points.flatMap((p) => [p.x, p.y]), ...(s.labelAt ? [s.labelAt.x, s.labelAt.y] : []), ...(s.r === undefined ? [] : [s.r])]);
+    expect(numbers.every(Number.isFinite)).toBe(true);
+    const { box } = sketch!;
+    expect([box.minX, box.minY, box.maxX, box.maxY].every(Number.isFinite)).toBe(true);
+    expect(box.maxX).toBeGreaterThan(box.minX);
+    expect(box.maxY).toBeGreaterThan(box.minY);
+  };
+  const engineValue = (inputs: Record<string, unknown>) => {
+    const engine = calculateOverPins(inputs);
+    if (!engine.ok) throw new Error(engine.error);
+    return engine.value;
+  };
+  const labels = (sketch: Sketch) => sketch.shapes.map((s) => s.label).filter((l): l is string => l !== undefined);
+
+  describe('dovetailAngleSketch', () => {
+    // REFERENCE.md §5.1: x = a + D·k (male), y = b − D·k (female), k = 1 + cot(α/2) = 2.7320508 for 60°;
+    // inverse k = Δx/ΔD, α = 2·atan(1/(k − 1)) (toolmonger, §5.1). Placement of the rolls: derived.
+    const k60 = 1 + 1 / Math.tan(30 * DEG);
+    const names = { reading1: 'M1', reading2: 'M2', width: 'W', angle: 'A' };
+    const rollsOf = (sketch: Sketch) => sketch.shapes.filter((s) => s.kind === 'circle');
+
+    it('should seat both sizes of roll on the base and the flank of a male dovetail and span both readings', () => {
+      const sketch = dovetailAngleSketch('male', 0.25, 2 + 0.25 * k60, 0.5, 2 + 0.5 * k60, names)!;
+      const part = sketch.shapes.find((s) => s.style === 'part')!;
+      const [corner, flankTop] = [part.points[1]!, part.points[2]!];
+      expect(heading(corner, flankTop)).toBeCloseTo(60, 9);
+      expect(corner.x).toBeCloseTo(1, 9);
+      const rolls = rollsOf(sketch);
+      expect(rolls.map((c) => c.r).sort()).toEqual([0.125, 0.125, 0.25, 0.25]);
+      for (const roll of rolls.filter((c) => c.points[0]!.x > 0)) {
+        expect(roll.points[0]!.y).toBeCloseTo(roll.r!, 12);
+        expect(lineDistance(roll.points[0]!, corner, flankTop)).toBeCloseTo(roll.r!, 9);
+      }
+      expect(dimensionLength(sketch, 'M1')).toBeCloseTo(2 + 0.25 * k60, 9);
+      expect(dimensionLength(sketch, 'M2')).toBeCloseTo(2 + 0.5 * k60, 9);
+      expect(dimensionLength(sketch, 'W')).toBeCloseTo(2, 9);
+      expect(sketch.title).toMatch(/Male dovetail/);
+    });
+    it('should do the same between the rolls of a female dovetail', () => {
+      const sketch = dovetailAngleSketch('female', 0.5, 2.5 - 0.5 * k60, 0.25, 2.5 - 0.25 * k60, names)!;
+      const part = sketch.shapes.find((s) => s.style === 'part')!;
+      const [corner, flankTop] = [part.points[4]!, part.points[3]!];
+      expect(180 - heading(corner, flankTop)).toBeCloseTo(60, 9);
+      for (const roll of rollsOf(sketch).filter((c) => c.points[0]!.x > 0)) {
+        expect(roll.points[0]!.y).toBeCloseTo(roll.r!, 12);
+        expect(lineDistance(roll.points[0]!, corner, flankTop)).toBeCloseTo(roll.r!, 9);
+      }
+      expect(dimensionLength(sketch, 'M1')).toBeCloseTo(2.5 - 0.5 * k60, 9);
+      expect(dimensionLength(sketch, 'M2')).toBeCloseTo(2.5 - 0.25 * k60, 9);
+      expect(dimensionLength(sketch, 'W')).toBeCloseTo(2.5, 9);
+      // The slot stays open at the top.
+      expect(part.points[3]!.x).toBeGreaterThan(part.points[6]!.x);
+    });
+    it('should give no sketch when the readings make an angle of 90° or more', () => {
+      // k = 2 gives cot(α/2) = 1, α = 90° (derived).
+      expect(dovetailAngleSketch('male', 0.25, 2.5, 0.5, 3, names)).toBeNull();
+      expect(dovetailAngleSketch('male', 0.25, 2.5, 0.5, 2.6, names)).toBeNull();
+    });
+    it('should stay finite for very small and very large angles and tiny rolls', () => {
+      for (const deg of [0.5, 20, 89.5]) {
+        const k = 1 + 1 / Math.tan((deg / 2) * DEG);
+        for (const [d1, d2] of [[0.001, 0.002], [0.25, 0.5]]) {
+          expectDrawable(dovetailAngleSketch('male', d1!, 1 + d1! * k, d2!, 1 + d2! * k, names));
+          if (1 - d2! * k > 0) expectDrawable(dovetailAngleSketch('female', d1!, 1 - d1! * k, d2!, 1 - d2! * k, names));
+        }
+      }
+    });
+    it('should be what sketchFor draws for a dovetail-angle set-up, with the engine\'s angle and width', () => {
+      // Readings for a = 2.000 in, α = 60° over 0.250 and 0.500 in rolls (REFERENCE.md §5.1 formula, derived).
+      const inputs = { kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: '0.250', measurement1: '2.6830', rollDiameter2: '0.500', measurement2: '3.3660' };
+      const engine = engineValue(inputs);
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.title).toMatch(/two sizes of roll/);
+      expect(labels(sketch)).toEqual(expect.arrayContaining([`α ${engine.dms['angleDeg']}`, `a ${engine.values['width']} in`, 'M1 2.6830 in over 0.250 rolls', 'M2 3.3660 in over 0.500 rolls']));
+      const flank = sketch.shapes.find((s) => s.label === `α ${engine.dms['angleDeg']}`)!;
+      expect(heading(flank.points[0]!, flank.points[1]!)).toBeCloseTo(Number(engine.values['angleDeg']), 3);
+    });
+  });
+
+  describe('taperTwoHeightsSketch', () => {
+    // REFERENCE.md §5.2: tan(α/2) = (M₂ − M₁)/(2·ΔH); the roll size cancels. Derived example:
+    // M₁ 1.5000, M₂ 1.4500, ΔH 1.000 → tan(α/2) = −0.025 (narrowing upward).
+    const names = { reading1: 'M1', reading2: 'M2', height: 'dH', halfAngle: 'half', included: 'inc' };
+    const check = (m1: number, m2: number, dh: number) => {
+      const sketch = taperTwoHeightsSketch(m1, m2, dh, names)!;
+      const part = sketch.shapes.find((s) => s.style === 'part')!;
+      const [foot, head] = [part.points[1]!, part.points[2]!];
+      const rolls = sketch.shapes.filter((s) => s.kind === 'circle');
+      return { sketch, part, foot, head, rolls };
+    };
+
+    it('should lean the side at the half angle with every roll touching it', () => {
+      const { sketch, foot, head, rolls } = check(1.5, 1.45, 1);
+      expect((head.x - foot.x) / (head.y - foot.y)).toBeCloseTo(-0.025, 12);
+      expect(rolls).toHaveLength(4);
+      for (const roll of rolls.filter((c) => c.points[0]!.x > 0)) expect(lineDistance(roll.points[0]!, foot, head)).toBeCloseTo(roll.r!, 12);
+      expect(dimensionLength(sketch, 'M1')).toBeCloseTo(1.5, 12);
+      expect(dimensionLength(sketch, 'M2')).toBeCloseTo(1.45, 12);
+      expect(dimensionLength(sketch, 'dH')).toBeCloseTo(1, 12);
+    });
+    it('should rest the first rolls on their stacks, the stacks clear of the work, and raise the second pair by ΔH', () => {
+      const { sketch, foot, rolls } = check(1.5, 1.45, 1);
+      const stacks = sketch.shapes.filter((s) => s.style === 'block' && s.label !== 'surface plate');
+      expect(stacks).toHaveLength(2);
+      const [first, second] = [rolls.filter((c) => c.style === 'tool'), rolls.filter((c) => c.style === 'mark')];
+      for (const roll of first) {
+        const under = stacks.find((st) => st.points[0]!.x < roll.points[0]!.x && st.points[1]!.x > roll.points[0]!.x)!;
+        expect(roll.points[0]!.y - roll.r!).toBeCloseTo(under.points[2]!.y, 12);
+      }
+      const right = stacks.find((st) => st.points[0]!.x > 0)!;
+      expect(right.points[0]!.x).toBeGreaterThan(foot.x);
+      expect(second[0]!.points[0]!.y - first[0]!.points[0]!.y).toBeCloseTo(1, 12);
+      // Each raised roll stands on a dashed stack: the stack's top line lies under it, touching it.
+      for (const roll of second) {
+        const c = roll.points[0]!;
+        const top = sketch.shapes.find((s) => s.kind === 'line' && s.points[0]!.y === s.points[1]!.y && s.points[0]!.x < c.x && s.points[1]!.x > c.x && s.points[0]!.y > 0);
+        expect(top).toBeDefined();
+        expect(c.y - roll.r!).toBeCloseTo(top!.points[0]!.y, 12);
+      }
+    });
+    it('should keep the work a proper shape for steep and slight tapers both ways, and stay finite', () => {
+      for (const [m1, m2, dh] of [[1, 100, 0.001], [100, 1, 0.001], [1.5, 1.4999, 1000], [0.001, 0.002, 0.001], [2, 1, 1e-6]] as const) {
+        const { sketch, part, foot, head, rolls } = check(m1, m2, dh);
+        expectDrawable(sketch);
+        expect(foot.x).toBeGreaterThan(0);
+        expect(head.x).toBeGreaterThan(0);
+        expect(part.points[0]!.x).toBeCloseTo(-foot.x, 12);
+        for (const roll of rolls.filter((c) => c.points[0]!.x > 0)) expect(lineDistance(roll.points[0]!, foot, head) / roll.r!).toBeCloseTo(1, 6);
+      }
+    });
+    it('should be what sketchFor draws for a two-height set-up, with the engine\'s half angle', () => {
+      // REFERENCE.md §5.2 published example (hobby-machinist): .745 and .620 in, 1 in apart → 3°34'35" a side.
+      const inputs = { kind: 'taper-two-heights', unit: 'in', measurement1: '0.745', measurement2: '0.620', heightDifference: '1' };
+      const engine = engineValue(inputs);
+      expect(engine.dms['halfAngleDeg']).toBe("3°34'35\"");
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.title).toMatch(/M2 with the rolls raised/);
+      expect(labels(sketch)).toEqual(expect.arrayContaining([`α/2 ${engine.dms['halfAngleDeg']}`, `α ${engine.dms['includedAngleDeg']}, TPF ${engine.values['taperPerFoot']} in/ft`, 'M1 0.745 in', 'M2 0.620 in', 'ΔH 1 in']));
+    });
+  });
+
+  describe('taperDiscsSketch', () => {
+    // REFERENCE.md §5.2 (Machinery's Handbook 31 p. 701): K = (D − d)/(2C); about the axis each side
+    // leans asin K; with one side square the sides meet at 2·asin K. Tangency of the straightedges: derived.
+    const names = { large: 'D', small: 'd', centres: 'C', angle: 'A' };
+    /** The inner (touching) line of a straightedge: its first two points. */
+    const edges = (sketch: Sketch) => sketch.shapes.filter((s) => s.style === 'block').map((s) => [s.points[0]!, s.points[1]!] as const);
+    const discs = (sketch: Sketch) => sketch.shapes.filter((s) => s.kind === 'circle');
+
+    it('should touch both discs with both straightedges about the axis, each leaning asin K', () => {
+      const sketch = taperDiscsSketch('axis', 1.5, 1, 5, names)!;
+      const K = 0.25 / 5;
+      expect(edges(sketch)).toHaveLength(2);
+      for (const [a, b] of edges(sketch)) {
+        for (const disc of discs(sketch)) expect(lineDistance(disc.points[0]!, a, b)).toBeCloseTo(disc.r!, 12);
+        expect(Math.abs(Math.abs(heading(a, b)) - 90)).toBeCloseTo(Math.asin(K) / DEG, 9);
+      }
+      expect(dimensionLength(sketch, 'C')).toBeCloseTo(5, 12);
+    });
+    it('should touch both discs with the square side and the other straightedge, 2·asin K apart', () => {
+      const sketch = taperDiscsSketch('side', 3, 2, 5, names)!;
+      const [square, other] = edges(sketch);
+      expect(square![0].x).toBe(0);
+      expect(square![1].x).toBe(0);
+      for (const [a, b] of [square!, other!]) for (const disc of discs(sketch)) expect(lineDistance(disc.points[0]!, a, b)).toBeCloseTo(disc.r!, 12);
+      expect(heading(other![0], other![1]) - 90).toBeCloseTo((2 * Math.asin(0.1)) / DEG, 9);
+      expect(dimensionLength(sketch, 'C')).toBeCloseTo(5, 12);
+    });
+    it('should give no sketch when the discs cannot both touch the straightedges', () => {
+      expect(taperDiscsSketch('axis', 3, 1, 1, names)).toBeNull();
+      expect(taperDiscsSketch('axis', 1, 1, 5, names)).toBeNull();
+    });
+    it('should stay finite for angles near 0° and 180° and tiny discs', () => {
+      for (const [D, d, C] of [[1.5, 1, 1e6], [3, 1, 1.0000001], [0.002, 0.001, 0.01], [3, 1, 1]] as const) {
+        for (const ref of ['axis', 'side'] as const) {
+          const sketch = taperDiscsSketch(ref, D, d, C, names);
+          if (C > (D - d) / 2) expectDrawable(sketch);
+          else expect(sketch).toBeNull();
+        }
+      }
+    });
+    it('should be what sketchFor draws for a disc set-up, with the engine\'s centre distance and angle', () => {
+      // REFERENCE.md §5.2: gauge to 3/4 in/ft with discs 1.25 and 1.5 in → C = 4.002 in (Machinery's Handbook, Jones).
+      const inputs = { kind: 'taper-discs', unit: 'in', largeDisc: '1.5', smallDisc: '1.25', taperPerFoot: '0.75' };
+      const engine = engineValue(inputs);
+      expect(Number(engine.values['centreDistance'])).toBeCloseTo(4.002, 3);
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.title).toMatch(/about the axis/);
+      expect(labels(sketch)).toEqual(expect.arrayContaining([`C ${engine.values['centreDistance']} in`, `α ${engine.dms['includedAngleDeg']}`, 'D 1.5 in', 'd 1.25 in']));
+      expect(dimensionLength(sketch, `C ${engine.values['centreDistance']} in`)).toBeCloseTo(Number(engine.values['centreDistance']), 12);
+    });
+    it('should draw the square-side set-up with the engine\'s taper per foot', () => {
+      // REFERENCE.md §5.2: taper square to one side, discs 2 and 3 in, C = 5 in → 2.4367 in/ft (Machinery's Handbook).
+      const inputs = { kind: 'taper-discs', unit: 'in', largeDisc: '3', smallDisc: '2', centreDistance: '5', reference: 'side' };
+      const engine = engineValue(inputs);
+      expect(engine.values['taperPerFoot']).toMatch(/^2\.4367/);
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.title).toMatch(/one side square/);
+      expect(labels(sketch)).toContain(`α ${engine.dms['includedAngleDeg']}, TPF ${engine.values['taperPerFoot']} in/ft`);
+    });
+  });
+
+  describe('taperBallsSketch', () => {
+    // REFERENCE.md §5.2 [DER]: sin(α/2) = (R − r)/s; balls Ø40 and Ø32, the large one 8 mm proud,
+    // the small one's top 76 mm down → s = 80 mm, sin(α/2) = 4/80. Tangency to the bore: derived.
+    const names = { large: 'D', small: 'd', largeDepth: 'h1', smallDepth: 'h2', centres: 's', halfAngle: 'half', included: 'inc' };
+
+    it('should rest each ball on both walls of the bore at the depths given', () => {
+      const sketch = taperBallsSketch(40, 32, -8, 76, names)!;
+      const part = sketch.shapes.find((s) => s.style === 'part')!;
+      const walls = [[part.points[1]!, part.points[2]!], [part.points[4]!, part.points[3]!]] as const;
+      const [large, small] = sketch.shapes.filter((s) => s.kind === 'circle');
+      for (const ball of [large!, small!]) for (const [a, b] of walls) expect(lineDistance(ball.points[0]!, a, b)).toBeCloseTo(ball.r!, 9);
+      expect(90 - heading(walls[1][1], walls[1][0])).toBeCloseTo(Math.asin(4 / 80) / DEG, 9);
+      expect(large!.points[0]!.y + 20).toBeCloseTo(8, 12);
+      expect(small!.points[0]!.y + 16).toBeCloseTo(-76, 12);
+      expect(dimensionLength(sketch, 's')).toBeCloseTo(80, 9);
+      expect(dimensionLength(sketch, 'h1')).toBeCloseTo(8, 12);
+      expect(dimensionLength(sketch, 'h2')).toBeCloseTo(76, 12);
+    });
+    it('should give no sketch when the balls do not fit a taper or the large one would touch above the face', () => {
+      expect(taperBallsSketch(40, 32, 0, 0, names)).toBeNull();
+      expect(taperBallsSketch(40, 32, -100, 76, names)).toBeNull();
+    });
+    it('should stay finite for steep and slight tapers and tiny balls', () => {
+      // s just over R − r gives a half angle near 90°; a long s gives one near 0°.
+      for (const [D, d, h1, h2] of [[40, 32, 0, 8.0001], [40, 32, 0, 1e6], [0.002, 0.001, 0.001, 0.1], [40, 32, 10, 30]] as const) expectDrawable(taperBallsSketch(D, d, h1, h2, names));
+    });
+    it('should be what sketchFor draws for a two-ball set-up, with the engine\'s centre distance and angles', () => {
+      const inputs = { kind: 'taper-balls', unit: 'mm', largeBall: '40', smallBall: '32', largeBallDepth: '-8', smallBallDepth: '76' };
+      const engine = engineValue(inputs);
+      // REFERENCE.md §5.2: α = 5.732° (5°43'55").
+      expect(engine.dms['includedAngleDeg']).toBe("5°43'55\"");
+      const sketch = sketchFor('pins-rolls', inputs, setupResults('pins-rolls', inputs))!;
+      expect(sketch.title).toMatch(/Internal taper/);
+      expect(labels(sketch)).toEqual(expect.arrayContaining([`s ${engine.values['centreDistance']} mm`, `α/2 ${engine.dms['halfAngleDeg']}`, `α ${engine.dms['includedAngleDeg']}, TPF ${engine.values['taperPerFoot']} in/ft`, 'h1 -8 mm', 'h2 76 mm']));
     });
   });
 

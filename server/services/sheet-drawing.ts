@@ -48,6 +48,12 @@ function bounds(shapes: SketchShape[]): Sketch['box'] {
   };
 }
 
+/** The bounding box of the shapes and of the points their labels are placed at. */
+function boundsWithLabels(shapes: SketchShape[]): Sketch['box'] {
+  const anchors = shapes.flatMap((s) => (s.labelAt ? [s.labelAt] : []));
+  return bounds([...shapes, { kind: 'line', style: 'mark', points: anchors }]);
+}
+
 /**
  * A part of thickness T tilted by α on an angle block, so that the taper face (L long from the end)
  * is cut horizontally; touch off on the high corner and go down h = L·sin α (REFERENCE.md §1).
@@ -174,6 +180,21 @@ export function angleBlocksSketch(blocks: readonly SketchAngleBlock[], resultLab
 }
 
 /**
+ * The section of a dovetail with its sharp corners at ±W/2 on the base (y = 0) and flanks rising
+ * `run` outward (male: the tongue widens upward on its base block) or inward (female: the slot
+ * narrows upward) over the depth h; B is the half width of the block or the body.
+ */
+function dovetailSection(side: 'male' | 'female', W: number, run: number, h: number, B: number): SketchShape[] {
+  if (side === 'male') {
+    return [
+      { kind: 'polygon', style: 'block', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: 0 }, { x: -B, y: 0 }] },
+      { kind: 'polygon', style: 'part', points: [{ x: -W / 2, y: 0 }, { x: W / 2, y: 0 }, { x: W / 2 + run, y: h }, { x: -W / 2 - run, y: h }] },
+    ];
+  }
+  return [{ kind: 'polygon', style: 'part', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: h }, { x: W / 2 - run, y: h }, { x: W / 2, y: 0 }, { x: -W / 2, y: 0 }, { x: -W / 2 + run, y: h }, { x: -B, y: h }] }];
+}
+
+/**
  * A dovetail checked with two equal rolls: on a male dovetail the rolls sit in the undercut beside
  * it and the reading is over them; in a female slot they sit in its corners and the reading is
  * between them. Each roll touches the base and the flank, so its centre is r·cot(α/2) from the
@@ -186,16 +207,8 @@ export function dovetailSketch(side: 'male' | 'female', width: number, angleDeg:
   const run = h / Math.tan(angleDeg * RAD);
   const offset = r / Math.tan((angleDeg / 2) * RAD);
   const B = W / 2 + Math.max(run, 0) + W * 0.45;
-  const shapes: SketchShape[] = [];
-  let cx: number;
-  if (side === 'male') {
-    shapes.push({ kind: 'polygon', style: 'block', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: 0 }, { x: -B, y: 0 }] });
-    shapes.push({ kind: 'polygon', style: 'part', points: [{ x: -W / 2, y: 0 }, { x: W / 2, y: 0 }, { x: W / 2 + run, y: h }, { x: -W / 2 - run, y: h }] });
-    cx = W / 2 + offset;
-  } else {
-    shapes.push({ kind: 'polygon', style: 'part', points: [{ x: -B, y: -h * 0.4 }, { x: B, y: -h * 0.4 }, { x: B, y: h }, { x: W / 2 - run, y: h }, { x: W / 2, y: 0 }, { x: -W / 2, y: 0 }, { x: -W / 2 + run, y: h }, { x: -B, y: h }] });
-    cx = W / 2 - offset;
-  }
+  const shapes: SketchShape[] = dovetailSection(side, W, run, h, B);
+  const cx = side === 'male' ? W / 2 + offset : W / 2 - offset;
   shapes.push({ kind: 'circle', style: 'tool', points: [{ x: -cx, y: r }], r }, { kind: 'circle', style: 'tool', points: [{ x: cx, y: r }], r });
   const reach = side === 'male' ? cx + r : cx - r;
   shapes.push({ kind: 'dimension', style: 'mark', points: [{ x: -reach, y: h + r * 1.5 }, { x: reach, y: h + r * 1.5 }], label: `M ${measurementLabel}` });
@@ -225,6 +238,287 @@ export function vGrooveSketch(width: number, includedAngleDeg: number, pinDiamet
     { kind: 'dimension', style: 'mark', points: [{ x, y: 0 }, { x, y: top }], label: `h ${heightLabel}` },
   ];
   return { title: 'Pin in the V-groove: height of its top over the surface', shapes, box: bounds(shapes) };
+}
+
+/** Labels of {@link dovetailAngleSketch}: the two readings as set up, the engine's width and angle. */
+export interface DovetailAngleLabels {
+  reading1: string;
+  reading2: string;
+  width: string;
+  angle: string;
+}
+
+/**
+ * A dovetail checked with two sizes of roll in the same corners: each pair touches the base and the
+ * flank, so the readings differ by (D₂ − D₁)·k with k = 1 + cot(α/2). The angle and the corner width
+ * are placed from the readings themselves (REFERENCE.md §5.1, inverse): k = Δx/ΔD, α = 2·atan(1/(k − 1)),
+ * a = x₁ − D₁·k (male) or b = y₁ + D₁·k (female). The larger pair is drawn first, the second pair in
+ * the accent colour. Null when the readings do not make a dovetail (k ≤ 2, i.e. α ≥ 90°, or no width).
+ */
+export function dovetailAngleSketch(side: 'male' | 'female', rollDiameter1: number, measurement1: number, rollDiameter2: number, measurement2: number, labels: DovetailAngleLabels): Sketch | null {
+  const male = side === 'male';
+  const k = (male ? measurement2 - measurement1 : measurement1 - measurement2) / (rollDiameter2 - rollDiameter1);
+  const W = male ? measurement1 - rollDiameter1 * k : measurement1 + rollDiameter1 * k;
+  const alpha = 2 * Math.atan(1 / (k - 1));
+  if (![k, W, alpha].every(Number.isFinite) || !(k > 2) || !(W > 0) || !(rollDiameter1 > 0) || !(rollDiameter2 > 0) || !(measurement1 > 0) || !(measurement2 > 0)) return null;
+  const big = Math.max(rollDiameter1, rollDiameter2);
+  // Deep enough that the larger roll touches the flank below the corner, r·(1 + cos α) < 2r;
+  // a female slot keeps at least a tenth of its width open at the top.
+  const h = male ? big * 1.6 : Math.min(big * 1.6, W * 0.45 * Math.tan(alpha));
+  const run = h / Math.tan(alpha);
+  const B = male ? Math.max(W / 2 + run, measurement1 / 2, measurement2 / 2) + Math.max(W * 0.2, big) : W / 2 + Math.max(W * 0.45, big);
+  const shapes = dovetailSection(side, W, run, h, B);
+  const pairs = [
+    { d: rollDiameter1, label: labels.reading1, style: 'tool' as const },
+    { d: rollDiameter2, label: labels.reading2, style: 'mark' as const },
+  ];
+  const gap = Math.max(big * 0.9, h * 0.35);
+  const readings: SketchShape[] = [];
+  pairs.forEach((pair, i) => {
+    const r = pair.d / 2;
+    const cx = male ? W / 2 + r / Math.tan(alpha / 2) : W / 2 - r / Math.tan(alpha / 2);
+    const reach = male ? cx + r : cx - r;
+    const y = h + gap * (i + 1);
+    readings.push(
+      { kind: 'dimension', style: 'mark', points: [{ x: -reach, y }, { x: reach, y }], label: pair.label, labelAt: { x: -reach / 2, y: y + gap * 0.3 } },
+      { kind: 'line', style: 'mark', points: [{ x: -reach, y: r }, { x: -reach, y }] },
+      { kind: 'line', style: 'mark', points: [{ x: reach, y: r }, { x: reach, y }] },
+    );
+  });
+  for (const pair of [...pairs].sort((a, b) => b.d - a.d)) {
+    const r = pair.d / 2;
+    const cx = male ? W / 2 + r / Math.tan(alpha / 2) : W / 2 - r / Math.tan(alpha / 2);
+    shapes.push({ kind: 'circle', style: pair.style, points: [{ x: -cx, y: r }], r }, { kind: 'circle', style: pair.style, points: [{ x: cx, y: r }], r });
+  }
+  shapes.push(...readings);
+  const below = -h * 0.4 - gap * 0.6;
+  shapes.push(
+    { kind: 'dimension', style: 'mark', points: [{ x: -W / 2, y: below }, { x: W / 2, y: below }], label: labels.width },
+    { kind: 'line', style: 'mark', points: [{ x: -W / 2, y: 0 }, { x: -W / 2, y: below }] },
+    { kind: 'line', style: 'mark', points: [{ x: W / 2, y: 0 }, { x: W / 2, y: below }] },
+  );
+  const flankTop = { x: male ? W / 2 + run : W / 2 - run, y: h };
+  shapes.push({ kind: 'line', style: 'mark', points: [{ x: W / 2, y: 0 }, flankTop], label: labels.angle, labelAt: { x: W / 2 + (flankTop.x - W / 2) * 0.8, y: h * 0.8 } });
+  const title = male ? 'Male dovetail: readings over two sizes of roll in the same corners give the angle' : 'Female dovetail: readings between two sizes of roll in the same corners give the angle';
+  return { title, shapes, box: boundsWithLabels(shapes) };
+}
+
+/** Labels of {@link taperTwoHeightsSketch}: the readings and ΔH as set up, the engine's angles. */
+export interface TwoHeightsLabels {
+  reading1: string;
+  reading2: string;
+  height: string;
+  halfAngle: string;
+  included: string;
+}
+
+/**
+ * A taper standing on the surface plate, checked over a pair of rolls at one height (M₁) and again
+ * with the rolls ΔH higher (M₂, accent colour): each roll rests on the plate or its stack and
+ * touches the side, so the side leans at tan(α/2) = (M₂ − M₁)/(2·ΔH) (REFERENCE.md §5.2). The roll
+ * size cancels; it is drawn small enough (and the stacks low enough) that the work keeps a width at
+ * the plate and at the top and the stacks clear it.
+ */
+export function taperTwoHeightsSketch(measurement1: number, measurement2: number, heightDifference: number, labels: TwoHeightsLabels): Sketch | null {
+  const m1 = measurement1;
+  const m2 = measurement2;
+  const dh = heightDifference;
+  if (![m1, m2, dh].every((n) => Number.isFinite(n) && n > 0)) return null;
+  const theta = Math.atan((m2 - m1) / (2 * dh));
+  const t = Math.tan(theta);
+  const c = Math.cos(theta);
+  const least = Math.min(m1, m2);
+  const r = Math.min(least * 0.08, (least * 0.3) / (1 + 1 / c + 2 * Math.abs(t)));
+  // x of the right side at the first rolls' centre height, then along the side.
+  const x1 = m1 / 2 - r - r / c;
+  let stack = Math.max(dh * 0.25, r);
+  // Widening upward: the foot of the side stays at least a tenth of M₁ from the axis.
+  if (t > 0) stack = Math.min(stack, Math.max((x1 - m1 * 0.1) / t - r, 0));
+  // Narrowing upward: the stack (0.8 r a side of the roll's centre) stays clear of the side.
+  if (t < 0) stack = Math.min(stack, Math.max((r * (1 / c - 0.85)) / -t - r, 0));
+  const z1 = stack + r;
+  const z2 = z1 + dh;
+  const top = z2 + 2 * r;
+  const side = (z: number) => x1 + t * (z - z1);
+  const plateT = Math.max(top * 0.05, r * 0.5);
+  const outer = Math.max(m1, m2) / 2;
+  const plateHalf = Math.max(outer, side(0), side(top)) + r * 3;
+  const shapes: SketchShape[] = [
+    { kind: 'polygon', style: 'block', points: [{ x: -plateHalf, y: -plateT }, { x: plateHalf, y: -plateT }, { x: plateHalf, y: 0 }, { x: -plateHalf, y: 0 }], label: 'surface plate', labelAt: { x: plateHalf, y: -plateT / 2 } },
+    { kind: 'polygon', style: 'part', points: [{ x: -side(0), y: 0 }, { x: side(0), y: 0 }, { x: side(top), y: top }, { x: -side(top), y: top }] },
+  ];
+  for (const s of [-1, 1]) {
+    // The second reading's stacks, ΔH higher, at the rolls' second place: dashed outlines.
+    const cx2 = s * (m2 / 2 - r);
+    const high = z2 - r;
+    shapes.push(
+      { kind: 'line', style: 'mark', points: [{ x: cx2 - r * 0.8, y: 0 }, { x: cx2 - r * 0.8, y: high }] },
+      { kind: 'line', style: 'mark', points: [{ x: cx2 + r * 0.8, y: 0 }, { x: cx2 + r * 0.8, y: high }] },
+      { kind: 'line', style: 'mark', points: [{ x: cx2 - r * 0.8, y: high }, { x: cx2 + r * 0.8, y: high }] },
+    );
+    if (stack > 0) {
+      const cx = s * (m1 / 2 - r);
+      shapes.push({ kind: 'polygon', style: 'block', points: [{ x: cx - r * 0.8, y: 0 }, { x: cx + r * 0.8, y: 0 }, { x: cx + r * 0.8, y: stack }, { x: cx - r * 0.8, y: stack }] });
+    }
+  }
+  const gap = Math.max(r * 2, top * 0.13);
+  const readings = [
+    { m: m1, z: z1, style: 'tool' as const, label: labels.reading1 },
+    { m: m2, z: z2, style: 'mark' as const, label: labels.reading2 },
+  ];
+  readings.forEach(({ m, z, style, label }, i) => {
+    const y = -plateT - gap * (i + 1);
+    shapes.push(
+      { kind: 'circle', style, points: [{ x: -(m / 2 - r), y: z }], r },
+      { kind: 'circle', style, points: [{ x: m / 2 - r, y: z }], r },
+      { kind: 'dimension', style: 'mark', points: [{ x: -m / 2, y }, { x: m / 2, y }], label, labelAt: { x: -m / 4, y: y + gap * 0.3 } },
+      { kind: 'line', style: 'mark', points: [{ x: -m / 2, y: z }, { x: -m / 2, y }] },
+      { kind: 'line', style: 'mark', points: [{ x: m / 2, y: z }, { x: m / 2, y }] },
+    );
+  });
+  const xh = plateHalf + gap;
+  shapes.push(
+    { kind: 'dimension', style: 'mark', points: [{ x: xh, y: z1 }, { x: xh, y: z2 }], label: labels.height },
+    { kind: 'line', style: 'mark', points: [{ x: m1 / 2, y: z1 }, { x: xh, y: z1 }] },
+    { kind: 'line', style: 'mark', points: [{ x: m2 / 2, y: z2 }, { x: xh, y: z2 }] },
+    { kind: 'line', style: 'mark', points: [{ x: side(0), y: 0 }, { x: side(top), y: top }], label: labels.halfAngle, labelAt: { x: side(z1 + dh * 0.3), y: z1 + dh * 0.3 } },
+    { kind: 'line', style: 'mark', points: [{ x: 0, y: -plateT }, { x: 0, y: top + r * 2.4 }], label: labels.included, labelAt: { x: 0, y: top + r * 2.4 } },
+  );
+  return { title: 'Taper on the surface plate: M1 over a pair of rolls, M2 with the rolls raised ΔH on higher stacks (dashed)', shapes, box: boundsWithLabels(shapes) };
+}
+
+/** Labels of {@link taperDiscsSketch}: the discs as set up, the engine's centre distance and angle. */
+export interface DiscsLabels {
+  large: string;
+  small: string;
+  centres: string;
+  angle: string;
+}
+
+/**
+ * Two discs of diameters D and d at centre distance C between two straightedges. About the axis
+ * each straightedge leans sin φ = (D − d)/(2C) from the centre line; with one side square the square
+ * straightedge touches both discs and the other is its mirror image in the line of centres, 2φ from
+ * it (Machinery's Handbook disc method, REFERENCE.md §5.2; placement derived). Null unless D > d and
+ * C > (D − d)/2.
+ */
+export function taperDiscsSketch(reference: 'axis' | 'side', largeDisc: number, smallDisc: number, centreDistance: number, labels: DiscsLabels): Sketch | null {
+  const R = largeDisc / 2;
+  const r = smallDisc / 2;
+  const C = centreDistance;
+  if (![R, r, C].every((n) => Number.isFinite(n) && n > 0) || !(R > r) || !(C > R - r)) return null;
+  const phi = Math.asin((R - r) / C);
+  const t = R * 0.15;
+  const ext = Math.max(R * 0.9, r * 1.6);
+  /** A straightedge t thick on the outer side (unit normal n) of the line through a and b, run past both. */
+  const edge = (a: Pt, b: Pt, n: Pt, label?: string): SketchShape => {
+    const len = Math.hypot(b.x - a.x, b.y - a.y);
+    // Along the line from a to b (the normal turned a quarter, when a and b coincide).
+    const u = len > 0 ? { x: (b.x - a.x) / len, y: (b.y - a.y) / len } : { x: -n.y, y: n.x };
+    const p = { x: a.x - u.x * ext, y: a.y - u.y * ext };
+    const q = { x: b.x + u.x * ext, y: b.y + u.y * ext };
+    const outer = [{ x: q.x + n.x * t, y: q.y + n.y * t }, { x: p.x + n.x * t, y: p.y + n.y * t }];
+    // The label just past the lower end, clear of the discs.
+    const labelAt = { x: p.x + n.x * t - u.x * R * 0.3, y: p.y + n.y * t - u.y * R * 0.3 };
+    return { kind: 'polygon', style: 'block', points: [p, q, ...outer], ...(label ? { label, labelAt } : {}) };
+  };
+  const shapes: SketchShape[] = [];
+  let large: Pt;
+  let small: Pt;
+  // The slanted straightedge on the right: its unit normal, pointing away from the discs.
+  let n: Pt;
+  if (reference === 'axis') {
+    large = { x: 0, y: 0 };
+    small = { x: 0, y: C };
+    n = { x: Math.cos(phi), y: Math.sin(phi) };
+    const m = { x: -n.x, y: n.y };
+    shapes.push(edge({ x: m.x * R, y: m.y * R }, { x: m.x * r, y: C + m.y * r }, m));
+    shapes.push({ kind: 'line', style: 'mark', points: [{ x: 0, y: -R * 1.5 }, { x: 0, y: C + r + ext }] });
+  } else {
+    large = { x: R, y: 0 };
+    small = { x: r, y: C * Math.cos(phi) };
+    n = { x: Math.cos(2 * phi), y: Math.sin(2 * phi) };
+    shapes.push(edge({ x: 0, y: 0 }, { x: 0, y: small.y }, { x: -1, y: 0 }, 'square side'));
+  }
+  const a = { x: large.x + n.x * R, y: large.y + n.y * R };
+  const b = { x: small.x + n.x * r, y: small.y + n.y * r };
+  shapes.push(edge(a, b, n, 'straightedge'));
+  const len = Math.hypot(b.x - a.x, b.y - a.y);
+  const along = len > 0 ? { x: (b.x - a.x) / len, y: (b.y - a.y) / len } : { x: -n.y, y: n.x };
+  const far = { x: b.x + along.x * (ext + R * 0.4), y: b.y + along.y * (ext + R * 0.4) };
+  shapes.push(
+    { kind: 'circle', style: 'tool', points: [large], r: R, label: labels.large, labelAt: { x: a.x + n.x * t * 1.5, y: a.y + n.y * t * 1.5 } },
+    { kind: 'circle', style: 'tool', points: [small], r, label: labels.small, labelAt: { x: b.x + n.x * t * 1.5, y: b.y + n.y * t * 1.5 } },
+    { kind: 'dimension', style: 'mark', points: [large, small], label: labels.centres },
+    { kind: 'line', style: 'mark', points: [a, far], label: labels.angle, labelAt: far },
+  );
+  const title = reference === 'axis' ? 'Two discs between straightedges set about the axis of the taper' : 'Two discs between straightedges, one side square';
+  return { title, shapes, box: boundsWithLabels(shapes) };
+}
+
+/** Labels of {@link taperBallsSketch}: the depths as set up, the engine's centre distance and angles. */
+export interface BallsLabels {
+  large: string;
+  small: string;
+  largeDepth: string;
+  smallDepth: string;
+  centres: string;
+  halfAngle: string;
+  included: string;
+}
+
+/**
+ * An internal taper opening at the face (y = 0) with a large ball (radius R) and a small one (r)
+ * resting in it, their tops h₁ and h₂ below the face (negative: standing proud). The centres are
+ * s = (h₂ + r) − (h₁ + R) apart and sin(α/2) = (R − r)/s (REFERENCE.md §5.2); each ball touches the
+ * bore, its centre R/cos(α/2) from the wall measured across (derived). Null when the balls do not
+ * fit a taper (s ≤ R − r) or the large ball would touch the bore above the face.
+ */
+export function taperBallsSketch(largeBall: number, smallBall: number, largeBallDepth: number, smallBallDepth: number, labels: BallsLabels): Sketch | null {
+  const R = largeBall / 2;
+  const r = smallBall / 2;
+  if (![R, r].every((n) => Number.isFinite(n) && n > 0) || !Number.isFinite(largeBallDepth) || !Number.isFinite(smallBallDepth) || !(R > r)) return null;
+  const yL = -(largeBallDepth + R);
+  const yS = -(smallBallDepth + r);
+  const s = yL - yS;
+  if (!(s > R - r)) return null;
+  const theta = Math.asin((R - r) / s);
+  const t = Math.tan(theta);
+  if (yL - R * Math.sin(theta) > 0) return null;
+  // Right-hand wall of the bore: x at height y.
+  const wall = (y: number) => R / Math.cos(theta) + (y - yL) * t;
+  const w0 = wall(0);
+  const floor = Math.max(yS - r * 1.5, yS - r / Math.sin(theta));
+  const wf = Math.max(wall(floor), 0);
+  const outer = w0 + Math.max(R, w0 * 0.6);
+  const bottom = floor - Math.max(Math.abs(floor) * 0.25, r);
+  const shapes: SketchShape[] = [
+    { kind: 'polygon', style: 'part', points: [{ x: -outer, y: 0 }, { x: -w0, y: 0 }, { x: -wf, y: floor }, { x: wf, y: floor }, { x: w0, y: 0 }, { x: outer, y: 0 }, { x: outer, y: bottom }, { x: -outer, y: bottom }] },
+    { kind: 'line', style: 'mark', points: [{ x: 0, y: bottom - r }, { x: 0, y: Math.max(0, yL + R) + R * 0.8 }], label: labels.included, labelAt: { x: 0, y: bottom - r } },
+    { kind: 'circle', style: 'tool', points: [{ x: 0, y: yL }], r: R, label: labels.large, labelAt: { x: -R * 0.6, y: yL + R * 0.4 } },
+    { kind: 'circle', style: 'tool', points: [{ x: 0, y: yS }], r, label: labels.small, labelAt: { x: -r * 0.6, y: yS + r * 0.4 } },
+  ];
+  const gap = Math.max(R * 0.8, outer * 0.2);
+  const depths = [
+    { h: largeBallDepth, label: labels.largeDepth },
+    { h: smallBallDepth, label: labels.smallDepth },
+  ];
+  depths.forEach(({ h, label }, i) => {
+    const x = outer + gap * (i + 1);
+    shapes.push(
+      { kind: 'dimension', style: 'mark', points: [{ x, y: 0 }, { x, y: -h }], label },
+      { kind: 'line', style: 'mark', points: [{ x: 0, y: -h }, { x, y: -h }] },
+    );
+  });
+  shapes.push({ kind: 'line', style: 'mark', points: [{ x: outer, y: 0 }, { x: outer + gap * 2, y: 0 }] });
+  const xs = -outer - gap;
+  shapes.push(
+    { kind: 'dimension', style: 'mark', points: [{ x: xs, y: yS }, { x: xs, y: yL }], label: labels.centres, labelAt: { x: xs - gap * 3, y: (yL + yS) / 2 } },
+    { kind: 'line', style: 'mark', points: [{ x: 0, y: yL }, { x: xs, y: yL }] },
+    { kind: 'line', style: 'mark', points: [{ x: 0, y: yS }, { x: xs, y: yS }] },
+    { kind: 'line', style: 'mark', points: [{ x: wf, y: floor }, { x: w0 + R * 0.6 * t, y: R * 0.6 }], label: labels.halfAngle, labelAt: { x: wall((yL + yS) / 2), y: (yL + yS) / 2 } },
+  );
+  return { title: 'Internal taper with a large and a small ball: depth of each top below the face', shapes, box: boundsWithLabels(shapes) };
 }
 
 /** A right triangle showing the angle: the sketch for areas without their own. */
