@@ -1,4 +1,4 @@
-import { arcPath, dovetailScene, latheTaperScene, pointsAttr, sineBarScene, stackBlocks, taperTriangle } from './lesson-geometry';
+import { angleFromPointer, arcPath, dovetailScene, latheTaperScene, pointsAttr, sineBarScene, snapAngle, stackBlocks, taperTriangle, toViewPoint } from './lesson-geometry';
 
 const dist = (a: { x: number; y: number }, b: { x: number; y: number }) => Math.hypot(a.x - b.x, a.y - b.y);
 
@@ -92,5 +92,107 @@ describe('arcPath and pointsAttr', () => {
   it('should write SVG path and points text', () => {
     expect(arcPath({ x: 0, y: 0 }, 10, 0, 90)).toBe('M10,0 A10,10 0 0 0 0,-10');
     expect(pointsAttr([{ x: 1, y: 2 }, { x: 3, y: 4 }])).toBe('1,2 3,4');
+  });
+});
+
+describe('angle grips', () => {
+  const TAPER = { min: 1, max: 30, step: 0.5 };
+  const SINE = { min: 0, max: 60, step: 0.5 };
+  const DOVETAIL = { min: 40, max: 70, step: 1 };
+  /** A point `r` view units from `v` at `deg` counter-clockwise on screen (y grows downward). */
+  const at = (v: { x: number; y: number }, deg: number, r = 120) => ({ x: v.x + r * Math.cos((deg * Math.PI) / 180), y: v.y - r * Math.sin((deg * Math.PI) / 180) });
+
+  it('should keep each grip vertex put while the angle changes', () => {
+    expect(taperTriangle(5).grip.vertex).toEqual(taperTriangle(25).grip.vertex);
+    expect(sineBarScene(5).grip.vertex).toEqual(sineBarScene(50).grip.vertex);
+    expect(dovetailScene(40).grip.vertex).toEqual(dovetailScene(70).grip.vertex);
+  });
+
+  it('should put the handles on the moving arms: the top face end, the raised roll, the flank', () => {
+    const t = taperTriangle(12);
+    expect(t.grip.handle).toEqual(t.corner.right);
+    const s = sineBarScene(20);
+    expect(s.grip.handle).toEqual(s.rolls[1]);
+    const d = dovetailScene(55);
+    const [, corner, top] = d.outline;
+    expect(d.grip.vertex).toEqual(corner);
+    // On the flank: the handle, the flank's corner and its top end are in line.
+    const cross = (d.grip.handle.x - corner!.x) * (top!.y - corner!.y) - (d.grip.handle.y - corner!.y) * (top!.x - corner!.x);
+    expect(Math.abs(cross) / dist(corner!, top!)).toBeLessThan(0.05);
+  });
+
+  it('should keep every handle inside the view box over the slider range', () => {
+    for (const g of [taperTriangle(1).grip, taperTriangle(30).grip, sineBarScene(0).grip, sineBarScene(60).grip, dovetailScene(40).grip, dovetailScene(70).grip]) {
+      expect(g.handle.x).toBeGreaterThanOrEqual(18);
+      expect(g.handle.x).toBeLessThanOrEqual(480 - 18);
+      expect(g.handle.y).toBeGreaterThanOrEqual(18);
+      expect(g.handle.y).toBeLessThanOrEqual(300 - 18);
+    }
+  });
+
+  describe('angleFromPointer', () => {
+    it("should map each handle's own position back to the value it was drawn for", () => {
+      for (const v of [1, 7.5, 18, 30]) expect(angleFromPointer(taperTriangle(v).grip.handle, taperTriangle(v).grip, 99, TAPER)).toBe(v);
+      for (const v of [0, 14.5, 45, 60]) expect(angleFromPointer(sineBarScene(v).grip.handle, sineBarScene(v).grip, 99, SINE)).toBe(v);
+      for (const v of [40, 55, 60, 70]) expect(angleFromPointer(dovetailScene(v).grip.handle, dovetailScene(v).grip, 99, DOVETAIL)).toBe(v);
+    });
+
+    it('should read 30° and 45° from points at those angles about the vertex (derived: direction = atan2)', () => {
+      const g = sineBarScene(10).grip;
+      expect(angleFromPointer(at(g.vertex, 30), g, 10, SINE)).toBe(30);
+      expect(angleFromPointer(at(g.vertex, 45, 17), g, 10, SINE)).toBe(45);
+      // Up is a smaller y in SVG: 100 right and 100 up is (x + 100, y − 100), at 45°.
+      expect(angleFromPointer({ x: g.vertex.x + 100, y: g.vertex.y - 100 }, g, 10, SINE)).toBe(45);
+      const d = dovetailScene(60).grip;
+      expect(angleFromPointer(at(d.vertex, 45), d, 60, DOVETAIL)).toBe(45);
+    });
+
+    it('should take off the handle offset on the taper, where the handle is not on the level arm', () => {
+      const g = taperTriangle(7.5).grip;
+      expect(g.offsetDeg).toBeCloseTo((Math.atan2(70, 300) * 180) / Math.PI, 6);
+      expect(angleFromPointer(at(g.vertex, 20 + g.offsetDeg), g, 7.5, TAPER)).toBe(20);
+    });
+
+    it('should clamp below the minimum and above the maximum, the nearer end winning past either', () => {
+      const g = sineBarScene(10).grip;
+      expect(angleFromPointer(at(g.vertex, -20), g, 10, SINE)).toBe(0);
+      expect(angleFromPointer(at(g.vertex, 80), g, 10, SINE)).toBe(60);
+      expect(angleFromPointer(at(g.vertex, 200), g, 10, SINE)).toBe(60);
+      expect(angleFromPointer(at(g.vertex, 250), g, 10, SINE)).toBe(0);
+      const d = dovetailScene(60).grip;
+      expect(angleFromPointer(at(d.vertex, 10), d, 60, DOVETAIL)).toBe(40);
+      expect(angleFromPointer(at(d.vertex, 120), d, 60, DOVETAIL)).toBe(70);
+    });
+
+    it('should round to the step', () => {
+      const g = sineBarScene(10).grip;
+      expect(angleFromPointer(at(g.vertex, 14.3), g, 10, SINE)).toBe(14.5);
+      expect(angleFromPointer(at(g.vertex, 14.2), g, 10, SINE)).toBe(14);
+      const d = dovetailScene(60).grip;
+      expect(angleFromPointer(at(d.vertex, 52.6), d, 60, DOVETAIL)).toBe(53);
+    });
+
+    it('should keep the current value for a pointer on the vertex or with no position', () => {
+      const g = sineBarScene(10).grip;
+      expect(angleFromPointer({ ...g.vertex }, g, 14.5, SINE)).toBe(14.5);
+      expect(angleFromPointer({ x: Number.NaN, y: 3 }, g, 14.5, SINE)).toBe(14.5);
+    });
+  });
+
+  describe('snapAngle', () => {
+    it('should round to the nearest step from the minimum and stay in range', () => {
+      expect(snapAngle(7.74, TAPER)).toBe(7.5);
+      expect(snapAngle(7.75, TAPER)).toBe(8);
+      expect(snapAngle(0.2, TAPER)).toBe(1);
+      expect(snapAngle(31, TAPER)).toBe(30);
+      expect(snapAngle(0.1 + 0.2, { min: 0, max: 1, step: 0.1 })).toBe(0.3);
+      expect(snapAngle(Number.NaN, TAPER)).toBe(1);
+    });
+  });
+
+  describe('toViewPoint', () => {
+    it('should apply the inverse screen matrix (scale 2, shifted by 10, 20)', () => {
+      expect(toViewPoint({ a: 0.5, b: 0, c: 0, d: 0.5, e: -5, f: -10 }, 110, 220)).toEqual({ x: 50, y: 100 });
+    });
   });
 });

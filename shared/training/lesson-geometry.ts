@@ -1,8 +1,11 @@
 /**
  * Geometry of the lesson drawings: pure functions from the lesson's slider value to SVG
  * coordinates in a fixed 480 × 300 view box (y grows downward). Drawing only — every number a
- * lesson prints comes from the calculation engine, not from here.
+ * lesson prints comes from the calculation engine, not from here. Scenes with an angle also say
+ * where that angle can be dragged (`grip`), and `angleFromPointer` turns a pointer into the value.
  */
+
+import { Dec } from '../calc/decimal-math';
 
 /** A point in view-box units. */
 export interface Pt {
@@ -16,6 +19,31 @@ export const LESSON_VIEW = { width: 480, height: 300 } as const;
 const rad = (deg: number) => (deg * Math.PI) / 180;
 const r2 = (v: number) => Math.round(v * 100) / 100;
 const pt = (x: number, y: number): Pt => ({ x: r2(x), y: r2(y) });
+/** Direction of `to` seen from `from`, degrees counter-clockwise on screen from +x (y grows downward). */
+const screenDeg = (from: Pt, to: Pt) => (Math.atan2(from.y - to.y, to.x - from.x) * 180) / Math.PI;
+
+/**
+ * Where a drawing's angle can be grabbed: the arm carrying `handle` turns about `vertex`, a point
+ * that stays put while the angle changes.
+ */
+export interface AngleGrip {
+  /** The fixed point the arm turns about. */
+  vertex: Pt;
+  /** Centre of the drag handle on the moving arm. */
+  handle: Pt;
+  /**
+   * Direction of the handle about the vertex minus the drawn angle, degrees (0 when the handle
+   * lies on the arm that makes the angle, as on the sine bar and the dovetail flank).
+   */
+  offsetDeg: number;
+}
+
+/** The range of an angle slider, degrees. */
+export interface AngleRange {
+  min: number;
+  max: number;
+  step: number;
+}
 
 /** An SVG arc path for an angle mark from `fromDeg` to `toDeg` (counter-clockwise on screen, 0° = +x). */
 export function arcPath(center: Pt, radius: number, fromDeg: number, toDeg: number): string {
@@ -40,6 +68,11 @@ export interface TaperTriangle {
   cutY: number;
   /** The angle mark at the taper start. */
   arc: string;
+  /**
+   * Drag handle at the end of the top face; the whole part tilts about the low corner of the
+   * block, whose wedge angle is α too, so that corner stays put while the angle changes.
+   */
+  grip: AngleGrip;
 }
 
 /**
@@ -64,6 +97,7 @@ export function taperTriangle(angleDeg: number, length = 300, thickness = 70, ta
     corner: { angle: start, right: endTop, far: endCut },
     cutY: start.y,
     arc: arcPath(start, 40, 0, a),
+    grip: { vertex: base, handle: endTop, offsetDeg: (Math.atan2(thickness, length) * 180) / Math.PI },
   };
 }
 
@@ -81,10 +115,15 @@ export interface SineBarScene {
   /** The right triangle: roll centre, point under the raised roll, raised roll centre. */
   triangle: Pt[];
   arc: string;
+  /** Drag handle on the raised roll; the bar turns about the roll on the plate. */
+  grip: AngleGrip;
 }
 
-/** Sine bar set to `angleDeg` (0–60°), drawn with a 320-unit roll centre distance. */
-export function sineBarScene(angleDeg: number, barLength = 320): SineBarScene {
+/**
+ * Sine bar set to `angleDeg` (0–60°), drawn with a 240-unit roll centre distance: short enough
+ * that the raised roll and its drag handle stay in the view box at 60°.
+ */
+export function sineBarScene(angleDeg: number, barLength = 240): SineBarScene {
   const a = Math.min(Math.max(angleDeg, 0), 60);
   const radius = 14;
   const plate = 270;
@@ -103,7 +142,7 @@ export function sineBarScene(angleDeg: number, barLength = 320): SineBarScene {
     pt(left.x - 20 * ux + (radius + 22) * nx, left.y - 20 * uy + (radius + 22) * ny),
   ];
   const stack = [pt(right.x - 24, plate), pt(right.x + 24, plate), pt(right.x + 24, plate - H), pt(right.x - 24, plate - H)];
-  return { rolls: [left, right], rollRadius: radius, bar, stack, stackHeight: r2(H), triangle: [left, pt(right.x, left.y), right], arc: arcPath(left, 50, 0, a) };
+  return { rolls: [left, right], rollRadius: radius, bar, stack, stackHeight: r2(H), triangle: [left, pt(right.x, left.y), right], arc: arcPath(left, 50, 0, a), grip: { vertex: left, handle: right, offsetDeg: 0 } };
 }
 
 /** One block of a drawn stack: its rectangle and label. */
@@ -174,7 +213,12 @@ export interface DovetailScene {
   /** The sharp-corner width line at the base. */
   width: [Pt, Pt];
   arc: string;
+  /** Drag handle part-way up the right flank, which turns about its corner at the base. */
+  grip: AngleGrip;
 }
+
+/** How far up the dovetail flank its drag handle sits, view units. */
+const GRIP_ON_FLANK = 100;
 
 /**
  * Male dovetail of flank angle `angleDeg` (to the base, 30–80°), sharp-corner width 260 and
@@ -201,7 +245,53 @@ export function dovetailScene(angleDeg: number, pinDiameter = 44): DovetailScene
     measure: [pt(left.x - r, baseY + 34), pt(right.x + r, baseY + 34)],
     width: [pt(x0, baseY + 14), pt(x0 + width, baseY + 14)],
     arc: arcPath(pt(x0 + width, baseY), 36, 180 - a, 180),
+    // A fixed distance along the flank keeps the handle inside the view box at the shallowest angles.
+    grip: { vertex: outline[1]!, handle: pt(x0 + width + GRIP_ON_FLANK * Math.cos(rad(a)), baseY - GRIP_ON_FLANK * Math.sin(rad(a))), offsetDeg: 0 },
   };
+}
+
+/**
+ * `value` rounded to the nearest step counted from `range.min`, then kept within the range.
+ * Rounded in decimal so a step of 0.5 gives 7.5, never 7.499999….
+ */
+export function snapAngle(value: number, range: AngleRange): number {
+  const { min, max, step } = range;
+  if (!Number.isFinite(value)) return min;
+  const steps = new Dec(value).minus(min).div(step).round();
+  const snapped = steps.times(step).plus(min).toNumber();
+  return Math.min(Math.max(snapped, min), max);
+}
+
+/**
+ * The angle a pointer at `pointer` (view units) sets when it drags `grip`'s handle: its direction
+ * about the vertex less the handle's offset, clamped to the range and snapped to its step. Past
+ * either end the nearer end wins (going round the circle); a pointer on the vertex has no
+ * direction, so `current` is kept.
+ */
+export function angleFromPointer(pointer: Pt, grip: AngleGrip, current: number, range: AngleRange): number {
+  if (!Number.isFinite(pointer.x) || !Number.isFinite(pointer.y) || Math.hypot(pointer.x - grip.vertex.x, pointer.y - grip.vertex.y) < 1e-6) {
+    return current;
+  }
+  const mid = (range.min + range.max) / 2;
+  let deg = screenDeg(grip.vertex, pointer) - grip.offsetDeg;
+  // Bring the direction into the turn centred on the range, so "past the end" means the nearer end.
+  deg = ((((deg - mid + 180) % 360) + 360) % 360) - 180 + mid;
+  return snapAngle(deg, range);
+}
+
+/** The inverse of an SVG element's screen matrix (the six numbers of `getScreenCTM().inverse()`). */
+export interface ScreenToView {
+  a: number;
+  b: number;
+  c: number;
+  d: number;
+  e: number;
+  f: number;
+}
+
+/** A pointer's client (screen) position in the drawing's view-box units. */
+export function toViewPoint(m: ScreenToView, clientX: number, clientY: number): Pt {
+  return { x: m.a * clientX + m.c * clientY + m.e, y: m.b * clientX + m.d * clientY + m.f };
 }
 
 /** Points as an SVG polygon `points` attribute. */

@@ -123,4 +123,56 @@ describe('training', () => {
       await context.close();
     }
   });
+
+  it('turns the taper angle by dragging the handle on the drawing, and the slider and tan α follow', async () => {
+    for (const viewport of [DESKTOP, TABLET]) {
+      const { context, page, problems } = await openPage(browser, viewport);
+      await signInByApi(context, 'apprentice@demo.test');
+      await page.goto('/training/lessons/right-triangle');
+      await page.getByRole('heading', { name: 'The right triangle on a taper set-up' }).waitFor();
+      const handle = page.getByRole('slider', { name: 'Drag on the drawing to set α' });
+      const slider = page.getByRole('slider', { name: 'Angle α', exact: true });
+      const angleText = page.locator('sw-lesson-drawing .slider-row strong');
+      const tanText = page.locator('sw-lesson-drawing .readouts div').filter({ has: page.getByText('tan α', { exact: true }) }).locator('dd');
+      await handle.waitFor();
+      // On a tablet the drawing sits below the text: bring it on screen, where the mouse can reach it.
+      await handle.scrollIntoViewIfNeeded();
+      const before = await angleText.textContent();
+      const startAngle = Number(await slider.inputValue());
+
+      // Big enough for a finger: at least 24 px across, and it says it can be grabbed.
+      const box = (await handle.boundingBox())!;
+      expect(box.width).toBeGreaterThanOrEqual(24);
+      expect(box.height).toBeGreaterThanOrEqual(24);
+      await expect(handle.evaluate((el) => getComputedStyle(el).cursor)).resolves.toBe('grab');
+      await expect(handle.evaluate((el) => getComputedStyle(el).touchAction)).resolves.toBe('none');
+
+      // The part tilts about the low corner of its block (down-left of the handle): dragging up opens the angle.
+      const x = box.x + box.width / 2;
+      const y = box.y + box.height / 2;
+      await page.mouse.move(x, y);
+      await page.mouse.down();
+      for (let i = 1; i <= 8; i++) await page.mouse.move(x, y - i * 10);
+      await page.mouse.up();
+      // Let the app render the last move (change detection runs by the next frame).
+      await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+
+      const angle = Number(await slider.inputValue());
+      expect(angle).toBeGreaterThanOrEqual(startAngle + 5);
+      expect(await angleText.textContent()).not.toBe(before);
+      expect(await angleText.textContent()).toBe(`${angle}°`);
+      await expect(handle.getAttribute('aria-valuenow')).resolves.toBe(String(angle));
+      // tan of the slider's angle to 4 places (derived: definition of the tangent).
+      expect(await tanText.textContent()).toBe(Math.tan((angle * Math.PI) / 180).toFixed(4));
+
+      // The keyboard moves the same value through the handle.
+      await handle.focus();
+      await page.keyboard.press('ArrowUp');
+      await angleText.filter({ hasText: `${angle + 0.5}°` }).waitFor();
+      expect(Number(await slider.inputValue())).toBe(angle + 0.5);
+      await screenshot(page, `training-lesson-drag-${viewport.width}`);
+      expect(problems).toEqual([]);
+      await context.close();
+    }
+  });
 });

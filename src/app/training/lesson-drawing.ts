@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, input, linkedSignal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, input, linkedSignal, signal, viewChild } from '@angular/core';
 import { MatSliderModule } from '@angular/material/slider';
 
 import { Dec, cosDeg, sinDeg, tanDeg } from '../../../shared/calc/decimal-math';
@@ -8,7 +8,19 @@ import { calculateLatheTaper } from '../../../shared/calc/lathe-taper';
 import { calculateOverPins } from '../../../shared/calc/over-pins';
 import { calculateSineBar } from '../../../shared/calc/sine-bar';
 import { calculateTaper } from '../../../shared/calc/taper';
-import { LESSON_VIEW, dovetailScene, latheTaperScene, pointsAttr, sineBarScene, stackBlocks, taperTriangle } from '../../../shared/training/lesson-geometry';
+import {
+  type AngleGrip,
+  LESSON_VIEW,
+  angleFromPointer,
+  dovetailScene,
+  latheTaperScene,
+  pointsAttr,
+  sineBarScene,
+  snapAngle,
+  stackBlocks,
+  taperTriangle,
+  toViewPoint,
+} from '../../../shared/training/lesson-geometry';
 import type { LessonDrawingKind } from './lessons';
 
 /** Slider range, step, start value and label of each drawing. */
@@ -28,9 +40,30 @@ interface Readout {
 
 const f4 = (d: Dec) => d.toFixed(4);
 
+/** Name of the drag handle of each angle drawing (kept apart from the slider's own name). */
+const GRIP_NAMES: Partial<Record<LessonDrawingKind, string>> = {
+  'taper-triangle': 'Drag on the drawing to set α',
+  'sine-bar': 'Drag on the drawing to set θ',
+  'over-pins': 'Drag on the drawing to set the dovetail α',
+};
+
+/** Keys that move an ARIA slider, as a number of steps (±Infinity for the ends). */
+const KEY_STEPS: Readonly<Record<string, number>> = {
+  ArrowUp: 1,
+  ArrowRight: 1,
+  ArrowDown: -1,
+  ArrowLeft: -1,
+  PageUp: 10,
+  PageDown: -10,
+  Home: -Infinity,
+  End: Infinity,
+};
+
 /**
- * The interactive drawing of a lesson: an SVG of the set-up driven by a slider. The geometry comes
- * from pure functions (shared/training/lesson-geometry); every number printed comes from the engine.
+ * The interactive drawing of a lesson: an SVG of the set-up driven by a slider. Where the slider is
+ * an angle, a round handle on the moving arm drags the same value (mouse, pen or touch) and works
+ * as a slider from the keyboard too. The geometry comes from pure functions
+ * (shared/training/lesson-geometry); every number printed comes from the engine.
  */
 @Component({
   selector: 'sw-lesson-drawing',
@@ -38,7 +71,8 @@ const f4 = (d: Dec) => d.toFixed(4);
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <figure class="lesson-drawing">
-      <svg [attr.viewBox]="viewBox" role="img" [attr.aria-label]="ariaLabel()" preserveAspectRatio="xMidYMid meet">
+      <svg #drawing [attr.viewBox]="viewBox" role="group" aria-label="Lesson drawing" preserveAspectRatio="xMidYMid meet">
+        <g role="img" [attr.aria-label]="ariaLabel()">
         @switch (kind()) {
           @case ('taper-triangle') {
             @let t = taper();
@@ -99,6 +133,31 @@ const f4 = (d: Dec) => d.toFixed(4);
             <text x="240" [attr.y]="p.width[0].y + 16" class="note" text-anchor="middle">a</text>
           }
         }
+        </g>
+        @if (grip(); as g) {
+          <g
+            class="grip"
+            [class.dragging]="dragging()"
+            [attr.transform]="'translate(' + g.handle.x + ' ' + g.handle.y + ')'"
+            role="slider"
+            tabindex="0"
+            [attr.aria-label]="gripName()"
+            [attr.aria-valuemin]="slider().min"
+            [attr.aria-valuemax]="slider().max"
+            [attr.aria-valuenow]="value()"
+            [attr.aria-valuetext]="value() + '°'"
+            (pointerdown)="startDrag($event)"
+            (pointermove)="dragTo($event)"
+            (pointerup)="endDrag($event)"
+            (pointercancel)="endDrag($event)"
+            (lostpointercapture)="dragging.set(false)"
+            (keydown)="stepWithKey($event)"
+          >
+            <circle r="18" class="grip-hit" />
+            <circle r="14" class="grip-ring" />
+            <circle r="9" class="grip-knob" />
+          </g>
+        }
       </svg>
       <figcaption>
         <label class="slider-row">
@@ -138,11 +197,21 @@ const f4 = (d: Dec) => d.toFixed(4);
     .readouts div { display: grid; }
     dt { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
     dd { margin: 0; font: var(--mat-sys-title-medium); font-variant-numeric: tabular-nums; }
+    /* The drag handle: 36 view units across (never under 24 px at the narrowest drawing), no scrolling on touch. */
+    .grip { cursor: grab; touch-action: none; outline: none; }
+    .grip.dragging { cursor: grabbing; }
+    .grip-hit { fill: var(--mat-sys-primary); fill-opacity: 0; pointer-events: all; }
+    .grip:hover .grip-hit, .grip.dragging .grip-hit { fill-opacity: 0.16; }
+    .grip-knob { fill: var(--mat-sys-primary); stroke: var(--mat-sys-surface); stroke-width: 2.5; }
+    .grip-ring { fill: none; stroke: var(--mat-sys-on-surface); stroke-width: 3; opacity: 0; }
+    .grip:focus-visible .grip-ring { opacity: 1; }
   `,
 })
 export class LessonDrawing {
   /** Which set-up to draw. */
   readonly kind = input.required<LessonDrawingKind>();
+
+  private readonly drawing = viewChild.required<ElementRef<SVGSVGElement>>('drawing');
 
   protected readonly viewBox = `0 0 ${LESSON_VIEW.width} ${LESSON_VIEW.height}`;
   /** The slider's settings for this drawing. */
@@ -156,6 +225,22 @@ export class LessonDrawing {
   protected readonly sine = computed(() => sineBarScene(this.value()));
   protected readonly lathe = computed(() => latheTaperScene(this.value()));
   protected readonly pins = computed(() => dovetailScene(this.value()));
+  /** Where the angle can be dragged; null when the slider is not an angle. */
+  protected readonly grip = computed<AngleGrip | null>(() => {
+    switch (this.kind()) {
+      case 'taper-triangle':
+        return this.taper().grip;
+      case 'sine-bar':
+        return this.sine().grip;
+      case 'over-pins':
+        return this.pins().grip;
+      default:
+        return null;
+    }
+  });
+  protected readonly gripName = computed(() => GRIP_NAMES[this.kind()] ?? '');
+  /** Whether a pointer is dragging the handle. */
+  protected readonly dragging = signal(false);
   private readonly stack = computed(() => {
     const r = calculateGaugeStack({ target: new Dec(this.value()).toFixed(4), unit: 'in', set: 'inch-81' });
     return r.ok ? r.value : null;
@@ -222,4 +307,41 @@ export class LessonDrawing {
 
   /** Points as SVG text. */
   protected points = pointsAttr;
+
+  /** Grabs the handle: later moves of this pointer come here even when it leaves the handle. */
+  protected startDrag(event: PointerEvent): void {
+    if (event.button !== 0) return;
+    // No text selection or native drag while the handle is held.
+    event.preventDefault();
+    const handle = event.currentTarget as SVGGElement;
+    handle.setPointerCapture?.(event.pointerId);
+    handle.focus({ preventScroll: true });
+    this.dragging.set(true);
+  }
+
+  /** Turns the arm to the pointer: its angle about the vertex, clamped and stepped like the slider. */
+  protected dragTo(event: PointerEvent): void {
+    const grip = this.grip();
+    const ctm = this.drawing().nativeElement.getScreenCTM();
+    if (!this.dragging() || !grip || !ctm) return;
+    const pointer = toViewPoint(ctm.inverse(), event.clientX, event.clientY);
+    this.value.set(angleFromPointer(pointer, grip, this.value(), this.slider()));
+  }
+
+  /** Lets go of the handle. */
+  protected endDrag(event: PointerEvent): void {
+    const handle = event.currentTarget as SVGGElement;
+    if (handle.hasPointerCapture?.(event.pointerId)) handle.releasePointerCapture(event.pointerId);
+    this.dragging.set(false);
+  }
+
+  /** Arrow keys move one step, Page Up/Down ten, Home/End go to the ends (as the slider does). */
+  protected stepWithKey(event: KeyboardEvent): void {
+    const steps = KEY_STEPS[event.key];
+    if (steps === undefined) return;
+    event.preventDefault();
+    const { min, max, step } = this.slider();
+    const next = steps === Infinity ? max : steps === -Infinity ? min : this.value() + steps * step;
+    this.value.set(snapAngle(next, this.slider()));
+  }
 }

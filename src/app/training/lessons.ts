@@ -32,7 +32,7 @@ export const LESSONS: readonly Lesson[] = [
     title: 'The right triangle on a taper set-up',
     summary: 'Where sin, cos and tan hide when a part lies tilted on an angle block.',
     drawing: 'taper-triangle',
-    tryIt: 'Move the angle slider. The part tilts on its block; the shaded triangle is the stock the level cut takes off.',
+    tryIt: 'Drag the round handle at the end of the top face (or move the angle slider). The part tilts on its block; the shaded triangle is the stock the level cut takes off.',
     sections: [
       {
         heading: 'Find the triangle first',
@@ -64,7 +64,7 @@ export const LESSONS: readonly Lesson[] = [
     title: 'Why the sine bar works',
     summary: 'A bar, two rolls and a stack of blocks make any angle you can compute.',
     drawing: 'sine-bar',
-    tryIt: 'Move the angle slider: the stack under the right-hand roll grows as L · sin θ. Watch how little it changes near 0° and how much near 60°.',
+    tryIt: 'Drag the handle on the raised roll (or move the angle slider): the stack under the right-hand roll grows as L · sin θ. Watch how little it changes near 0° and how much near 60°.',
     sections: [
       {
         heading: 'The bar is a hypotenuse you can trust',
@@ -139,7 +139,7 @@ export const LESSONS: readonly Lesson[] = [
     title: 'Measuring over pins',
     summary: 'Why a dovetail is measured over two rolls, and the constant that turns the reading into a width.',
     drawing: 'over-pins',
-    tryIt: 'Move the angle slider: as the dovetail angle closes, each pin sits farther out of the corner and the reading grows.',
+    tryIt: 'Drag the handle on the flank (or move the angle slider): as the dovetail angle closes, each pin sits farther out of the corner and the reading grows.',
     sections: [
       {
         heading: 'A sharp corner cannot be measured',
