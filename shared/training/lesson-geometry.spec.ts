@@ -80,6 +80,44 @@ describe('dovetailScene', () => {
     expect(distance).toBeCloseTo(s.pinRadius, 1);
   });
 
+  it('should keep the dovetail and its pins inside the view over the whole slider range (40–70°)', () => {
+    for (let a = 40; a <= 70; a += 1) {
+      const s = dovetailScene(a);
+      for (const p of [...s.outline, ...s.measure]) {
+        expect(p.x).toBeGreaterThanOrEqual(0);
+        expect(p.x).toBeLessThanOrEqual(480);
+        expect(p.y).toBeGreaterThanOrEqual(0);
+        expect(p.y).toBeLessThanOrEqual(300);
+      }
+      for (const c of s.pins) {
+        expect(c.x - s.pinRadius).toBeGreaterThanOrEqual(0);
+        expect(c.x + s.pinRadius).toBeLessThanOrEqual(480);
+      }
+    }
+  });
+
+  it('should draw the α arc from the base line round to the flank, clear of the pin (derived: the pin centre is r / sin(α/2) from the corner)', () => {
+    for (const a of [40, 55, 70]) {
+      const s = dovetailScene(a);
+      const corner = s.outline[1]!;
+      const m = /^M([-\d.e]+),([-\d.e]+) A([-\d.e]+),[-\d.e]+ 0 0 0 ([-\d.e]+),([-\d.e]+)$/.exec(s.arc);
+      expect(m).not.toBeNull();
+      const [sx, sy, radius, ex, ey] = m!.slice(1).map(Number) as [number, number, number, number, number];
+      // Starts on the base line to the right of the corner (where the pin sits) …
+      // (the path's numbers are rounded to 0.01 view units)
+      expect(sy).toBeCloseTo(corner.y, 2);
+      expect(sx - corner.x).toBeCloseTo(radius, 1);
+      // … and ends on the flank: the direction from the corner to the flank's top corner.
+      const top = s.outline[2]!;
+      const flank = Math.atan2(corner.y - top.y, top.x - corner.x);
+      expect(Math.atan2(corner.y - ey, ex - corner.x)).toBeCloseTo(flank, 3);
+      expect(flank).toBeCloseTo((a * Math.PI) / 180, 3);
+      // The arc stays between the corner and the pin.
+      const pin = s.pins[1];
+      expect(radius).toBeLessThan(Math.hypot(pin.x - corner.x, pin.y - corner.y) - s.pinRadius);
+    }
+  });
+
   it('should read wider over the pins than the sharp-corner width by D(1 + cot α/2) (Machinery\'s Handbook, derived)', () => {
     const s = dovetailScene(60, 40);
     const over = s.measure[1].x - s.measure[0].x;

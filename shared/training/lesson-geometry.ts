@@ -222,14 +222,17 @@ const GRIP_ON_FLANK = 100;
 
 /**
  * Male dovetail of flank angle `angleDeg` (to the base, 30–80°), sharp-corner width 260 and
- * height 110, with pins of diameter `pinDiameter` sitting in the corners at the base.
+ * height 110 (lower at shallow angles, so the overhang stays inside the view), with pins of
+ * diameter `pinDiameter` sitting in the corners at the base. The α arc sits in the right-hand
+ * corner between the base line and the flank, inside the pin.
  */
 export function dovetailScene(angleDeg: number, pinDiameter = 44): DovetailScene {
   const a = Math.min(Math.max(angleDeg, 30), 80);
   const width = 260;
-  const height = 110;
   const baseY = 230;
   const x0 = 110;
+  // The overhang of each flank is at most 95, so the top corners stay 15 inside the 480-wide view.
+  const height = Math.min(110, 95 * Math.tan(rad(a)));
   const run = height / Math.tan(rad(a));
   // The dovetail overhangs: it is narrow at the base and wide at the top, so pins lie in the acute corners.
   const outline = [pt(x0, baseY), pt(x0 + width, baseY), pt(x0 + width + run, baseY - height), pt(x0 - run, baseY - height)];
@@ -244,7 +247,8 @@ export function dovetailScene(angleDeg: number, pinDiameter = 44): DovetailScene
     pinRadius: r,
     measure: [pt(left.x - r, baseY + 34), pt(right.x + r, baseY + 34)],
     width: [pt(x0, baseY + 14), pt(x0 + width, baseY + 14)],
-    arc: arcPath(pt(x0 + width, baseY), 36, 180 - a, 180),
+    // Between the base line (0°) and the flank (α), small enough to stay clear of the pin.
+    arc: arcPath(outline[1]!, Math.max(8, Math.min(36, r / Math.sin(rad(a / 2)) - r - 4)), 0, a),
     // A fixed distance along the flank keeps the handle inside the view box at the shallowest angles.
     grip: { vertex: outline[1]!, handle: pt(x0 + width + GRIP_ON_FLANK * Math.cos(rad(a)), baseY - GRIP_ON_FLANK * Math.sin(rad(a))), offsetDeg: 0 },
   };
