@@ -65,6 +65,17 @@ export const trainingPaths = {
   '/api/training/assignments/{id}/work': {
     get: { summary: 'Your own problems of an assignment', parameters: id, responses: { 200: { description: 'Assignment and problems', ...json({ type: 'object', properties: { assignment, problems: { type: 'array', items: problem } } }) }, 404: errorResponse('Not assigned to you') } },
   },
+  '/api/training/assignments/{id}/work/{userId}': {
+    get: {
+      summary: "One apprentice's work on an assignment, problem by problem, with hints used and the worked solution even while open (leads and admins; read only)",
+      parameters: [...id, { name: 'userId', in: 'path', required: true, schema: { type: 'integer', minimum: 1 } }],
+      responses: {
+        200: { description: 'Assignment, apprentice and problems', ...json({ type: 'object', properties: { assignment, apprentice: { type: 'object', properties: { id: { type: 'integer' }, name: { type: 'string' } } }, problems: { type: 'array', items: { type: 'object', description: 'A problem as in /work, plus hintsUsed and solution {answer, exact, steps}' } } } }) },
+        403: errorResponse('Not a lead or admin'),
+        404: errorResponse('Not in your team, or not assigned to that apprentice'),
+      },
+    },
+  },
   '/api/training/assignments/{id}/problems/{position}/hints': {
     post: { summary: 'Reveal the next derivation step of one of your problems (the answer step shows "?")', parameters: [...id, ...position, ...csrf], responses: { 200: { description: 'The problem with one more hint', ...json(problem) }, 404: errorResponse('Not yours'), 409: errorResponse('Closed, or every hint shown') } },
   },

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
-import { assignmentCreateBody, attemptBody, MAX_ATTEMPTS, type ScoreTableDto } from '../../shared/api/training';
+import { assignmentCreateBody, attemptBody, MAX_ATTEMPTS, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
 import { checkAnswer } from '../../shared/training/exercise';
 import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
 import { generateExercise } from '../../shared/training/generators';
@@ -11,7 +11,7 @@ import { parseBody, parseId } from '../middleware/validate';
 import { Assignment, AssignmentWork, TrainingAttempt, TrainingProblem, User } from '../models';
 import { sendMail } from '../services/mailer';
 import { assignmentMail } from '../services/team-mail';
-import { assignmentDto, plannedProblems, problemDto, workSummary } from '../services/training';
+import { assignmentDto, plannedProblems, problemDto, reviewProblemDto, workSummary } from '../services/training';
 
 const canAssign = (user: User) => user.role === 'lead' || user.role === 'admin';
 
@@ -116,6 +116,29 @@ export function createTrainingRouter(): Router {
     const { assignment, work } = await ownWork(req);
     const problems = [...(work.problems ?? [])].sort((a, b) => a.position - b.position);
     res.json({ assignment: assignmentDto(assignment, [work]), problems: problems.map(problemDto) });
+  });
+
+  // A lead or admin reads one apprentice's work of their own team: read only, solutions always shown.
+  router.get('/assignments/:id/work/:userId', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const assignmentId = parseId(req.params['id'], 'assignment');
+    const userId = parseId(req.params['userId'], 'apprentice');
+    const assignment = await teamAssignment(assignmentId, lead);
+    const work = await AssignmentWork.findOne({
+      where: { assignmentId: assignment.id, userId },
+      include: [
+        { model: User, as: 'user', attributes: ['id', 'name'], where: { teamId: lead.teamId } },
+        { model: TrainingProblem, as: 'problems', include: [{ model: TrainingAttempt, as: 'attempts' }] },
+      ],
+    });
+    if (!work?.user) throw new HttpError(404, 'No work for that apprentice on this assignment.');
+    const problems = [...(work.problems ?? [])].sort((a, b) => a.position - b.position);
+    const review: WorkReviewDto = {
+      assignment: assignmentDto(assignment, [work]),
+      apprentice: { id: work.user.id, name: work.user.name },
+      problems: problems.map(reviewProblemDto),
+    };
+    res.json(review);
   });
 
   router.post('/assignments/:id/problems/:position/hints', async (req, res) => {

@@ -1,4 +1,4 @@
-import { MAX_ATTEMPTS, type AssignmentDto, type AssignmentItem, type ProblemDto, type WorkStatus, type WorkSummaryDto } from '../../shared/api/training';
+import { MAX_ATTEMPTS, type AssignmentDto, type AssignmentItem, type ProblemDto, type ReviewProblemDto, type WorkStatus, type WorkSummaryDto } from '../../shared/api/training';
 import { EXERCISE_INFO } from '../../shared/training/exercise-types';
 import { hintsOf } from '../../shared/training/exercise';
 import { generateExercise } from '../../shared/training/generators';
@@ -83,5 +83,18 @@ export function problemDto(problem: TrainingProblem): ProblemDto {
     correct: problem.correct,
     cautions: exercise.cautions,
     solution: closed ? { answer: exercise.answer, steps: exercise.steps } : null,
+  };
+}
+
+/**
+ * One problem as a lead or admin reads it: the apprentice's view plus the hints used and, even
+ * while the problem is open, the worked solution and exact answer (regenerated from the seed).
+ */
+export function reviewProblemDto(problem: TrainingProblem): ReviewProblemDto {
+  const exercise = generateExercise(problem.type, problem.seed);
+  return {
+    ...problemDto(problem),
+    hintsUsed: problem.hintsUsed,
+    solution: { answer: exercise.answer, exact: exercise.exact, steps: exercise.steps },
   };
 }

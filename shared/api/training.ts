@@ -52,6 +52,25 @@ export interface ProblemDto {
   solution: { answer: string; steps: StepDto[] } | null;
 }
 
+/**
+ * One problem of an apprentice's assignment as their lead or admin reads it: what the apprentice
+ * sees, plus the hints asked for and, always (even while open), the worked solution and exact answer.
+ */
+export interface ReviewProblemDto extends Omit<ProblemDto, 'solution'> {
+  /** Hints the apprentice has revealed (of `hintsAvailable`). */
+  hintsUsed: number;
+  /** The answer at the unit's resolution, the full-precision answer graded against, and every step. */
+  solution: { answer: string; exact: string; steps: StepDto[] };
+}
+
+/** GET /api/training/assignments/:id/work/:userId: one apprentice's work, for their lead or an admin. */
+export interface WorkReviewDto {
+  /** The assignment with only this apprentice's summary. */
+  assignment: AssignmentDto;
+  apprentice: { id: number; name: string };
+  problems: ReviewProblemDto[];
+}
+
 /** An assignment's items: how many problems of each exercise type. */
 export interface AssignmentItem {
   type: ExerciseType;

@@ -185,6 +185,71 @@ describe('/api/training', () => {
     });
   });
 
+  describe('a lead reading an apprentice\'s work', () => {
+    let id: number;
+    const review = (who: Client, assignmentId: number | string, userId: number | string) => who.agent.get(`/api/training/assignments/${assignmentId}/work/${userId}`);
+    beforeAll(async () => {
+      id = (await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'Read by the lead' })).expect(201)).body.id;
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: '9.9999' }).expect(201);
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: await answerOf(id, m.apprentice.id, 1) }).expect(201);
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/2/hints`).expect(200);
+    });
+
+    it('shows each answer in order with its grade, the hints used, and the solution even while a problem is open', async () => {
+      const res = await review(c.lead, id, m.apprentice.id).expect(200);
+      expect(res.body.apprentice).toEqual({ id: m.apprentice.id, name: m.apprentice.name });
+      expect(res.body.assignment).toMatchObject({ id, title: 'Read by the lead' });
+      expect(res.body.assignment.work).toEqual([expect.objectContaining({ userId: m.apprentice.id, status: 'in-progress', correct: 1, closed: 1, total: 3 })]);
+      expect(res.body.problems.map((p: { position: number }) => p.position)).toEqual([1, 2, 3]);
+      const [first, second, third] = res.body.problems;
+      const exact = await answerOf(id, m.apprentice.id, 1);
+      expect(first.attempts.map((a: { answer: string; correct: boolean }) => [a.answer, a.correct])).toEqual([['9.9999', false], [exact, true]]);
+      expect(first).toMatchObject({ closed: true, correct: true, hintsUsed: 0 });
+      expect(first.solution.exact).toBe(exact);
+      // Problem 2 is still open: the lead sees its one hint used and its whole worked solution.
+      expect(second).toMatchObject({ closed: false, hintsUsed: 1, attempts: [] });
+      expect(second.hints).toHaveLength(1);
+      expect(second.solution.exact).toBe(await answerOf(id, m.apprentice.id, 2));
+      expect(second.solution.steps.length).toBe(second.hintsAvailable);
+      expect(second.solution.steps[second.solution.steps.length - 1].value).not.toBe('?');
+      expect(third).toMatchObject({ closed: false, hintsUsed: 0 });
+      expect(third.solution.answer).toEqual(expect.any(String));
+    });
+
+    it('changes nothing, and the apprentice\'s own view still hides open solutions', async () => {
+      const before = await TrainingAttempt.count();
+      await review(c.lead, id, m.apprentice.id).expect(200);
+      await review(c.admin, id, m.apprentice.id).expect(200);
+      expect(await TrainingAttempt.count()).toBe(before);
+      const own = await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200);
+      expect(own.body.problems[1]).toMatchObject({ closed: false, solution: null, hints: [expect.any(Object)] });
+      expect(own.body.problems[1].hintsUsed).toBeUndefined();
+      expect(JSON.stringify(own.body)).not.toContain(await answerOf(id, m.apprentice.id, 2));
+    });
+
+    it('lets admins in and refuses apprentices and machinists (403)', async () => {
+      const admin = await review(c.admin, id, m.apprentice.id).expect(200);
+      expect(admin.body.problems).toHaveLength(3);
+      await review(c.apprentice, id, m.apprentice.id).expect(403);
+      await review(c.machinist, id, m.apprentice.id).expect(403);
+    });
+
+    it('answers 404 for another team\'s lead and for an apprentice not given the assignment', async () => {
+      const foreignRes = await review(c.foreign, id, m.apprentice.id).expect(404);
+      expect(foreignRes.body.error).toBe('No assignment with that id in your team.');
+      const unassigned = await review(c.lead, id, second.id).expect(404);
+      expect(unassigned.body.error).toBe('No work for that apprentice on this assignment.');
+      await review(c.lead, id, foreign.apprentice.id).expect(404);
+    });
+
+    it('answers a non-numeric id with 404 naming what was not found, as every id route does', async () => {
+      const badId = await review(c.lead, 'abc', m.apprentice.id).expect(404);
+      expect(badId.body.error).toBe('No assignment with that id.');
+      const badUser = await review(c.lead, id, 'abc').expect(404);
+      expect(badUser.body.error).toBe('No apprentice with that id.');
+    });
+  });
+
   it('lets a lead delete an assignment; others get 403', async () => {
     const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'To delete' })).expect(201);
     await c.apprentice.agent.delete(`/api/training/assignments/${res.body.id}`).set('X-CSRF-Token', c.apprentice.token).expect(403);

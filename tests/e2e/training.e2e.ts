@@ -97,6 +97,20 @@ describe('training', () => {
     await expect(cell.textContent()).resolves.toMatch(/100%\s*1\/1\s*Done/);
     await screenshot(lead.page, 'training-lead-scores-1280');
     expect(await contentViolations(lead.page)).toBe('');
+
+    // The score cell opens the apprentice's answers: wrong, then right, and the worked solution.
+    await cell.getByRole('link', { name: `Sam Okafor's work on ${title}` }).click();
+    await lead.page.getByRole('heading', { name: `Sam Okafor: ${title}` }).waitFor();
+    const answers = lead.page.getByRole('list', { name: 'Answers to problem 1' }).getByRole('listitem');
+    await expect(answers.allTextContents()).resolves.toEqual([expect.stringMatching(/Wrong/), expect.stringMatching(/Right/)]);
+    await expect(answers.nth(0).textContent()).resolves.toContain((Number(exercise.exact) + 0.05).toFixed(4));
+    await expect(answers.nth(1).textContent()).resolves.toContain(exercise.answer);
+    await lead.page.getByText('hints used 1 of').waitFor();
+    await lead.page.getByRole('button', { name: /Worked solution/ }).click();
+    await lead.page.getByText(`(exact ${exercise.exact};`).waitFor();
+    await lead.page.locator('.solution').getByText(exercise.steps[0]!.formula, { exact: true }).first().waitFor();
+    await screenshot(lead.page, 'training-lead-work-review-1280');
+    expect(await contentViolations(lead.page)).toBe('');
     expect(lead.problems).toEqual([]);
     await lead.context.close();
   });

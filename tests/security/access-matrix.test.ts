@@ -95,6 +95,7 @@ const RULES: Record<string, Rule> = {
   'GET /api/training/assignments/:id': ['admin', 'lead', 'apprentice'],
   'DELETE /api/training/assignments/:id': LEADS,
   'GET /api/training/assignments/:id/work': ['admin', 'lead', 'apprentice'],
+  'GET /api/training/assignments/:id/work/:userId': LEADS,
   'POST /api/training/assignments/:id/problems/:position/hints': ['apprentice'],
   'POST /api/training/assignments/:id/problems/:position/attempts': ['apprentice'],
   'GET /api/training/scores': LEADS,
@@ -168,6 +169,7 @@ beforeAll(async () => {
     '/api/team/mailbox/': String(mail.id),
     '/api/training/assignments/': String(assignment.body.id),
     '/api/training/assignments/:id/problems/': '1',
+    '/api/training/assignments/:id/work/': String(m.apprentice.id),
     '/api/access/invitations/': token,
     '/api/access/password-reset/': token,
   });

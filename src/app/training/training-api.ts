@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { AssignmentCreateBody, AssignmentDto, AttemptResultDto, ProblemDto, ScoreTableDto } from '../../../shared/api/training';
+import type { AssignmentCreateBody, AssignmentDto, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
 import { quietErrors } from '../core/api-error';
 
 /** One apprentice's copy of an assignment: the assignment and their problems. */
@@ -44,6 +44,11 @@ export class TrainingApi {
   /** Sends an answer; the server grades it. An unreadable answer is a 400 for the card to show. */
   attempt(id: number, position: number, answer: string): Observable<AttemptResultDto> {
     return this.http.post<AttemptResultDto>(`/api/training/assignments/${id}/problems/${position}/attempts`, { answer }, { context: quietErrors() });
+  }
+
+  /** One apprentice's work with answers and worked solutions (leads and admins); the page shows any refusal itself. */
+  review(id: number | string, userId: number | string): Observable<WorkReviewDto> {
+    return this.http.get<WorkReviewDto>(`/api/training/assignments/${id}/work/${userId}`, { context: quietErrors() });
   }
 
   /** The score table (leads and admins). */

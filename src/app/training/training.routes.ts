@@ -7,5 +7,6 @@ export const TRAINING_ROUTES: Routes = [
   { path: 'lessons/:slug', title: 'Lesson', loadComponent: () => import('./lesson-page') },
   { path: 'assignments', title: 'Assignments', loadComponent: () => import('./assignments-page') },
   { path: 'assignments/:id', title: 'Assignment', loadComponent: () => import('./assignment-work-page') },
+  { path: 'assignments/:id/work/:userId', title: 'Apprentice work', loadComponent: () => import('./work-review-page') },
 ];
 export default TRAINING_ROUTES;

@@ -1,0 +1,115 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+
+import type { ReviewProblemDto, WorkReviewDto } from '../../../shared/api/training';
+import WorkReviewPage from './work-review-page';
+
+const step = (label: string, value: string) => ({ label, formula: 'h = L · sin α', substituted: '1.5 · sin 10°', value, unit: 'in' });
+
+/** A problem as the API would send it; values are test data, not a calculation check. */
+function problem(position: number, extra: Partial<ReviewProblemDto>): ReviewProblemDto {
+  return {
+    position,
+    type: 'taper-depth',
+    title: 'Depth to stop on an angle block',
+    prompt: 'How deep is the stop?',
+    givens: [{ label: 'Taper length L', value: '1.500', unit: 'in' }],
+    answerLabel: 'Depth to stop h',
+    unit: 'in',
+    tolerance: '0.0005',
+    attempts: [],
+    attemptsLeft: 3,
+    hintsAvailable: 2,
+    hints: [],
+    closed: false,
+    correct: false,
+    cautions: [],
+    hintsUsed: 0,
+    solution: { answer: '0.2605', exact: '0.26047', steps: [step('Sine of the angle', '0.17365'), step('Depth to stop h', '0.2605')] },
+    ...extra,
+  };
+}
+
+const WORK: WorkReviewDto = {
+  assignment: {
+    id: 7, title: 'Tapers on the mill', instructions: '', items: [{ type: 'taper-depth', count: 2 }],
+    dueAt: '2026-12-20T16:00:00.000Z', createdAt: '2026-12-01T08:00:00.000Z', createdBy: 'Lead',
+    work: [{ userId: 4, name: 'Sam Okafor', status: 'in-progress', correct: 1, closed: 1, total: 2, score: 50, completedAt: null }],
+  },
+  apprentice: { id: 4, name: 'Sam Okafor' },
+  problems: [
+    problem(1, {
+      closed: true, correct: true, attemptsLeft: 0,
+      attempts: [
+        { answer: '0.3000', correct: false, at: '2026-12-02T09:10:00.000Z' },
+        { answer: '0.2605', correct: true, at: '2026-12-02T09:12:00.000Z' },
+      ],
+    }),
+    problem(2, { hintsUsed: 1, hints: [step('Sine of the angle', '0.17365')] }),
+  ],
+};
+
+describe('WorkReviewPage', () => {
+  let fixture: ComponentFixture<WorkReviewPage>;
+  let http: HttpTestingController;
+  let el: HTMLElement;
+
+  async function open(): Promise<void> {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(WorkReviewPage);
+    fixture.componentRef.setInput('id', '7');
+    fixture.componentRef.setInput('userId', '4');
+    el = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  }
+
+  /** Lets the page's awaited request settle and re-render. */
+  async function settle(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+  }
+
+  afterEach(() => http.verify());
+
+  it('should show every answer in order, marked right or wrong in words, with the hints used', async () => {
+    await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush(WORK);
+    await settle();
+    expect(el.querySelector('h1')!.textContent).toContain('Sam Okafor: Tapers on the mill');
+    expect(el.textContent).toContain('In progress');
+    expect(el.textContent).toContain('1 of 2 right (50%)');
+    const answers = Array.from(el.querySelectorAll('[aria-label="Answers to problem 1"] li')).map((li) => li.textContent!.replace(/\s+/g, ' ').trim());
+    expect(answers).toEqual([
+      expect.stringMatching(/^cancel ?0\.3000 in — Wrong · 2026-12-02 09:10 UTC$/),
+      expect.stringMatching(/^check_circle ?0\.2605 in — Right · 2026-12-02 09:12 UTC$/),
+    ]);
+    expect(el.querySelector('[aria-label="Answers to problem 2"]')!.textContent).toContain('No answer yet.');
+    const subtitles = Array.from(el.querySelectorAll('mat-card-subtitle')).map((s) => s.textContent!.replace(/\s+/g, ' ').trim());
+    expect(subtitles[0]).toBe('Closed · answered right · hints used 0 of 2');
+    expect(subtitles[1]).toBe('Open · 3 tries left · hints used 1 of 2');
+  });
+
+  it('should offer the worked solution and exact answer of an open problem in a panel', async () => {
+    await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush(WORK);
+    await settle();
+    const panel = el.querySelectorAll('mat-expansion-panel')[1]!;
+    expect(panel.querySelector('mat-expansion-panel-header')!.textContent).toContain('Worked solution');
+    (panel.querySelector('mat-expansion-panel-header') as HTMLElement).click();
+    await settle();
+    expect(panel.textContent).toContain('Sine of the angle');
+    expect(panel.textContent).toContain('Depth to stop h = 0.2605 in');
+    expect(panel.textContent).toContain('exact 0.26047');
+  });
+
+  it('should show the server\'s message when the caller may not read the work (403)', async () => {
+    await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush({ error: 'Only lead or admin members may do this.' }, { status: 403, statusText: 'Forbidden' });
+    await settle();
+    expect(el.querySelector('[role=alert]')!.textContent).toContain('Only lead or admin members may do this.');
+    expect(el.querySelector('mat-card')).toBeNull();
+  });
+});

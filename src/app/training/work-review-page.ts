@@ -1,0 +1,154 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+
+import type { WorkReviewDto } from '../../../shared/api/training';
+import { apiErrorMessage } from '../core/api-error';
+import { TrainingApi } from './training-api';
+import { STATUS_ICONS, STATUS_LABELS } from './work-status';
+
+/** A stored UTC time as "2026-12-02 08:30 UTC". */
+function utcText(iso: string): string {
+  return `${iso.slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+/**
+ * One apprentice's work on an assignment as their lead (or an admin) reads it: every answer with
+ * its grade and time, the hints used, and each problem's worked solution even while it is open.
+ * Read only: nothing here changes the apprentice's work.
+ */
+@Component({
+  selector: 'sw-work-review-page',
+  imports: [RouterLink, MatButtonModule, MatCardModule, MatExpansionModule, MatIconModule, MatProgressBarModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <section class="page review">
+      <a mat-button routerLink="/training/assignments"><mat-icon>arrow_back</mat-icon> Assignments &amp; scores</a>
+      @if (view(); as v) {
+        <h1>{{ v.apprentice.name }}: {{ v.assignment.title }}</h1>
+        <p class="meta">
+          Due {{ time(v.assignment.dueAt) }}
+          @if (summary(); as s) {
+            · <span class="status" [attr.data-status]="s.status"><mat-icon aria-hidden="true" inline>{{ statusIcons[s.status] }}</mat-icon>
+            <strong>{{ statusLabels[s.status] }}</strong></span>
+            · {{ s.correct }} of {{ s.total }} right ({{ s.score }}%)
+          }
+        </p>
+        <p class="note">Read only. The worked solutions show here even while a problem is open; the apprentice sees them only once it closes.</p>
+        <div class="problems">
+          @for (p of v.problems; track p.position) {
+            <mat-card appearance="outlined" class="problem">
+              <mat-card-header>
+                <mat-card-title><h2>Problem {{ p.position }}: {{ p.title }}</h2></mat-card-title>
+                <mat-card-subtitle>
+                  @if (p.closed) {
+                    Closed · {{ p.correct ? 'answered right' : 'not answered right' }}
+                  } @else {
+                    Open · {{ p.attemptsLeft }} {{ p.attemptsLeft === 1 ? 'try' : 'tries' }} left
+                  }
+                  · hints used {{ p.hintsUsed }} of {{ p.hintsAvailable }}
+                </mat-card-subtitle>
+              </mat-card-header>
+              <mat-card-content>
+                <p class="prompt">{{ p.prompt }}</p>
+                <dl class="givens">
+                  @for (g of p.givens; track g.label) {
+                    <div><dt>{{ g.label }}</dt><dd>{{ g.value }}{{ g.unit === '°' ? '°' : g.unit ? ' ' + g.unit : '' }}</dd></div>
+                  }
+                </dl>
+                <h3>Answers</h3>
+                <ol class="attempts" [attr.aria-label]="'Answers to problem ' + p.position">
+                  @for (a of p.attempts; track $index) {
+                    <li [class.right]="a.correct" [class.wrong]="!a.correct">
+                      <mat-icon aria-hidden="true">{{ a.correct ? 'check_circle' : 'cancel' }}</mat-icon>
+                      {{ a.answer }} {{ p.unit }} — <strong class="verdict">{{ a.correct ? 'Right' : 'Wrong' }}</strong> · <span class="at">{{ time(a.at) }}</span>
+                    </li>
+                  } @empty {
+                    <li class="none">No answer yet.</li>
+                  }
+                </ol>
+                <mat-expansion-panel class="solution">
+                  <mat-expansion-panel-header>
+                    <mat-panel-title>Worked solution</mat-panel-title>
+                    <mat-panel-description>answer {{ p.solution.answer }} {{ p.unit }}</mat-panel-description>
+                  </mat-expansion-panel-header>
+                  <ol class="steps">
+                    @for (s of p.solution.steps; track $index) {
+                      <li><span class="label">{{ s.label }}</span>: <i>{{ s.formula }}</i> → {{ s.substituted }} = <strong>{{ s.value }}</strong> {{ s.unit }}</li>
+                    }
+                  </ol>
+                  <p class="exact">
+                    {{ p.answerLabel }} = <strong>{{ p.solution.answer }}</strong> {{ p.unit }}
+                    (exact {{ p.solution.exact }}; answers within ±{{ p.tolerance }} {{ p.unit }} are right)
+                  </p>
+                </mat-expansion-panel>
+              </mat-card-content>
+            </mat-card>
+          }
+        </div>
+      } @else if (failed()) {
+        <h1>Apprentice work</h1>
+        <p role="alert" class="failed">{{ failed() }}</p>
+      } @else {
+        <mat-progress-bar mode="indeterminate" aria-label="Loading the apprentice's work" />
+      }
+    </section>
+  `,
+  styles: `
+    .meta, .note { color: var(--mat-sys-on-surface-variant); }
+    .meta .status { display: inline-flex; gap: 4px; align-items: center; }
+    [data-status='missing'], [data-status='late'] { color: var(--mat-sys-error); }
+    .problems { display: grid; gap: 16px; }
+    h2 { margin: 0; font: var(--mat-sys-title-large); }
+    h3 { margin: 12px 0 4px; font: var(--mat-sys-title-small); }
+    .prompt { font: var(--mat-sys-body-large); }
+    .givens { display: flex; flex-wrap: wrap; gap: 8px 24px; margin: 0 0 12px; }
+    .givens div { display: grid; }
+    dt { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
+    dd { margin: 0; font: var(--mat-sys-title-medium); font-variant-numeric: tabular-nums; }
+    .attempts { list-style: none; padding: 0; margin: 0 0 12px; display: grid; gap: 4px; font-variant-numeric: tabular-nums; }
+    .attempts li { display: flex; flex-wrap: wrap; gap: 4px 6px; align-items: center; }
+    .attempts .at, .none { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
+    .right .verdict, .right mat-icon { color: var(--mat-sys-primary); }
+    .wrong .verdict, .wrong mat-icon { color: var(--mat-sys-error); }
+    .steps { display: grid; gap: 6px; padding-left: 1.4em; font-variant-numeric: tabular-nums; overflow-wrap: anywhere; }
+    .label { font-weight: 600; }
+    .exact { overflow-wrap: anywhere; }
+    .failed { color: var(--mat-sys-error); }
+  `,
+})
+export default class WorkReviewPage {
+  private readonly api = inject(TrainingApi);
+
+  /** The assignment id, from the route. */
+  readonly id = input.required<string>();
+  /** The apprentice's user id, from the route. */
+  readonly userId = input.required<string>();
+
+  protected readonly view = signal<WorkReviewDto | null>(null);
+  protected readonly failed = signal<string | null>(null);
+  protected readonly summary = computed(() => this.view()?.assignment.work[0] ?? null);
+  protected readonly statusLabels = STATUS_LABELS;
+  protected readonly statusIcons = STATUS_ICONS;
+  protected readonly time = utcText;
+
+  constructor() {
+    effect(() => void this.load(this.id(), this.userId()));
+  }
+
+  /** Loads the work; a refusal (403, 404) shows the server's own message. */
+  private async load(id: string, userId: string): Promise<void> {
+    this.view.set(null);
+    this.failed.set(null);
+    try {
+      this.view.set(await firstValueFrom(this.api.review(id, userId)));
+    } catch (err) {
+      this.failed.set(apiErrorMessage(err));
+    }
+  }
+}
