@@ -135,7 +135,7 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     res.json(fresh.toDto());
   });
 
-  /** Moves a set-up to a new status (lead or admin), stamping and recording it; answers the request. */
+  /** Moves a set-up to a new status (lead or admin), stamping it and adding it to the history; answers the request. */
   async function changeStatus(req: Request, res: Response, to: 'released' | 'archived'): Promise<void> {
     const user = currentUser(req);
     const setup = await findVisibleSetup(parseId(req.params['id']), user);
