@@ -115,7 +115,7 @@ export function createTrainingRouter(): Router {
   router.get('/assignments/:id/work', async (req, res) => {
     const { assignment, work } = await ownWork(req);
     const problems = [...(work.problems ?? [])].sort((a, b) => a.position - b.position);
-    res.json({ assignment: assignmentDto(assignment, [work]), problems: problems.map(problemDto) });
+    res.json({ assignment: assignmentDto(assignment, [work]), problems: problems.map((p) => problemDto(p)) });
   });
 
   // A lead or admin reads one apprentice's work of their own team: read only, solutions always shown.
@@ -136,7 +136,7 @@ export function createTrainingRouter(): Router {
     const review: WorkReviewDto = {
       assignment: assignmentDto(assignment, [work]),
       apprentice: { id: work.user.id, name: work.user.name },
-      problems: problems.map(reviewProblemDto),
+      problems: problems.map((p) => reviewProblemDto(p)),
     };
     res.json(review);
   });

@@ -273,10 +273,12 @@ export function dovetailAngleSketch(side: 'male' | 'female', rollDiameter1: numb
     { d: rollDiameter2, label: labels.reading2, style: 'mark' as const },
   ];
   const gap = Math.max(big * 0.9, h * 0.35);
+  // A roll of radius r touching base and flank: its centre is r·cot(α/2) out from (male) or in from (female) the corner.
+  const centreX = (r: number) => (male ? W / 2 + r / Math.tan(alpha / 2) : W / 2 - r / Math.tan(alpha / 2));
   const readings: SketchShape[] = [];
   pairs.forEach((pair, i) => {
     const r = pair.d / 2;
-    const cx = male ? W / 2 + r / Math.tan(alpha / 2) : W / 2 - r / Math.tan(alpha / 2);
+    const cx = centreX(r);
     const reach = male ? cx + r : cx - r;
     const y = h + gap * (i + 1);
     readings.push(
@@ -287,7 +289,7 @@ export function dovetailAngleSketch(side: 'male' | 'female', rollDiameter1: numb
   });
   for (const pair of [...pairs].sort((a, b) => b.d - a.d)) {
     const r = pair.d / 2;
-    const cx = male ? W / 2 + r / Math.tan(alpha / 2) : W / 2 - r / Math.tan(alpha / 2);
+    const cx = centreX(r);
     shapes.push({ kind: 'circle', style: pair.style, points: [{ x: -cx, y: r }], r }, { kind: 'circle', style: pair.style, points: [{ x: cx, y: r }], r });
   }
   shapes.push(...readings);

@@ -61,8 +61,7 @@ export function assignmentDto(assignment: Assignment, work: readonly AssignmentW
  * One problem as its apprentice sees it: regenerated from type and seed; hints only as far as
  * asked for; the answer and worked solution only once the problem is closed.
  */
-export function problemDto(problem: TrainingProblem): ProblemDto {
-  const exercise = generateExercise(problem.type, problem.seed);
+export function problemDto(problem: TrainingProblem, exercise = generateExercise(problem.type, problem.seed)): ProblemDto {
   const attempts = [...(problem.attempts ?? [])].sort((a, b) => a.id - b.id);
   const hints = hintsOf(exercise);
   const closed = problem.closedAt !== null && problem.closedAt !== undefined;
@@ -93,7 +92,7 @@ export function problemDto(problem: TrainingProblem): ProblemDto {
 export function reviewProblemDto(problem: TrainingProblem): ReviewProblemDto {
   const exercise = generateExercise(problem.type, problem.seed);
   return {
-    ...problemDto(problem),
+    ...problemDto(problem, exercise),
     hintsUsed: problem.hintsUsed,
     solution: { answer: exercise.answer, exact: exercise.exact, steps: exercise.steps },
   };
