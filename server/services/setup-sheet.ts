@@ -18,13 +18,28 @@ export interface SheetSource {
 // The standard PDF fonts only cover Windows-1252; these stand in for the symbols derivations use.
 const STAND_INS: Record<string, string> = {
   'α': 'alpha', 'β': 'beta', 'γ': 'gamma', 'θ': 'theta', 'φ': 'phi', 'Δ': 'delta ', 'δ': 'delta', 'π': 'pi', 'μ': 'µ',
-  '√': 'sqrt', '′': "'", '″': '"', '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '⟂': 'perp.', '→': '->', '∠': 'angle ', '⋅': '·', '∑': 'sum ',
+  '√': 'sqrt', '′': "'", '″': '"', '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '⟂': 'perp.', '→': '->', '∠': 'angle ', '⋅': '·', '∑': 'sum',
+  'Σ': 'sum', 'ρ': 'rho', '⌈': 'ceil(', '⌉': ')', '⌊': 'floor(', '⌋': ')', '↔': '<->', '≡': '==', '≠': '!=', '∞': 'infinity', '˚': '°',
+  '₀': '0', '₁': '1', '₂': '2', '₃': '3', '₄': '4', '₅': '5', '₆': '6', '₇': '7', '₈': '8', '₉': '9',
 };
+
+/** Superscripts: a run that the fonts cannot print (10⁻⁶) is written after a caret (10^-6); ¹ ² ³ alone print as they are. */
+const SUPERSCRIPTS: Record<string, string> = { '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-', '⁺': '+', 'ⁿ': 'n' };
 
 /** Text the standard PDF fonts can print: known symbols spelled out, anything else outside Windows-1252 as "?". */
 export function pdfText(text: string): string {
   let out = '';
-  for (const ch of text) {
+  const chars = [...text];
+  for (let i = 0; i < chars.length; i += 1) {
+    const ch = chars[i]!;
+    if (SUPERSCRIPTS[ch] !== undefined) {
+      let end = i;
+      while (end < chars.length && SUPERSCRIPTS[chars[end]!] !== undefined) end += 1;
+      const run = chars.slice(i, end);
+      out += run.every((c) => c.codePointAt(0)! <= 0xff) ? run.join('') : `^${run.map((c) => SUPERSCRIPTS[c]).join('')}`;
+      i = end - 1;
+      continue;
+    }
     const sub = STAND_INS[ch];
     if (sub !== undefined) out += sub;
     else if (ch.codePointAt(0)! <= 0xff || '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ'.includes(ch)) out += ch;
@@ -56,8 +71,10 @@ function angleOf(value: unknown): number | null {
 }
 
 /** The sketch that fits the set-up's kind, from the engine's answer where there is one. */
-export function sketchFor(kind: string, inputs: Record<string, unknown>, results: SetupResults): Sketch | null {
+export function sketchFor(kind: string, saved: Record<string, unknown>, results: SetupResults): Sketch | null {
   const v = results.ok ? results.value : {};
+  // The figures the engine was given (a pins-and-rolls form saved from its page, as the page sends it).
+  const inputs = results.ok ? results.input : saved;
   if (kind === 'taper') {
     const T = num(v['thickness']) ?? num(inputs['thickness']);
     const L = num(v['taperLength']) ?? num(inputs['taperLength']);
@@ -263,7 +280,9 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
   }
 
   heading(doc, 'Inputs');
-  rows(doc, Object.entries(inputs).map(([k, v]) => [k, inputText(v)] as const));
+  // The figures the calculation used (for a pins-and-rolls form, those of its kind, under the engine's names).
+  const used = results.ok ? results.input : inputs;
+  rows(doc, Object.entries(used).filter(([, v]) => v !== undefined).map(([k, v]) => [k, inputText(v)] as const));
 
   heading(doc, 'Results');
   if (results.ok) {

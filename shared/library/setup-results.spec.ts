@@ -1,3 +1,4 @@
+import demo from '../../fixtures/demo.json';
 import { labelOf, setupResults } from './setup-results';
 
 describe('setupResults', () => {
@@ -12,6 +13,46 @@ describe('setupResults', () => {
     expect(line('Angle (DMS)')).toBe("7°30'00\"");
     expect(r.steps.length).toBeGreaterThan(0);
     expect(r.cautions.length).toBeGreaterThan(0);
+  });
+
+  it('should list the figures of a pins-and-rolls answer, angles in degrees and in DMS, with their units', () => {
+    // REFERENCE.md §5.2 published example (hobby-machinist): M₁ .745, M₂ .620 in, 1 in apart →
+    // 3°34'35" a side; included 2 · 3.57633° = 7.15267° (7°09'10"); TPF = 24 · tan(α/2) = 24 · 0.0625 = 1.5 in/ft.
+    const r = setupResults('pins-rolls', { kind: 'taper-two-heights', unit: 'in', measurement1: '0.745', measurement2: '0.620', heightDifference: '1' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const line = (label: string) => r.lines.find((l) => l.label === label)?.value;
+    expect(line('Half angle (°)')).toBe('3.5763');
+    expect(line('Half angle (DMS)')).toBe("3°34'35\"");
+    expect(line('Included angle (DMS)')).toBe("7°09'10\"");
+    expect(line('Taper per foot')).toBe('1.50000 in/ft');
+    expect(r.warnings).toEqual([expect.stringMatching(/narrows/)]);
+  });
+
+  it('should give a pins-and-rolls length in the set-up\'s unit', () => {
+    // REFERENCE.md §5.1 (Machinery's Handbook, "Measuring dovetail slides"): x = a + D·(1 + cot(α/2));
+    // check value 60°, D 0.500 in, a 2.000 in → x = 3.3660 in.
+    const r = setupResults('pins-rolls', { kind: 'dovetail', side: 'male', unit: 'in', width: '2.000', angle: '60', rollDiameter: '0.500' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.lines).toEqual(expect.arrayContaining([{ label: 'Measurement', value: '3.3660 in' }, { label: 'Width', value: '2.0000 in' }, { label: 'Angle (DMS)', value: "60°00'00\"" }]));
+  });
+
+  it('should answer every demo set-up (fixtures/demo.json), so each opens with its results', () => {
+    for (const s of demo.setups) {
+      const r = setupResults(s.kind, s.inputs);
+      expect({ name: s.name, error: r.ok ? null : r.error }).toEqual({ name: s.name, error: null });
+    }
+  });
+
+  it('should give tapers per foot in in/ft and per inch as a ratio of lengths, as the lathe page does', () => {
+    // REFERENCE.md §4.2 (Machinery's Handbook "Morse Taper Shanks"): MT3 0.60235 in/ft; k = TPF/12 = 0.050196.
+    const inch = setupResults('lathe-taper', { unit: 'in', taperPerFoot: '0.60235', workLength: '6' });
+    const mm = setupResults('lathe-taper', { unit: 'mm', taperPerFoot: '0.60235', workLength: '150' });
+    expect(inch.ok && mm.ok).toBe(true);
+    if (!inch.ok || !mm.ok) return;
+    expect(inch.lines).toEqual(expect.arrayContaining([{ label: 'Taper per foot', value: '0.60235 in/ft' }, { label: 'Taper per inch', value: '0.050196 in/in' }]));
+    expect(mm.lines).toEqual(expect.arrayContaining([{ label: 'Taper per foot', value: '0.60235 in/ft' }, { label: 'Taper per inch', value: '0.050196 mm/mm' }]));
   });
 
   it('should pass on the engine\'s message for inputs without an answer', () => {

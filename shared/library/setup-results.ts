@@ -5,6 +5,7 @@ import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
 import { calculateTaper } from '../calc/taper';
+import { overPinsRequestFromInputs } from '../calc/over-pins-form';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -18,6 +19,11 @@ export type SetupResults =
       ok: true;
       /** The raw answer of the engine (for drawings). */
       value: Record<string, unknown>;
+      /**
+       * What the engine was given: the saved inputs, or for a form saved from the pins-and-rolls
+       * page the request that page makes from it (the figures used, under the engine's names).
+       */
+      input: Record<string, unknown>;
       lines: ResultLine[];
       /** Gauge-block stack in wringing order, when the area builds one. */
       stack: string[] | null;
@@ -47,22 +53,48 @@ export function labelOf(key: string): string {
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
+/**
+ * A result figure with its unit: lengths in the set-up's unit; tapers as the workbench pages give
+ * them — per foot in in/ft (for mm work the same ratio: diameter change per 12 units of length),
+ * per inch as a ratio of lengths; angles and other text as they are.
+ */
+function withUnit(key: string, v: string, unit: string): string {
+  if (/deg$|Dms$|ArcSec$/i.test(key) || !/^[\d.-]+$/.test(v)) return v;
+  if (key === 'taperPerFoot') return `${v} in/ft`;
+  if (key === 'taperPerInch') return unit ? `${v}${unit}/${unit.trim()}` : v;
+  return `${v}${unit}`;
+}
+
 /** Runs the set-up's inputs through the shared engine and flattens the answer for the sheet. */
 export function setupResults(kind: string, inputs: Record<string, unknown>): SetupResults {
   const engine = ENGINES[kind];
   if (!engine) return { ok: false, error: `No calculation is wired for "${kind}" set-ups yet; open the set-up in its calculator.` };
-  const result = engine(inputs);
+  const input = kind === 'pins-rolls' ? overPinsRequestFromInputs(inputs) : inputs;
+  const result = engine(input);
   if (!result.ok) return { ok: false, error: result.error };
   const value = result.value as Record<string, unknown>;
   const unit = typeof value['unit'] === 'string' ? ` ${value['unit']}` : '';
   const lines: ResultLine[] = [];
   for (const [key, v] of Object.entries(value)) {
     if (SKIP.has(key)) continue;
-    if (typeof v === 'string' && v !== '') lines.push({ label: labelOf(key), value: /deg$|Dms$|ArcSec$/i.test(key) ? v : `${v}${/^[\d.-]+$/.test(v) ? unit : ''}` });
+    if (typeof v === 'string' && v !== '') lines.push({ label: labelOf(key), value: withUnit(key, v, unit) });
     else if (typeof v === 'number') lines.push({ label: labelOf(key), value: String(v) });
+  }
+  // Answers that keep their figures in `values` (lengths in the unit, angles in degrees and, in
+  // `dms`, as degrees, minutes and seconds): the measuring set-ups of pins and rolls.
+  const nested = value['values'];
+  const dms = (value['dms'] ?? {}) as Record<string, unknown>;
+  if (nested && typeof nested === 'object' && !Array.isArray(nested)) {
+    for (const [key, v] of Object.entries(nested as Record<string, unknown>)) {
+      if (typeof v !== 'string' || v === '') continue;
+      if (/Deg$/.test(key)) {
+        lines.push({ label: labelOf(key), value: v });
+        if (typeof dms[key] === 'string') lines.push({ label: labelOf(key.replace(/Deg$/, 'Dms')), value: dms[key] });
+      } else lines.push({ label: labelOf(key), value: withUnit(key, v, unit) });
+    }
   }
   const blocks = value['blocks'];
   const stack = Array.isArray(blocks) && blocks.every((b) => typeof b === 'string') ? (blocks as string[]) : null;
   const list = (k: string) => (Array.isArray(value[k]) ? (value[k] as unknown[]).filter((x): x is string => typeof x === 'string') : []);
-  return { ok: true, value, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions') };
+  return { ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions') };
 }

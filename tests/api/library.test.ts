@@ -308,6 +308,35 @@ describe('set-up library', () => {
       expect(text).toContain(`/library/${s.body.id}`);
     });
 
+    it('should print a pins-and-rolls set-up saved from its page with the page\'s figures and answer', async () => {
+      // The page saves its whole form; for a two-height taper the readings are lowerReading and
+      // upperReading (measurement1/2 hold the dovetail-angle example). REFERENCE.md §5.2 published
+      // example (hobby-machinist): .745 and .620 in, 1 in apart → 3°34'35" a side, TPF 1.50000 in/ft.
+      const form = {
+        unit: 'in', kind: 'taper-two-heights', mode: 'cut', side: 'male', angle: '60', rollDiameter: '0.375', width: '1.250', depth: '0.375',
+        reading: '2.2900', includedAngle: '90', pinDiameter: '0.500', grooveWidth: '1.000', pinHeight: '0.1200', rollDiameter1: '0.375',
+        measurement1: '2.2745', rollDiameter2: '0.500', measurement2: '2.6160', lowerReading: '0.745', upperReading: '0.620', heightDifference: '1',
+        largeDisc: '1.000', smallDisc: '0.500', discGiven: 'centreDistance', centreDistance: '3.000', discTaperPerFoot: '2.000', discAngle: '9',
+        reference: 'axis', largeBall: '1.000', smallBall: '0.500', largeBallDepth: '0.250', smallBallDepth: '2.000',
+      };
+      const s = await create(c.machinist, { name: 'Two-height taper check', kind: 'pins-rolls', inputs: form }).expect(201);
+      const res = await c.machinist.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).buffer(true).parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (d: Buffer) => chunks.push(d));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      }).expect(200);
+      const text = pdfText(res.body as Buffer);
+      expect(text).toContain('Half angle (DMS)');
+      expect(text).toContain('3°34\'35"');
+      expect(text).toContain('1.50000 in/ft');
+      expect(text).toContain('M1 0.745 in');
+      // Only the figures of the kind are listed, under the engine's names; none of the other fields.
+      expect(text).toContain('heightDifference');
+      expect(text).not.toContain('lowerReading');
+      expect(text).not.toContain('2.2745');
+      expect(text).not.toContain('?');
+    });
+
     it('should follow the set-up\'s access rules', async () => {
       const s = await create(c.machinist, { name: 'Private sheet' }).expect(201);
       await c.other.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).expect(404);

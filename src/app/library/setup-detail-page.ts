@@ -66,10 +66,17 @@ export default class SetupDetailPage {
   protected readonly thumbnailUrl = thumbnailUrl;
 
   protected readonly area = computed(() => KIND_AREAS[this.setup()?.kind ?? ''] ?? null);
-  protected readonly inputs = computed(() => Object.entries(this.setup()?.inputs ?? {}).map(([k, v]) => ({ key: k, value: typeof v === 'object' ? JSON.stringify(v) : String(v) })));
   protected readonly results = computed(() => {
     const s = this.setup();
     return s ? setupResults(s.kind, s.inputs) : null;
+  });
+  /** The figures the calculation used (a pins-and-rolls form: those of its kind, as the set-up sheet lists them). */
+  protected readonly inputs = computed(() => {
+    const r = this.results();
+    const used = r?.ok ? r.input : (this.setup()?.inputs ?? {});
+    return Object.entries(used)
+      .filter(([, v]) => v !== undefined)
+      .map(([k, v]) => ({ key: k, value: typeof v === 'object' ? JSON.stringify(v) : String(v) }));
   });
   protected readonly role = computed(() => this.auth.user()?.role ?? null);
   protected readonly isLead = computed(() => this.role() === 'lead' || this.role() === 'admin');

@@ -7,57 +7,10 @@
 import { type OverPinsResult, calculateOverPins } from '../../../shared/calc/over-pins';
 import { Dec } from '../../../shared/calc/decimal-math';
 import { type CalcFailure, type CalcResult, type Step, invalid, step, succeed } from '../../../shared/calc/step';
-import { type LengthUnit, formatLength } from '../../../shared/units/length-unit';
+import { formatLength } from '../../../shared/units/length-unit';
+import { type PinsRollsForm, overPinsRequest } from '../../../shared/calc/over-pins-form';
 
-/** What is measured. */
-export type RollKind = 'dovetail' | 'v-groove' | 'dovetail-angle' | 'taper-two-heights' | 'taper-discs' | 'taper-balls';
-/** Which side of a dovetail. */
-export type DovetailSide = 'male' | 'female';
-/** Work toward a reading ('cut') or back from one measured on the work ('check'). */
-export type RollMode = 'cut' | 'check';
-/** Which of the two-disc figures is given. */
-export type DiscGiven = 'centreDistance' | 'taperPerFoot' | 'includedAngle';
-
-/** The form's values, all as typed. */
-export interface PinsRollsForm {
-  unit: LengthUnit;
-  kind: RollKind;
-  mode: RollMode;
-  side: DovetailSide;
-  /** Dovetail angle between flank and base. */
-  angle: string;
-  rollDiameter: string;
-  /** Sharp-corner width at the roll side (a or b): the drawing size. */
-  width: string;
-  depth: string;
-  /** Reading measured over (or between) the rolls, in check mode. */
-  reading: string;
-  /** Included angle of the V. */
-  includedAngle: string;
-  pinDiameter: string;
-  /** Sharp-corner width of the V at the surface: the drawing size. */
-  grooveWidth: string;
-  /** Pin top over the surface as measured, in check mode. */
-  pinHeight: string;
-  rollDiameter1: string;
-  measurement1: string;
-  rollDiameter2: string;
-  measurement2: string;
-  lowerReading: string;
-  upperReading: string;
-  heightDifference: string;
-  largeDisc: string;
-  smallDisc: string;
-  discGiven: DiscGiven;
-  centreDistance: string;
-  discTaperPerFoot: string;
-  discAngle: string;
-  reference: 'axis' | 'side';
-  largeBall: string;
-  smallBall: string;
-  largeBallDepth: string;
-  smallBallDepth: string;
-}
+export type { DiscGiven, DovetailSide, PinsRollsForm, RollKind, RollMode } from '../../../shared/calc/over-pins-form';
 
 /** Default set-up: the 60° dovetail slide checked over 0.375 in rolls, and a worked example for every other kind. */
 export const PINS_DEFAULTS: PinsRollsForm = {
@@ -174,34 +127,9 @@ function check(v: PinsRollsForm): CalcResult<PinsOutcome> {
 
 /** Runs the engine on the form's values, sending only the fields of the chosen kind and mode. */
 export function pinsCalc(v: PinsRollsForm): CalcResult<PinsOutcome> {
-  switch (v.kind) {
-    case 'dovetail':
-      if (v.mode === 'check') return check(v);
-      if (!v.width.trim()) return invalid('Over pins', 'width', 'is required: the corner width the drawing asks for');
-      return single(run({ kind: 'dovetail', unit: v.unit, side: v.side, angle: v.angle, rollDiameter: v.rollDiameter, width: v.width, depth: v.depth }));
-    case 'v-groove':
-      if (v.mode === 'check') return check(v);
-      if (!v.grooveWidth.trim()) return invalid('Over pins', 'grooveWidth', 'is required: the groove width the drawing asks for');
-      return single(run({ kind: 'v-groove', unit: v.unit, includedAngle: v.includedAngle, pinDiameter: v.pinDiameter, grooveWidth: v.grooveWidth }));
-    case 'dovetail-angle':
-      return single(
-        run({ kind: 'dovetail-angle', unit: v.unit, side: v.side, rollDiameter1: v.rollDiameter1, measurement1: v.measurement1, rollDiameter2: v.rollDiameter2, measurement2: v.measurement2 }),
-      );
-    case 'taper-two-heights':
-      return single(
-        run(
-          { kind: 'taper-two-heights', unit: v.unit, measurement1: v.lowerReading, measurement2: v.upperReading, heightDifference: v.heightDifference },
-          { measurement1: 'lowerReading', measurement2: 'upperReading' },
-        ),
-      );
-    case 'taper-discs': {
-      const given = { centreDistance: v.discGiven === 'centreDistance' ? v.centreDistance : undefined, taperPerFoot: v.discGiven === 'taperPerFoot' ? v.discTaperPerFoot : undefined, includedAngle: v.discGiven === 'includedAngle' ? v.discAngle : undefined };
-      const names = { taperPerFoot: 'discTaperPerFoot', includedAngle: 'discAngle', centreDistance: v.discGiven === 'centreDistance' ? 'centreDistance' : v.discGiven === 'taperPerFoot' ? 'discTaperPerFoot' : 'discAngle' };
-      return single(run({ kind: 'taper-discs', unit: v.unit, largeDisc: v.largeDisc, smallDisc: v.smallDisc, reference: v.reference, ...given }, names));
-    }
-    case 'taper-balls':
-      return single(
-        run({ kind: 'taper-balls', unit: v.unit, largeBall: v.largeBall, smallBall: v.smallBall, largeBallDepth: v.largeBallDepth, smallBallDepth: v.smallBallDepth }),
-      );
-  }
+  if ((v.kind === 'dovetail' || v.kind === 'v-groove') && v.mode === 'check') return check(v);
+  if (v.kind === 'dovetail' && !v.width.trim()) return invalid('Over pins', 'width', 'is required: the corner width the drawing asks for');
+  if (v.kind === 'v-groove' && !v.grooveWidth.trim()) return invalid('Over pins', 'grooveWidth', 'is required: the groove width the drawing asks for');
+  const { request, names } = overPinsRequest(v);
+  return single(run(request, names));
 }
