@@ -288,6 +288,16 @@ describe('sheet-drawing', () => {
         expect(c.y - roll.r!).toBeCloseTo(top!.points[0]!.y, 12);
       }
     });
+    it('should put the half-angle label at the top corner of the side, above every roll, stack and reading line', () => {
+      for (const [m1, m2, dh] of [[1.5, 1.45, 1], [0.745, 0.62, 1], [1, 1.2, 0.5]] as const) {
+        const { sketch, head } = check(m1, m2, dh);
+        const label = sketch.shapes.find((s) => s.label === 'half')!;
+        expect(label.labelAt).toEqual(head);
+        const others = sketch.shapes.filter((s) => s !== label && s.label !== 'inc' && s.label !== 'surface plate' && s.style !== 'part');
+        const highest = Math.max(...others.flatMap((s) => s.points.map((p) => p.y + (s.r ?? 0))));
+        expect(label.labelAt!.y).toBeGreaterThan(highest);
+      }
+    });
     it('should keep the work a proper shape for steep and slight tapers both ways, and stay finite', () => {
       for (const [m1, m2, dh] of [[1, 100, 0.001], [100, 1, 0.001], [1.5, 1.4999, 1000], [0.001, 0.002, 0.001], [2, 1, 1e-6]] as const) {
         const { sketch, part, foot, head, rolls } = check(m1, m2, dh);

@@ -383,7 +383,8 @@ export function taperTwoHeightsSketch(measurement1: number, measurement2: number
     { kind: 'dimension', style: 'mark', points: [{ x: xh, y: z1 }, { x: xh, y: z2 }], label: labels.height },
     { kind: 'line', style: 'mark', points: [{ x: m1 / 2, y: z1 }, { x: xh, y: z1 }] },
     { kind: 'line', style: 'mark', points: [{ x: m2 / 2, y: z2 }, { x: xh, y: z2 }] },
-    { kind: 'line', style: 'mark', points: [{ x: side(0), y: 0 }, { x: side(top), y: top }], label: labels.halfAngle, labelAt: { x: side(z1 + dh * 0.3), y: z1 + dh * 0.3 } },
+    // The side, its half angle labelled beside its top corner: above the rolls, stacks and reading lines.
+    { kind: 'line', style: 'mark', points: [{ x: side(0), y: 0 }, { x: side(top), y: top }], label: labels.halfAngle, labelAt: { x: side(top), y: top } },
     { kind: 'line', style: 'mark', points: [{ x: 0, y: -plateT }, { x: 0, y: top + r * 2.4 }], label: labels.included, labelAt: { x: 0, y: top + r * 2.4 } },
   );
   return { title: 'Taper on the surface plate: M1 over a pair of rolls, M2 with the rolls raised ΔH on higher stacks (dashed)', shapes, box: boundsWithLabels(shapes) };
