@@ -87,6 +87,8 @@ interface Row {
   /** CPU time per request, in microseconds, of the serving processes and of MariaDB. */
   appUs: number;
   dbUs: number;
+  /** The same for autocannon itself (this process): the load generator's share of the two cores. */
+  loadUs: number;
   /** Share of the machine's CPU time that was idle, and that the hypervisor took, while measuring (%). */
   idlePct: number;
   stealPct: number;
@@ -109,9 +111,9 @@ interface Route {
 async function load(name: string, opts: autocannon.Options, warmupSeconds: number): Promise<Row> {
   // A short unmeasured run first, so every route is measured with warm JIT code, pools and caches.
   await autocannon({ connections: CONNECTIONS, duration: warmupSeconds, ...opts });
-  const [app0, db0, m0] = [cpuSeconds(serving), cpuSeconds(database), machineTicks()];
+  const [app0, db0, m0, own0] = [cpuSeconds(serving), cpuSeconds(database), machineTicks(), process.cpuUsage()];
   const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
-  const [app1, db1, m1] = [cpuSeconds(serving), cpuSeconds(database), machineTicks()];
+  const [app1, db1, m1, own1] = [cpuSeconds(serving), cpuSeconds(database), machineTicks(), process.cpuUsage(own0)];
   const share = (a: number, b: number) => Math.round((100 * (b - a)) / Math.max(1, m1.total - m0.total));
   const perRequest = (seconds: number) => Math.round((seconds * 1e6) / Math.max(1, r.requests.total));
   const row: Row = {
@@ -119,6 +121,7 @@ async function load(name: string, opts: autocannon.Options, warmupSeconds: numbe
     rps: Math.round(r.requests.average),
     appUs: perRequest(app1 - app0),
     dbUs: perRequest(db1 - db0),
+    loadUs: perRequest((own1.user + own1.system) / 1e6),
     idlePct: share(m0.idle, m1.idle),
     stealPct: share(m0.steal, m1.steal),
     p50: r.latency.p50,
@@ -129,7 +132,7 @@ async function load(name: string, opts: autocannon.Options, warmupSeconds: numbe
   };
   console.log(
     `  ${name.padEnd(38)} ${String(row.rps).padStart(6)} req/s  p50 ${String(row.p50).padStart(3)} ms  p99 ${String(row.p99).padStart(3)} ms` +
-      `  CPU/req app ${String(row.appUs).padStart(4)} µs db ${String(row.dbUs).padStart(3)} µs  idle ${String(row.idlePct).padStart(2)} % steal ${row.stealPct} %  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`,
+      `  CPU/req app ${String(row.appUs).padStart(4)} µs db ${String(row.dbUs).padStart(3)} µs autocannon ${String(row.loadUs).padStart(3)} µs  idle ${String(row.idlePct).padStart(2)} % steal ${row.stealPct} %  errors ${row.errors}  non-2xx ${row.non2xx}  5xx ${row.s5xx}`,
   );
   return row;
 }
@@ -189,7 +192,7 @@ async function main(): Promise<void> {
 
     console.log(`\nautocannon: ${CONNECTIONS} connections, ${SECONDS} s per route, ${ROUNDS} round(s), loopback; app and bare route ${WORKERS} worker(s) each, ${os.availableParallelism()} cores`);
     const json = { 'content-type': 'application/json' };
-    console.log('CPU/req: CPU time of the serving processes and of MariaDB per request answered (autocannon\'s own not counted);');
+    console.log('CPU/req: CPU time of the serving processes, of MariaDB and of autocannon (this process) per request answered;');
     console.log('idle, steal: share of the whole machine\'s CPU time left idle, and taken by the hypervisor, while the route was measured.');
     const bareUrl = `http://127.0.0.1:${barePort}/bare`;
     const calcRoute = (name: string, path: string, body: object): Route => ({ name, kind: 'calc', opts: { url: `${base}${path}`, method: 'POST', headers: json, body: JSON.stringify(body) } });
@@ -247,7 +250,7 @@ async function main(): Promise<void> {
         const m = (pick: (r: Row) => number) => median(column(i, pick));
         console.log(
           `  ${route.name.padEnd(38)} ${String(Math.round(m((r) => r.rps))).padStart(6)} req/s  p50 ${String(m((r) => r.p50)).padStart(3)} ms  p99 ${String(m((r) => r.p99)).padStart(3)} ms` +
-            `  CPU/req app ${String(Math.round(m((r) => r.appUs))).padStart(4)} µs db ${String(Math.round(m((r) => r.dbUs))).padStart(3)} µs` +
+            `  CPU/req app ${String(Math.round(m((r) => r.appUs))).padStart(4)} µs db ${String(Math.round(m((r) => r.dbUs))).padStart(3)} µs autocannon ${String(Math.round(m((r) => r.loadUs))).padStart(3)} µs` +
             (route.kind === 'bare' ? '' : `  ${median(ratios(i)).toFixed(2)}× the ceiling`),
         );
       });
