@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
-import { setupResults, type SetupResults } from '../../shared/library/setup-results';
+import { listedInputs, setupResults, type SetupResults } from '../../shared/library/setup-results';
 import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
@@ -280,9 +280,7 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
   }
 
   heading(doc, 'Inputs');
-  // The figures the calculation used (for a pins-and-rolls form, those of its kind, under the engine's names).
-  const used = results.ok ? results.input : inputs;
-  rows(doc, Object.entries(used).filter(([, v]) => v !== undefined).map(([k, v]) => [k, inputText(v)] as const));
+  rows(doc, listedInputs(setup.kind, inputs, results).map(([k, v]) => [k, inputText(v)] as const));
 
   heading(doc, 'Results');
   if (results.ok) {

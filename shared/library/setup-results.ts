@@ -5,7 +5,7 @@ import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
 import { calculateTaper } from '../calc/taper';
-import { overPinsRequestFromInputs } from '../calc/over-pins-form';
+import { savedRequest } from './saved-request';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -20,8 +20,8 @@ export type SetupResults =
       /** The raw answer of the engine (for drawings). */
       value: Record<string, unknown>;
       /**
-       * What the engine was given: the saved inputs, or for a form saved from the pins-and-rolls
-       * page the request that page makes from it (the figures used, under the engine's names).
+       * What the engine was given: the saved inputs, or for a form saved from a calculator page the
+       * request that page makes from it (the figures used, under the engine's names).
        */
       input: Record<string, unknown>;
       lines: ResultLine[];
@@ -69,7 +69,9 @@ function withUnit(key: string, v: string, unit: string): string {
 export function setupResults(kind: string, inputs: Record<string, unknown>): SetupResults {
   const engine = ENGINES[kind];
   if (!engine) return { ok: false, error: `No calculation is wired for "${kind}" set-ups yet; open the set-up in its calculator.` };
-  const input = kind === 'pins-rolls' ? overPinsRequestFromInputs(inputs) : inputs;
+  const request = savedRequest(kind, inputs);
+  if (!request.ok) return { ok: false, error: request.error };
+  const input = request.value;
   const result = engine(input);
   if (!result.ok) return { ok: false, error: result.error };
   const value = result.value as Record<string, unknown>;
@@ -98,3 +100,23 @@ export function setupResults(kind: string, inputs: Record<string, unknown>): Set
   const list = (k: string) => (Array.isArray(value[k]) ? (value[k] as unknown[]).filter((x): x is string => typeof x === 'string') : []);
   return { ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions') };
 }
+
+/**
+ * Fields a page saves that are not for the engine but describe the set-up: how the work is held
+ * (the taper page's holding, its angle-block set or sine plate and stack set) and the part length.
+ */
+const SET_UP_FIELDS: Readonly<Partial<Record<string, readonly string[]>>> = {
+  taper: ['partLength', 'holding', 'angleSet', 'plateLength', 'plateSet'],
+};
+
+/**
+ * The inputs to list for a set-up (detail page and sheet): what the calculation used — for a form
+ * saved from a page, the figures of the chosen mode under the engine's names, and the set-up's own
+ * fields — or, without an answer, everything saved.
+ */
+export function listedInputs(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<[string, unknown]> {
+  if (!results.ok) return Object.entries(saved);
+  const extra = (SET_UP_FIELDS[kind] ?? []).filter((k) => !(k in results.input) && saved[k] !== undefined && saved[k] !== '').map((k) => [k, saved[k]] as [string, unknown]);
+  return [...Object.entries(results.input).filter(([, v]) => v !== undefined), ...extra];
+}
+

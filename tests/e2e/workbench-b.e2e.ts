@@ -484,4 +484,34 @@ describe('saved set-ups', () => {
       await o.context.close();
     }
   });
+
+  it('should show a two-height taper saved from the page with the page\'s answer in the library', async () => {
+    const o = await open();
+    try {
+      const { page, context } = o;
+      await signInByApi(context, 'machinist@demo.test');
+      await page.goto('/pins-rolls');
+      await chooseKind(page, 'Taper from readings at two heights');
+      // Two heights: TPF = 24 · (M1 − M2)/(2 ΔH) = 24 × 0.1/(2 × 2) = 0.6 in/ft (derived from REFERENCE.md §5.2).
+      await expectResult(page, 'Taper per foot', '0.60000 in/ft');
+      await page.getByRole('button', { name: 'Save as set-up' }).click();
+      await page.getByLabel('Set-up name').fill('Arbor taper, two heights');
+      await page.getByRole('button', { name: 'Save set-up' }).click();
+      await page.getByRole('button', { name: 'Open' }).click();
+      await page.waitForURL(/setup=\d+/);
+      const id = new URL(page.url()).searchParams.get('setup');
+
+      await page.goto(`/library/${id}`);
+      const results = page.locator('dl.results');
+      await results.getByText('0.60000 in/ft').waitFor();
+      await expect(results.textContent()).resolves.toContain('Half angle (DMS)');
+      // The inputs are the two readings and their height difference, not every field of the form.
+      const inputs = page.locator('section[aria-labelledby="inputs-h"] dl');
+      await expect(inputs.textContent()).resolves.toContain('heightDifference');
+      await expect(inputs.textContent()).resolves.not.toContain('lowerReading');
+      expect(realProblems(o)).toEqual([]);
+    } finally {
+      await o.context.close();
+    }
+  });
 });

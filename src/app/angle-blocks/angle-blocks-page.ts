@@ -10,7 +10,7 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import { startWith } from 'rxjs';
 
 import { type AngleBlocksResult, calculateAngleBlocks } from '../../../shared/calc/angle-blocks';
-import { invalid, type CalcResult } from '../../../shared/calc/step';
+import type { CalcResult } from '../../../shared/calc/step';
 import { ANGLE_BLOCK_SETS } from '../../../shared/data/angle-block-sets';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -23,24 +23,10 @@ import { SaveSetup } from '../workbench/save-setup';
 import { WarningList } from '../workbench/warning-list';
 import { AngleStackDrawing } from './angle-stack-drawing';
 import type { StackBlockInput } from './angle-stack-geometry';
-import { compactAngle, formatCombination, parseCombination } from './combination-text';
+import { compactAngle, formatCombination } from '../../../shared/forms/combination-text';
+import { type AngleBlocksForm, type AngleBlocksMode, toAngleBlocksRequest } from '../../../shared/forms/angle-blocks-form';
 
-/** What the page works out: the blocks for an angle, or the angle of some blocks. */
-export type AngleBlocksMode = 'find' | 'total';
-
-/** The form's values, all as typed. */
-export interface AngleBlocksForm {
-  /** 'find' the fewest blocks for an angle, or 'total' a combination. */
-  mode: AngleBlocksMode;
-  /** Standard set id. */
-  set: string;
-  /** The wanted angle (decimal degrees or DMS). */
-  angle: string;
-  /** A combination typed as a sum, reversed blocks with a minus. */
-  combination: string;
-}
-
-const AREA = 'Angle blocks';
+export type { AngleBlocksForm, AngleBlocksMode } from '../../../shared/forms/angle-blocks-form';
 
 /** Default set-up: a 17°35′ face on a fixture, made with the 13-piece set (REFERENCE.md §6 example). */
 export const ANGLE_BLOCKS_DEFAULTS: AngleBlocksForm = {
@@ -57,14 +43,10 @@ export const ANGLE_BLOCK_CAUTIONS: readonly string[] = [
   'Keep the table, vise, blocks and work clean and free of chips, nicks and burrs (US Army TM 1-1500-204-23-8, machine-tool safety).',
 ];
 
-/** Turns the form's values into an engine request, or a failure naming the field. */
+/** Runs the engine on the form's request, or gives the failure naming the field. */
 export function angleBlocksRequest(values: AngleBlocksForm): CalcResult<AngleBlocksResult> {
-  if (values.mode === 'total') {
-    const typed = parseCombination(values.combination);
-    if (!typed.ok) return invalid(AREA, 'combination', typed.error);
-    return calculateAngleBlocks({ set: values.set, combination: typed.blocks.map((b) => ({ angle: b.angle, reversed: b.reversed })) });
-  }
-  return calculateAngleBlocks({ set: values.set, angle: values.angle });
+  const request = toAngleBlocksRequest(values);
+  return request.ok ? calculateAngleBlocks(request.value) : request;
 }
 
 /** The angle-block page: the fewest blocks for an angle, or the angle a combination makes. */

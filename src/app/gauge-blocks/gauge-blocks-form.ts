@@ -1,4 +1,4 @@
-import { type GaugeStackRequest, gaugeStackRequestSchema, parseRequest } from '../../../shared/api/calc';
+import { gaugeStackRequestSchema, parseRequest } from '../../../shared/api/calc';
 import { DECIMAL_TEXT } from '../../../shared/api/setup';
 import { type GaugeStackResult, type StackAnswer, calculateGaugeStack } from '../../../shared/calc/gauge-stack';
 import { type CalcResult, invalid, succeed } from '../../../shared/calc/step';
@@ -7,17 +7,9 @@ import type { LengthUnit } from '../../../shared/units/length-unit';
 import type { ResultItem } from '../workbench/result-list';
 import type { GaugeBlockPiece, GaugeStackSceneInput } from './gauge-stack-scene';
 import { type BoxStackQuery, boxIdOf } from './own-boxes';
+import { type GaugeBlocksFormValues, toGaugeStackRequest } from '../../../shared/forms/gauge-blocks-form';
 
-/** The gauge-block form's values: all text, as typed. */
-export type GaugeBlocksFormValues = {
-  unit: string;
-  target: string;
-  set: string;
-  missing: string;
-  wearBlocks: string;
-  grade: string;
-  temperature: string;
-};
+export { sizeList, toGaugeStackRequest, type GaugeBlocksFormValues } from '../../../shared/forms/gauge-blocks-form';
 
 /** Defaults from the demo scenario: the 1.2519 in stack under the 5 in sine plate at 14°30', from the 81-piece set. */
 export const GAUGE_BLOCKS_DEFAULTS: GaugeBlocksFormValues = {
@@ -45,25 +37,6 @@ export const GRADE_OPTIONS: readonly { readonly value: string; readonly label: s
 /** The standard sets in a unit. */
 export function gaugeSetsInUnit(unit: LengthUnit): { id: string; name: string; notes: string }[] {
   return GAUGE_BLOCK_SETS.filter((s) => s.unit === unit).map((s) => ({ id: s.id, name: s.name, notes: s.notes }));
-}
-
-/** Sizes typed as a list → text entries, or undefined for none. */
-export function sizeList(text: string): string[] | undefined {
-  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
-  return sizes.length ? sizes : undefined;
-}
-
-/** The engine request for the form. */
-export function toGaugeStackRequest(values: GaugeBlocksFormValues): GaugeStackRequest {
-  return {
-    target: values.target,
-    unit: values.unit as GaugeStackRequest['unit'],
-    set: values.set,
-    missing: sizeList(values.missing),
-    wearBlocks: values.wearBlocks,
-    grade: (values.grade || undefined) as GaugeStackRequest['grade'],
-    temperature: values.temperature,
-  };
 }
 
 /**

@@ -10,6 +10,7 @@ import type { GaugeStackResult } from '../../../shared/calc/gauge-stack';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { apiErrorMessage, apiFieldErrors, quietErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
+import { boxIdOf } from '../../../shared/forms/gauge-blocks-form';
 
 /**
  * The set picker's value for one of the team's own gauge-block sets: `box:<id>`. Standard sets
@@ -17,11 +18,7 @@ import { Auth } from '../core/auth';
  */
 export const BOX_PREFIX = 'box:';
 
-/** The team's set id of a picker value, or null for a standard set (or none). */
-export function boxIdOf(set: string): number | null {
-  const m = /^box:([1-9]\d{0,9})$/.exec(set);
-  return m ? Number(m[1]) : null;
-}
+export { boxIdOf };
 
 /** The picker value of a team's set. */
 export function boxValue(id: number): string {

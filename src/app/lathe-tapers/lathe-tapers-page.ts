@@ -8,7 +8,6 @@ import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
 import { startWith } from 'rxjs';
 
-import type { LatheTaperRequest } from '../../../shared/api/calc';
 import { type LatheTaperResult, calculateLatheTaper } from '../../../shared/calc/lathe-taper';
 import { invalid, type CalcResult } from '../../../shared/calc/step';
 import { MACHINE_TAPERS, type MachineTaper } from '../../../shared/data/machine-tapers';
@@ -25,27 +24,9 @@ import { UnitToggle, convertLengthControls, convertLengthText } from '../workben
 import { WarningList } from '../workbench/warning-list';
 import { type LatheDimensionTexts, LatheWorkDrawing } from './lathe-work-drawing';
 import type { LatheWorkInput } from './lathe-work-geometry';
+import { type LatheTapersForm, type TaperDefinition, type TurningMethod, latheRequest, splitStations } from '../../../shared/forms/lathe-taper-form';
 
-/** How the taper is given. */
-export type TaperDefinition = 'standard' | 'tpf' | 'angle' | 'diameters';
-/** How it is turned. */
-export type TurningMethod = 'compound' | 'offset';
-
-/** The form's values, all as typed. */
-export interface LatheTapersForm {
-  unit: LengthUnit;
-  define: TaperDefinition;
-  standard: string;
-  taperPerFoot: string;
-  includedAngle: string;
-  largeDiameter: string;
-  smallDiameter: string;
-  length: string;
-  workLength: string;
-  method: TurningMethod;
-  /** Distances from the large end, separated by commas or spaces. */
-  stations: string;
-}
+export { latheRequest, splitStations, type LatheTapersForm, type TaperDefinition, type TurningMethod } from '../../../shared/forms/lathe-taper-form';
 
 const AREA = 'Lathe taper';
 
@@ -76,26 +57,6 @@ const FAMILY_NAMES: Record<MachineTaper['family'], string> = {
   'taper-pin': 'Taper pins',
   metric: 'Metric 1:20',
 };
-
-/** Splits the stations text into distances; empty parts are left out. */
-export function splitStations(text: string): string[] {
-  return text.split(/[\s,;]+/).filter((s) => s !== '');
-}
-
-/** Turns the form's values into the engine's request, sending only what the chosen definition uses. */
-export function latheRequest(v: LatheTapersForm): LatheTaperRequest {
-  const base: LatheTaperRequest = { unit: v.unit, workLength: v.workLength, stations: splitStations(v.stations) };
-  switch (v.define) {
-    case 'standard':
-      return { ...base, standard: v.standard };
-    case 'tpf':
-      return { ...base, taperPerFoot: v.taperPerFoot, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
-    case 'angle':
-      return { ...base, includedAngle: v.includedAngle, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
-    default:
-      return { ...base, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
-  }
-}
 
 /** Runs the engine on the form's values; the offset method needs the work length. */
 export function latheCalc(v: LatheTapersForm): CalcResult<LatheTaperResult> {

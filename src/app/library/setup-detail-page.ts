@@ -15,7 +15,7 @@ import { forkJoin } from 'rxjs';
 
 import type { BatchRunDto } from '../../../shared/api/batch';
 import { CHECK_UNITS, type AttachmentDto, type RevisionDto, type SetupCheck, type SetupDto } from '../../../shared/api/setup';
-import { setupResults, type ResultLine } from '../../../shared/library/setup-results';
+import { listedInputs, setupResults, type ResultLine } from '../../../shared/library/setup-results';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
@@ -70,13 +70,12 @@ export default class SetupDetailPage {
     const s = this.setup();
     return s ? setupResults(s.kind, s.inputs) : null;
   });
-  /** The figures the calculation used (a pins-and-rolls form: those of its kind, as the set-up sheet lists them). */
+  /** The figures the calculation used and the set-up's own fields, as the set-up sheet lists them. */
   protected readonly inputs = computed(() => {
+    const s = this.setup();
     const r = this.results();
-    const used = r?.ok ? r.input : (this.setup()?.inputs ?? {});
-    return Object.entries(used)
-      .filter(([, v]) => v !== undefined)
-      .map(([k, v]) => ({ key: k, value: typeof v === 'object' ? JSON.stringify(v) : String(v) }));
+    if (!s || !r) return [];
+    return listedInputs(s.kind, s.inputs, r).map(([k, v]) => ({ key: k, value: typeof v === 'object' ? JSON.stringify(v) : String(v) }));
   });
   protected readonly role = computed(() => this.auth.user()?.role ?? null);
   protected readonly isLead = computed(() => this.role() === 'lead' || this.role() === 'admin');

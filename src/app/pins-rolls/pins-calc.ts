@@ -8,9 +8,9 @@ import { type OverPinsResult, calculateOverPins } from '../../../shared/calc/ove
 import { Dec } from '../../../shared/calc/decimal-math';
 import { type CalcFailure, type CalcResult, type Step, invalid, step, succeed } from '../../../shared/calc/step';
 import { formatLength } from '../../../shared/units/length-unit';
-import { type PinsRollsForm, overPinsRequest } from '../../../shared/calc/over-pins-form';
+import { type PinsRollsForm, overPinsRequest } from '../../../shared/forms/pins-rolls-form';
 
-export type { DiscGiven, DovetailSide, PinsRollsForm, RollKind, RollMode } from '../../../shared/calc/over-pins-form';
+export type { DiscGiven, DovetailSide, PinsRollsForm, RollKind, RollMode } from '../../../shared/forms/pins-rolls-form';
 
 /** Default set-up: the 60° dovetail slide checked over 0.375 in rolls, and a worked example for every other kind. */
 export const PINS_DEFAULTS: PinsRollsForm = {

@@ -1,30 +1,11 @@
-import type { SineBarRequest } from '../../../shared/api/calc';
 import type { SineBarResult } from '../../../shared/calc/sine-bar';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import type { ResultItem } from '../workbench/result-list';
 import type { SineBarSceneInput } from './sine-bar-scene';
+import type { SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
-/** The sine-bar form's values: all text, as typed. */
-export type SineBarFormValues = {
-  unit: string;
-  mode: string;
-  barLength: string;
-  angle: string;
-  stackHeight: string;
-  set: string;
-  missing: string;
-  /** Table of stacks: first angle, last angle and step. */
-  tableFrom: string;
-  tableTo: string;
-  tableStep: string;
-  /** Compound plate: 'angles' (two angles → two stacks) or 'stacks' (two stacks → two angles). */
-  compoundBy: string;
-  /** Compound plate: the upper plate's angle, stack and roll distance (blank: as the lower plate). */
-  angleB: string;
-  stackB: string;
-  lengthB: string;
-};
+export { parseSizeList, toSineBarRequest, type SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
 /** Defaults from the demo scenario: a 14°30' face inspected on a 5 in sine plate with the 81-piece set. */
 export const SINE_BAR_DEFAULTS: SineBarFormValues = {
@@ -58,25 +39,6 @@ export function setsInUnit(unit: LengthUnit): { id: string; name: string }[] {
 /** The default set of a unit (the first listed), for a unit change. */
 export function defaultSet(unit: LengthUnit): string {
   return setsInUnit(unit)[0]?.id ?? '';
-}
-
-/** Sizes typed as a list ("0.1001, 0.125 0.5") → text entries; empty text → none. */
-export function parseSizeList(text: string): string[] | undefined {
-  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
-  return sizes.length ? sizes : undefined;
-}
-
-/** The engine request: the angle or the stack, the set (or none) and the missing blocks. */
-export function toSineBarRequest(values: SineBarFormValues): SineBarRequest {
-  const byAngle = values.mode !== 'stack';
-  return {
-    unit: values.unit as SineBarRequest['unit'],
-    barLength: values.barLength,
-    angle: byAngle ? values.angle : undefined,
-    stackHeight: byAngle ? undefined : values.stackHeight,
-    set: values.set || undefined,
-    missing: values.set ? parseSizeList(values.missing) : undefined,
-  };
 }
 
 /** The numbers of a sine-bar answer for the result list. */

@@ -1,8 +1,10 @@
-import type { TaperRequest } from '../../../shared/api/calc';
 import type { TaperResult } from '../../../shared/calc/taper';
 import type { ResultItem } from '../workbench/result-list';
 import type { HoldingDrawing } from './taper-holding';
 import type { TaperSceneInput } from './taper-scene';
+import type { TaperFormValues } from '../../../shared/forms/taper-form';
+
+export { givenFields, toTaperRequest, type TaperFormValues } from '../../../shared/forms/taper-form';
 
 /** Which two of the four taper sizes the user gives. */
 export type TaperGiven = 'angle-length' | 'angle-end' | 'angle-face' | 'length-end' | 'length-face' | 'end-face';
@@ -16,29 +18,6 @@ export const TAPER_GIVEN_OPTIONS: readonly { readonly value: TaperGiven; readonl
   { value: 'length-face', label: 'Taper length and face length' },
   { value: 'end-face', label: 'End thickness and face length' },
 ];
-
-/** The taper form's values: all text, as typed (a type alias, so it fits `Record<string, unknown>`). */
-export type TaperFormValues = {
-  unit: string;
-  shape: string;
-  given: string;
-  thickness: string;
-  angle: string;
-  taperLength: string;
-  endThickness: string;
-  faceLength: string;
-  partLength: string;
-  depthPerPass: string;
-  fluteLength: string;
-  cutterDiameter: string;
-  /** Work-holding: angle blocks, sine plate or tilting vise (see taper-holding.ts). */
-  holding: string;
-  /** Angle-block set for the angle-block holding. */
-  angleSet: string;
-  /** Sine plate's roll centre distance and the gauge-block set for its stack. */
-  plateLength: string;
-  plateSet: string;
-};
 
 /**
  * Defaults from the demo scenario: a fixture wedge of 3/4 in stock with a 7°30' taper over the
@@ -65,35 +44,6 @@ export const TAPER_DEFAULTS: TaperFormValues = {
 
 /** The length controls, converted when the unit changes. */
 export const TAPER_LENGTH_FIELDS = ['thickness', 'taperLength', 'endThickness', 'faceLength', 'partLength', 'depthPerPass', 'fluteLength', 'cutterDiameter', 'plateLength'] as const;
-
-/** Which of angle, taperLength, end, faceLength a choice of `given` uses. */
-export function givenFields(given: string): { angle: boolean; taperLength: boolean; end: boolean; faceLength: boolean } {
-  const [first, second] = given.split('-');
-  const uses = (name: string) => first === name || second === name;
-  return { angle: uses('angle'), taperLength: uses('length'), end: uses('end'), faceLength: uses('face') };
-}
-
-/**
- * The engine request for the form: only the two given sizes are sent; the end size goes as
- * `endThickness` for a taper and as `removedAtEnd` (the chamfer's leg on the end) for a chamfer.
- */
-export function toTaperRequest(values: TaperFormValues): TaperRequest {
-  const use = givenFields(values.given);
-  const chamfer = values.shape === 'chamfer';
-  return {
-    unit: values.unit as TaperRequest['unit'],
-    shape: chamfer ? 'chamfer' : 'taper',
-    thickness: values.thickness,
-    angle: use.angle ? values.angle : undefined,
-    taperLength: use.taperLength ? values.taperLength : undefined,
-    endThickness: use.end && !chamfer ? values.endThickness : undefined,
-    removedAtEnd: use.end && chamfer ? values.endThickness : undefined,
-    faceLength: use.faceLength ? values.faceLength : undefined,
-    depthPerPass: values.depthPerPass,
-    fluteLength: values.fluteLength,
-    cutterDiameter: values.cutterDiameter,
-  };
-}
 
 /** The numbers of a taper answer for the result list, the stop readings first. */
 export function taperResultItems(r: TaperResult): ResultItem[] {

@@ -1,4 +1,4 @@
-import { Dec } from '../../../shared/calc/decimal-math';
+import { Dec } from '../calc/decimal-math';
 import { compactAngle, formatCombination, parseCombination } from './combination-text';
 
 describe('parseCombination', () => {

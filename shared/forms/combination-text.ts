@@ -1,5 +1,5 @@
-import { toDms } from '../../../shared/angle/angle-text';
-import { Dec } from '../../../shared/calc/decimal-math';
+import { toDms } from '../angle/angle-text';
+import { Dec } from '../calc/decimal-math';
 
 /** One block of a typed combination: its angle text as typed and whether it is reversed. */
 export interface TypedBlock {

@@ -1,0 +1,44 @@
+/**
+ * The gauge-block page's form and the engine request it makes (shared/calc/gauge-stack). A set-up
+ * saved from that page keeps the form as its inputs; its results and sheet make the same request.
+ */
+import type { GaugeStackRequest } from '../api/calc';
+
+/** The gauge-block form's values: all text, as typed. */
+export type GaugeBlocksFormValues = {
+  unit: string;
+  target: string;
+  set: string;
+  missing: string;
+  wearBlocks: string;
+  grade: string;
+  temperature: string;
+};
+
+/**
+ * The team's set id of a set picker value `box:<id>` (one of the team's own boxes, answered by the
+ * inventory route), or null for a standard set (or none).
+ */
+export function boxIdOf(set: string): number | null {
+  const m = /^box:([1-9]\d{0,9})$/.exec(set);
+  return m ? Number(m[1]) : null;
+}
+
+/** Sizes typed as a list → text entries, or undefined for none. */
+export function sizeList(text: string): string[] | undefined {
+  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
+  return sizes.length ? sizes : undefined;
+}
+
+/** The engine request for the form. */
+export function toGaugeStackRequest(values: GaugeBlocksFormValues): GaugeStackRequest {
+  return {
+    target: values.target,
+    unit: values.unit as GaugeStackRequest['unit'],
+    set: values.set,
+    missing: sizeList(values.missing),
+    wearBlocks: values.wearBlocks,
+    grade: (values.grade || undefined) as GaugeStackRequest['grade'],
+    temperature: values.temperature,
+  };
+}
