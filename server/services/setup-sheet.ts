@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
-import { listedInputs, setupResults, type SetupResults } from '../../shared/library/setup-results';
+import { inputText, listedInputs, setupResults, type SetupResults } from '../../shared/library/setup-results';
 import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
@@ -229,12 +229,6 @@ function rows(doc: PDFKit.PDFDocument, pairs: ReadonlyArray<readonly [string, st
     doc.y = Math.max(after, doc.y);
     doc.x = left;
   }
-}
-
-function inputText(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
-  return JSON.stringify(value);
 }
 
 /**

@@ -1,5 +1,5 @@
 import demo from '../../fixtures/demo.json';
-import { labelOf, setupResults } from './setup-results';
+import { inputText, labelOf, listedInputs, setupResults } from './setup-results';
 
 describe('setupResults', () => {
   it('should flatten a taper answer into labelled lines with the unit', () => {
@@ -68,5 +68,14 @@ describe('setupResults', () => {
   it('should turn field names into labels', () => {
     expect(labelOf('achievedAngleDeg')).toBe('Achieved angle (°)');
     expect(labelOf('tableTravel')).toBe('Table travel');
+  });
+
+  it('should list the figures a saved lathe form used, without empty ones, lists comma-separated', () => {
+    const form = { unit: 'in', define: 'tpf', standard: 'morse-3', taperPerFoot: '0.60235', includedAngle: '3°', largeDiameter: '0.938', smallDiameter: '', length: '3.1875', workLength: '8', method: 'offset', stations: '0.5, 1, 2' };
+    const listed = listedInputs('lathe-taper', form, setupResults('lathe-taper', form));
+    expect(listed.map(([k]) => k).sort()).toEqual(['largeDiameter', 'length', 'stations', 'taperPerFoot', 'unit', 'workLength']);
+    expect(inputText(Object.fromEntries(listed)['stations'])).toBe('0.5, 1, 2');
+    expect(inputText({ a: 1 })).toBe('{"a":1}');
+    expect(inputText(null)).toBe('');
   });
 });

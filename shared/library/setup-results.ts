@@ -117,6 +117,14 @@ const SET_UP_FIELDS: Readonly<Partial<Record<string, readonly string[]>>> = {
 export function listedInputs(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<[string, unknown]> {
   if (!results.ok) return Object.entries(saved);
   const extra = (SET_UP_FIELDS[kind] ?? []).filter((k) => !(k in results.input) && saved[k] !== undefined && saved[k] !== '').map((k) => [k, saved[k]] as [string, unknown]);
-  return [...Object.entries(results.input).filter(([, v]) => v !== undefined), ...extra];
+  return [...Object.entries(results.input).filter(([, v]) => v !== undefined && v !== ''), ...extra];
+}
+
+/** An input's value as text: a list of plain values comma-separated, other objects as JSON. */
+export function inputText(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
+  if (Array.isArray(value) && value.every((v) => typeof v === 'string' || typeof v === 'number')) return value.join(', ');
+  return JSON.stringify(value);
 }
 
