@@ -14,6 +14,11 @@ function asForm<T>(inputs: Record<string, unknown>): T {
   return new Proxy({}, { get: (_target, key) => (typeof key === 'string' && typeof inputs[key] === 'string' ? inputs[key] : '') }) as T;
 }
 
+/** A gauge-block form saved from its page: every field of it, as text (the engine takes a list of missing blocks). */
+function isGaugeForm(inputs: Record<string, unknown>): boolean {
+  return ['unit', 'target', 'set', 'missing', 'wearBlocks', 'grade', 'temperature'].every((k) => typeof inputs[k] === 'string');
+}
+
 /** A set-up its calculator page answers but the set-up's own results cannot, with why. */
 function openOnPage(what: string): CalcResult<never> {
   return fail('impossible', what, { body: 'open the set-up in its calculator to see the answer.' });
@@ -41,7 +46,7 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
       return succeed(boxIdOf(form.set) === null ? { ...request } : { ...request, set: undefined, missing: undefined });
     }
     case 'gauge-blocks': {
-      if (!has('wearBlocks') && !has('missing')) return succeed(inputs);
+      if (!isGaugeForm(inputs)) return succeed(inputs);
       const form = asForm<GaugeBlocksFormValues>(inputs);
       if (boxIdOf(form.set) !== null) return openOnPage('A stack from one of the team\'s own gauge-block boxes');
       return succeed({ ...toGaugeStackRequest(form) });
@@ -54,5 +59,99 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
       return succeed(overPinsRequestFromInputs(inputs));
     default:
       return succeed(inputs);
+  }
+}
+
+/** Which two of angle, taper length, end and face length engine-shaped taper inputs give, as the page's `given`. */
+function takenGiven(inputs: Record<string, unknown>): string | undefined {
+  const present = (key: string) => inputs[key] !== undefined && inputs[key] !== null && inputs[key] !== '';
+  const parts = [
+    present('angle') ? 'angle' : null,
+    present('taperLength') ? 'length' : null,
+    present('endThickness') || present('removedAtEnd') ? 'end' : null,
+    present('faceLength') ? 'face' : null,
+  ].filter((p): p is string => p !== null);
+  return parts.length === 2 ? parts.join('-') : undefined;
+}
+
+/** A list of sizes as the pages type them. */
+function listText(value: unknown): unknown {
+  return Array.isArray(value) ? value.join(', ') : value;
+}
+
+/**
+ * Page fields of engine-shaped inputs: the figures the page's request reads start empty (so none
+ * of the page's own example values joins the request), then the saved ones go in.
+ */
+function filled(blank: readonly string[], fields: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = Object.fromEntries(blank.map((k) => [k, '']));
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== null) out[k] = v;
+  return out;
+}
+
+/**
+ * The form fields of a calculator page for a saved set-up ("Open in …"): a form saved from the page
+ * as it is; inputs in the engine's shape (saved or imported through the API) with the page's mode
+ * and choices set to match them and each figure in the field the page reads it from, so the page
+ * makes the same request the set-up's results do.
+ */
+export function savedFormFields(kind: string, inputs: Record<string, unknown>): Record<string, unknown> {
+  const has = (key: string) => inputs[key] !== undefined && inputs[key] !== null && inputs[key] !== '';
+  switch (kind) {
+    case 'taper': {
+      if (typeof inputs['given'] === 'string') return inputs;
+      const chamfer = inputs['shape'] === 'chamfer' || (!has('endThickness') && has('removedAtEnd'));
+      const given = takenGiven(inputs);
+      return filled(['angle', 'taperLength', 'endThickness', 'faceLength', 'depthPerPass', 'fluteLength', 'cutterDiameter'], {
+        ...inputs, shape: chamfer ? 'chamfer' : 'taper', endThickness: inputs['endThickness'] ?? inputs['removedAtEnd'], given,
+      });
+    }
+    case 'sine-bar':
+      if (typeof inputs['mode'] === 'string') return inputs;
+      return filled(['angle', 'stackHeight', 'set', 'missing'], { ...inputs, missing: listText(inputs['missing']), mode: has('stackHeight') && !has('angle') ? 'stack' : 'angle' });
+    case 'gauge-blocks':
+      if (isGaugeForm(inputs)) return inputs;
+      return filled(['missing', 'wearBlocks', 'grade', 'temperature'], { ...inputs, missing: listText(inputs['missing']) });
+    case 'lathe-taper': {
+      if (typeof inputs['define'] === 'string') return inputs;
+      const define = has('standard') ? 'standard' : has('taperPerFoot') ? 'tpf' : has('includedAngle') ? 'angle' : 'diameters';
+      return filled(['taperPerFoot', 'includedAngle', 'largeDiameter', 'smallDiameter', 'length', 'workLength', 'stations'], { ...inputs, define, stations: listText(inputs['stations']) });
+    }
+    case 'angle-blocks': {
+      if (typeof inputs['mode'] === 'string') return inputs;
+      const combination = inputs['combination'];
+      if (!Array.isArray(combination)) return { ...inputs, mode: 'find' };
+      const text = combination
+        .map((b: { angle?: unknown; reversed?: unknown }, i) => `${b.reversed ? '− ' : i ? '+ ' : ''}${String(b.angle ?? '')}`)
+        .join(' ');
+      return { set: inputs['set'], mode: 'total', combination: text };
+    }
+    case 'pins-rolls':
+      return pinsFormFields(inputs);
+    default:
+      return inputs;
+  }
+}
+
+/** The pins-and-rolls form fields of engine-shaped inputs (see `savedFormFields`). */
+function pinsFormFields(inputs: Record<string, unknown>): Record<string, unknown> {
+  if (typeof inputs['mode'] === 'string') return inputs;
+  const has = (key: string) => inputs[key] !== undefined && inputs[key] !== null && inputs[key] !== '';
+  const { measurement, measurement1, measurement2, taperPerFoot, includedAngle, ...rest } = inputs;
+  switch (inputs['kind']) {
+    case 'dovetail':
+      return filled(['depth'], has('measurement') && !has('width') ? { ...rest, mode: 'check', reading: measurement, width: '' } : { ...rest, mode: 'cut' });
+    case 'v-groove':
+      return has('measurement') && !has('grooveWidth') ? { ...rest, includedAngle, mode: 'check', pinHeight: measurement, grooveWidth: '' } : { ...rest, includedAngle, mode: 'cut' };
+    case 'dovetail-angle':
+      return { ...inputs, mode: 'cut' };
+    case 'taper-two-heights':
+      return { ...rest, mode: 'cut', lowerReading: measurement1, upperReading: measurement2 };
+    case 'taper-discs': {
+      const discGiven = has('taperPerFoot') ? 'taperPerFoot' : has('includedAngle') ? 'includedAngle' : 'centreDistance';
+      return { ...rest, mode: 'cut', discGiven, discTaperPerFoot: taperPerFoot, discAngle: includedAngle };
+    }
+    default:
+      return { ...inputs, mode: 'cut' };
   }
 }

@@ -6,6 +6,9 @@ import { SINE_BAR_DEFAULTS, type SineBarFormValues } from '../sine-bar/sine-bar-
 import { runSineBar } from '../sine-bar/sine-bar-modes';
 import { TAPER_DEFAULTS, type TaperFormValues } from '../taper/taper-form';
 import { runTaper } from '../taper/taper-page';
+import { PINS_DEFAULTS, pinsCalc } from '../pins-rolls/pins-calc';
+import { pickControlValues } from '../workbench/query-state';
+import { savedFormFields } from '../../../shared/library/saved-request';
 
 /**
  * Every calculator page saves its whole form as the set-up's inputs (each field, the mode, what is
@@ -122,3 +125,89 @@ describe('a set-up saved from its calculator page', () => {
     });
   });
 });
+
+/**
+ * A set-up saved or imported through the API in the engine's own shape, opened on its page
+ * ("Open in …", which patches the page's default form with the fields it names): the page must
+ * make the same request, so it shows the set-up's own answer.
+ */
+describe('a set-up in the engine\'s shape opened on its calculator page', () => {
+  const onPage = <T extends object>(kind: string, defaults: T, inputs: Record<string, unknown>): T =>
+    ({ ...defaults, ...pickControlValues(savedFormFields(kind, inputs), Object.keys(defaults)) }) as T;
+  const engine = (kind: string, inputs: Record<string, unknown>) => value(setupResults(kind, inputs));
+
+  it.each<[string, Record<string, unknown>]>([
+    ['angle and taper length', { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250' }],
+    ['angle and end thickness, with passes', { unit: 'in', thickness: '0.750', angle: '5', endThickness: '0.5', depthPerPass: '0.05' }],
+    ['taper length and face length', { unit: 'mm', thickness: '20', taperLength: '40', faceLength: '40.5' }],
+    ['a chamfer by its leg on the end', { unit: 'in', shape: 'chamfer', thickness: '0.5', angle: '45', removedAtEnd: '0.1' }],
+  ])('taper: %s', (_what, inputs) => {
+    const page = runTaper(onPage('taper', TAPER_DEFAULTS, inputs));
+    expect(page.ok ? null : page.error).toBeNull();
+    if (!page.ok) return;
+    const { holding: _holding, ...answer } = page.value;
+    expect(answer).toEqual(engine('taper', inputs));
+  });
+
+  it.each<[string, Record<string, unknown>]>([
+    ['an angle and a set', { unit: 'in', barLength: '5', angle: "14°30'", set: 'inch-81' }],
+    ['a stack and no set', { unit: 'mm', barLength: '100', stackHeight: '25' }],
+    ['an angle with missing blocks', { unit: 'in', barLength: '10', angle: '30', set: 'inch-81', missing: ['0.1001', '0.125'] }],
+  ])('sine bar: %s', (_what, inputs) => {
+    const page = runSineBar(onPage('sine-bar', SINE_BAR_DEFAULTS, inputs));
+    expect(page.ok ? null : page.error).toBeNull();
+    if (!page.ok || (page.value.mode !== 'angle' && page.value.mode !== 'stack')) throw new Error('not a single-bar answer');
+    expect(page.value.single).toEqual(engine('sine-bar', inputs));
+  });
+
+  it.each<[string, Record<string, unknown>]>([
+    ['a target', { target: '3.9762', set: 'inch-81' }],
+    ['missing blocks, wear blocks and a grade', { target: '1.2519', set: 'inch-81', missing: ['0.1009'], wearBlocks: '0.050', grade: '0' }],
+  ])('gauge blocks: %s', (_what, inputs) => {
+    const page = runGaugeBlocks(onPage('gauge-blocks', GAUGE_BLOCKS_DEFAULTS, inputs));
+    if (!page.ok || page.value.source !== 'engine') throw new Error(page.ok ? 'box' : page.error);
+    expect(page.value.result).toEqual(engine('gauge-blocks', inputs));
+  });
+
+  it.each<[string, Record<string, unknown>]>([
+    ['a taper per foot and a work length (the demo set-up)', { unit: 'in', taperPerFoot: '0.60235', workLength: '6.000' }],
+    ['a standard taper', { unit: 'in', standard: 'morse-2', workLength: '5' }],
+    ['an included angle and the large diameter', { unit: 'mm', includedAngle: '5', largeDiameter: '30', stations: ['10', '20'] }],
+    ['two diameters and a length', { unit: 'in', largeDiameter: '1', smallDiameter: '0.9', length: '2' }],
+  ])('lathe taper: %s', (_what, inputs) => {
+    const page = latheCalc(onPage('lathe-taper', LATHE_DEFAULTS, inputs));
+    expect(page.ok ? null : page.error).toBeNull();
+    if (!page.ok) return;
+    expect(page.value).toEqual(engine('lathe-taper', inputs));
+  });
+
+  it.each<[string, Record<string, unknown>]>([
+    ['an angle', { set: 'angle-13-npl', angle: "14°30'" }],
+    ['a combination with reversed blocks', { set: 'angle-13-npl', combination: [{ angle: '27°', reversed: false }, { angle: '9°', reversed: true }, { angle: "27'", reversed: false }] }],
+  ])('angle blocks: %s', (_what, inputs) => {
+    const page = angleBlocksRequest(onPage('angle-blocks', ANGLE_BLOCKS_DEFAULTS, inputs));
+    expect(page.ok ? null : page.error).toBeNull();
+    if (!page.ok) return;
+    expect(page.value).toEqual(engine('angle-blocks', inputs));
+  });
+
+  it.each<[string, Record<string, unknown>]>([
+    ['a male dovetail (the demo set-up)', { kind: 'dovetail', side: 'male', unit: 'in', angle: '60', width: '1.250', rollDiameter: '0.375' }],
+    ['a female dovetail read back from a measurement', { kind: 'dovetail', side: 'female', unit: 'in', angle: '60', rollDiameter: '0.5', measurement: '1.1340' }],
+    ['a V-groove', { kind: 'v-groove', unit: 'in', includedAngle: '90', pinDiameter: '0.5', grooveWidth: '1' }],
+    ['a V-groove read back from the pin height', { kind: 'v-groove', unit: 'in', includedAngle: '60', pinDiameter: '0.5', measurement: '0.2' }],
+    ['a dovetail angle from two roll sizes', { kind: 'dovetail-angle', side: 'male', unit: 'in', rollDiameter1: '0.375', measurement1: '2.2745', rollDiameter2: '0.5', measurement2: '2.616' }],
+    ['a taper from two heights', { kind: 'taper-two-heights', unit: 'in', measurement1: '0.745', measurement2: '0.620', heightDifference: '1' }],
+    ['two discs by taper per foot', { kind: 'taper-discs', unit: 'in', largeDisc: '1', smallDisc: '0.5', reference: 'axis', taperPerFoot: '2' }],
+    ['two discs by included angle, one side square', { kind: 'taper-discs', unit: 'in', largeDisc: '1', smallDisc: '0.5', reference: 'side', includedAngle: '9' }],
+    ['two balls', { kind: 'taper-balls', unit: 'in', largeBall: '1', smallBall: '0.5', largeBallDepth: '0.25', smallBallDepth: '2' }],
+  ])('pins and rolls: %s', (_what, inputs) => {
+    const page = pinsCalc(onPage('pins-rolls', PINS_DEFAULTS, inputs));
+    expect(page.ok ? null : page.error).toBeNull();
+    if (!page.ok) return;
+    const saved = engine('pins-rolls', inputs)!;
+    expect(page.value.main.values).toEqual(saved['values']);
+    expect(page.value.main.dms).toEqual(saved['dms']);
+  });
+});
+

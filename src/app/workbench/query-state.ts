@@ -7,6 +7,7 @@ import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import type { SetupKind } from '../../../shared/api/setup';
 import { apiErrorMessage } from '../core/api-error';
 import { SetupsApi } from './setups-api';
+import { savedFormFields } from '../../../shared/library/saved-request';
 
 /** The query parameter that names a saved set-up to open into the page. */
 export const SETUP_PARAM = 'setup';
@@ -94,7 +95,8 @@ export function bindQueryState(form: FormGroup, kind: SetupKind): QueryState {
             setupError.set(`Set-up “${setup.name}” belongs to another area (${setup.kind}); open it from its own page.`);
             return;
           }
-          form.patchValue(pickControlValues(setup.inputs, names));
+          // A form saved from this page as it is; engine-shaped inputs (API, import) in the page's fields.
+          form.patchValue(pickControlValues(savedFormFields(kind, setup.inputs), names));
           loadedJson = JSON.stringify(form.getRawValue());
           openedSetup.set({ id: setup.id, name: setup.name });
         },
