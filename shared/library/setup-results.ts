@@ -105,9 +105,11 @@ export function setupResults(kind: string, inputs: Record<string, unknown>): Set
  * Fields a page saves that are not for the engine but describe the set-up: how the work is held
  * (the taper page's holding, its angle-block set or sine plate and stack set) and the part length.
  */
-const SET_UP_FIELDS: Readonly<Partial<Record<string, readonly string[]>>> = {
-  taper: ['partLength', 'holding', 'angleSet', 'plateLength', 'plateSet'],
-};
+function setUpFields(kind: string, saved: Record<string, unknown>): readonly string[] {
+  if (kind !== 'taper') return [];
+  const holding = saved['holding'];
+  return ['partLength', 'holding', ...(holding === 'sine-plate' ? ['plateLength', 'plateSet'] : holding === 'tilted-vise' ? [] : ['angleSet'])];
+}
 
 /**
  * The inputs to list for a set-up (detail page and sheet): what the calculation used — for a form
@@ -116,7 +118,7 @@ const SET_UP_FIELDS: Readonly<Partial<Record<string, readonly string[]>>> = {
  */
 export function listedInputs(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<[string, unknown]> {
   if (!results.ok) return Object.entries(saved);
-  const extra = (SET_UP_FIELDS[kind] ?? []).filter((k) => !(k in results.input) && saved[k] !== undefined && saved[k] !== '').map((k) => [k, saved[k]] as [string, unknown]);
+  const extra = setUpFields(kind, saved).filter((k) => !(k in results.input) && saved[k] !== undefined && saved[k] !== '').map((k) => [k, saved[k]] as [string, unknown]);
   return [...Object.entries(results.input).filter(([, v]) => v !== undefined && v !== ''), ...extra];
 }
 

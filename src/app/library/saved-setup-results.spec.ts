@@ -46,6 +46,9 @@ describe('a set-up saved from its calculator page', () => {
       expect(keys).toEqual(expect.arrayContaining(['angle', 'endThickness', 'thickness', 'holding', 'angleSet', 'partLength']));
       expect(keys).not.toContain('taperLength');
       expect(keys).not.toContain('given');
+      expect(keys).not.toContain('plateSet');
+      const onPlate = { ...form, holding: 'sine-plate' };
+      expect(listedInputs('taper', onPlate, saved('taper', onPlate)).map(([k]) => k)).toEqual(expect.arrayContaining(['plateLength', 'plateSet']));
     });
   });
 
