@@ -29,6 +29,15 @@ describe('LatheTapersPage', () => {
     expect(page.el.querySelector('.no-results')).not.toBeNull();
   });
 
+  it('should say which size to leave out when the taper per foot is chosen with all three sizes filled', async () => {
+    await page.open('/lathe-tapers?define=tpf');
+    expect(page.fieldErrors()).toMatch(/leave one of large diameter, small diameter and length empty/i);
+    expect(page.fieldErrors()).not.toMatch(/largeDiameter/);
+    await page.type('smallDiameter', '');
+    // REFERENCE.md §4.1: d = D − TPF·L/12 = 0.938 − 0.600 × 3.1875/12 = 0.7786 in (derived).
+    expect(page.resultValue('Small diameter')).toBe('0.7786');
+  });
+
   it('should ask for the work length when the tail stock is set over', async () => {
     await page.open('/lathe-tapers?method=offset');
     await page.type('workLength', '');

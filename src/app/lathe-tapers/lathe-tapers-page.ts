@@ -64,6 +64,10 @@ export function latheCalc(v: LatheTapersForm): CalcResult<LatheTaperResult> {
   if (v.define === 'angle' && !v.includedAngle.trim()) return invalid(AREA, 'includedAngle', 'is required: type the included angle');
   if (v.define === 'tpf' && !v.taperPerFoot.trim()) return invalid(AREA, 'taperPerFoot', 'is required: type the taper per foot');
   if (v.method === 'offset' && !v.workLength.trim()) return invalid(AREA, 'workLength', 'is required for the tail-stock offset');
+  // With the taper given, two of the sizes fix the third: all three filled would disagree.
+  if ((v.define === 'tpf' || v.define === 'angle') && [v.largeDiameter, v.smallDiameter, v.length].every((x) => x.trim() !== '')) {
+    return invalid(AREA, 'length', 'leave one of large diameter, small diameter and length empty: the taper and two of them give the third');
+  }
   return calculateLatheTaper(latheRequest(v));
 }
 

@@ -73,6 +73,20 @@ describe('TaperPage', () => {
     expect(page.el.querySelector('.holding-plan li')?.textContent).toContain('Tilt the vise body to 7°30\'00"');
   });
 
+  it('should ask for the newly shown size under its own box when "Defined by" changes', async () => {
+    await page.open('/taper?given=angle-end');
+    expect(page.fieldErrors()).toMatch(/required: type the end thickness/i);
+    expect(page.fieldErrors()).not.toMatch(/exactly two/);
+    await page.type('endThickness', '0.5');
+    // t = T − L·tan α → L = (0.750 − 0.5)/tan 7.5° = 1.8989 (derived); h = L·sin α = 0.2479 in.
+    expect(page.resultValue('Depth to stop')).toBe('0.2479');
+  });
+
+  it('should name the chamfer\'s leg when it is missing', async () => {
+    await page.open('/taper?shape=chamfer&given=angle-end');
+    expect(page.fieldErrors()).toMatch(/required: type the leg on the end face/i);
+  });
+
   it('should name a bad part length under its box', async () => {
     await page.open();
     await page.type('partLength', '-5');

@@ -8,7 +8,7 @@ import { MatInput } from '@angular/material/input';
 import { MatSelect, MatOption } from '@angular/material/select';
 
 import { positiveLength } from '../../../shared/api/calc';
-import { type CalcResult, fail, succeed } from '../../../shared/calc/step';
+import { type CalcResult, fail, invalid, succeed } from '../../../shared/calc/step';
 import { MILLING_CAUTIONS, calculateTaper, type TaperResult } from '../../../shared/calc/taper';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
 import type { LengthUnit } from '../../../shared/units/length-unit';
@@ -34,6 +34,17 @@ export type TaperOutcome = TaperResult & { readonly holding: HoldingPlan };
 
 /** The taper engine, then the set-up for the holding (whose inputs fail on their own controls). */
 export function runTaper(values: TaperFormValues): CalcResult<TaperOutcome> {
+  // The two sizes the choice of "Defined by" uses are both needed: an empty one is named on its box
+  // (a newly shown box starts empty), not as the engine's count of what was given.
+  const use = givenFields(values.given);
+  const needed: Array<[keyof TaperFormValues, boolean, string]> = [
+    ['angle', use.angle, 'the taper angle, e.g. 7°30\''],
+    ['taperLength', use.taperLength, 'the taper length'],
+    ['endThickness', use.end, values.shape === 'chamfer' ? 'the leg on the end face' : 'the end thickness'],
+    ['faceLength', use.faceLength, 'the face length'],
+  ];
+  const empty = needed.find(([name, used]) => used && values[name].trim() === '');
+  if (empty) return invalid('Taper', empty[0], `is required: type ${empty[2]}`);
   const taper = calculateTaper(toTaperRequest(values));
   if (!taper.ok) return taper;
   // The part length only sizes the drawing, but a typo in it still gets its own message.
