@@ -91,7 +91,8 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
       if (typeof status !== 'string' || !(BATCH_STATUSES as readonly string[]).includes(status)) throw new HttpError(400, 'Some query parameters are not valid.', { status: 'Status must be open or closed.' });
       Object.assign(where, { status });
     }
-    const runs = await BatchRun.findAll({ where, include: [...PEOPLE, { model: BatchPart, as: 'parts', attributes: ['id', 'partNo', 'pass'] }], order: [['status', 'DESC'], ['createdAt', 'DESC'], ['id', 'DESC']], limit: 200 });
+    // Open runs first: an ENUM sorts by its declared order ('open', 'closed'), not alphabetically.
+    const runs = await BatchRun.findAll({ where, include: [...PEOPLE, { model: BatchPart, as: 'parts', attributes: ['id', 'partNo', 'pass'] }], order: [['status', 'ASC'], ['createdAt', 'DESC'], ['id', 'DESC']], limit: 200 });
     res.json({ batches: runs.map((r) => r.toDto()) });
   });
 
@@ -135,7 +136,11 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
       const values = readings(run.checks, body);
       const verdict = partVerdict(run.checks, values);
       const existing = await BatchPart.findAll({ where: { runId: run.id }, attributes: ['id', 'partNo'], transaction });
-      const wanted = partNo ?? body.partNo ?? existing.reduce((m, p) => Math.max(m, p.partNo), 0) + 1;
+      // Without a number, the lowest part not yet entered (a part sent out of turn leaves a gap to fill).
+      const taken = new Set(existing.map((p) => p.partNo));
+      let next = 1;
+      while (taken.has(next)) next += 1;
+      const wanted = partNo ?? body.partNo ?? next;
       if (wanted > run.partCount) throw new HttpError(409, `This run is for ${run.partCount} parts; part ${wanted} is beyond it.`, { partNo: `At most ${run.partCount}.` });
       const row = {
         touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass,

@@ -98,6 +98,8 @@ export async function seedLibrary(teamId: number, lib: DemoLibrary, byEmail: Rea
       teamId, setupId: setup.id, setupVersion: setup.version, setupName: setup.name, label: r.label, partCount: r.partCount,
       checks: setup.checks, startedById: byEmail.get(r.startedBy)?.id ?? null,
       status: closer ? 'closed' : 'open', closedById: closer?.id ?? null, closedAt: closer ? new Date(start.getTime() + (last + 20) * 60_000) : null,
+      // Started when its first part was measured, so it is not closed before it began.
+      createdAt: start,
     });
     await BatchPart.bulkCreate(r.parts.map((p) => {
       const verdict = partVerdict(setup.checks, p.values);

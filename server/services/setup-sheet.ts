@@ -290,7 +290,7 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
 
   if (results.ok && results.stack?.length) {
     heading(doc, 'Gauge-block stack (wringing order)');
-    doc.text(pdfText(`${results.stack.join(' + ')}  (${results.stack.length} blocks)`));
+    doc.text(pdfText(`${results.stack.join(' + ')}  (${results.stack.length} ${results.stack.length === 1 ? 'block' : 'blocks'})`));
   }
 
   if (setup.checks.length) {

@@ -141,7 +141,9 @@ export const assignmentCreateBody = z.object({
     .max(EXERCISE_TYPES.length, 'List each exercise type once.')
     .refine((items) => new Set(items.map((i) => i.type)).size === items.length, 'List each exercise type once.')
     .refine((items) => items.reduce((n, i) => n + i.count, 0) <= MAX_PROBLEMS, `An assignment holds at most ${MAX_PROBLEMS} problems.`),
-  dueAt: z.iso.datetime({ offset: true, error: 'Give the due date as an ISO date-time, e.g. 2026-12-20T16:00:00Z.' }),
+  dueAt: z.iso
+    .datetime({ offset: true, error: 'Give the due date as an ISO date-time, e.g. 2026-12-20T16:00:00Z.' })
+    .refine((text) => Date.parse(text) > Date.now(), 'The due date has passed: choose a time from now on.'),
   assigneeIds: z
     .array(z.number().int().positive(), { error: 'Choose at least one apprentice.' })
     .min(1, 'Choose at least one apprentice.')

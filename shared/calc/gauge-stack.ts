@@ -302,7 +302,7 @@ export function calculateGaugeStack(input: GaugeStackRequest | unknown): CalcRes
       remainder = next;
     }
     const fewestAnswer = answer(fewest, box, wear);
-    steps.push(step('Fewest blocks', 'n = count of blocks', fewestAnswer.blocks.join(' + '), String(fewestAnswer.count), 'blocks'));
+    steps.push(step('Fewest blocks', 'n = count of blocks', fewestAnswer.blocks.join(' + '), String(fewestAnswer.count), fewestAnswer.count === 1 ? 'block' : 'blocks'));
     const lastDigit = lastDigitBlocks(box, core);
     const lastDigitAnswer = lastDigit ? answer(lastDigit, box, wear) : null;
     const warnings: string[] = [];

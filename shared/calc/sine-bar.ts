@@ -165,7 +165,7 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
         const found = fewestBlocks(box, setting.stack);
         if (found) {
           blocks = found.map((b) => formatBlock(b, box));
-          steps.push(step('Fewest blocks', 'Σ blocks = H', `${blocks.join(' + ')}`, String(blocks.length), 'blocks'));
+          steps.push(step('Fewest blocks', 'Σ blocks = H', `${blocks.join(' + ')}`, String(blocks.length), blocks.length === 1 ? 'block' : 'blocks'));
         } else {
           warnings.push(`The box cannot make a ${res(setting.stack)} ${unit} stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.`);
         }

@@ -186,7 +186,7 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
         passes.push({ pass: i, cut: len(next.minus(done)), reading: len(next) });
         done = next;
       }
-      steps.push(step('Passes', 'n = ⌈h / depth per pass⌉', `n = ⌈${len(h)} / ${len(p.depthPerPass)}⌉`, String(n), 'passes'));
+      steps.push(step('Passes', 'n = ⌈h / depth per pass⌉', `n = ⌈${len(h)} / ${len(p.depthPerPass)}⌉`, String(n), n === 1 ? 'pass' : 'passes'));
     }
 
     const warnings: string[] = [];

@@ -74,6 +74,11 @@ function takenGiven(inputs: Record<string, unknown>): string | undefined {
   return parts.length === 2 ? parts.join('-') : undefined;
 }
 
+/** An engine combination of angle blocks as the angle-block page types it: `27° − 9° + 27'`. */
+export function combinationText(blocks: ReadonlyArray<{ angle?: unknown; reversed?: unknown }>): string {
+  return blocks.map((b, i) => `${b.reversed ? '− ' : i ? '+ ' : ''}${String(b.angle ?? '')}`).join(' ');
+}
+
 /** A list of sizes as the pages type them. */
 function listText(value: unknown): unknown {
   return Array.isArray(value) ? value.join(', ') : value;
@@ -121,10 +126,7 @@ export function savedFormFields(kind: string, inputs: Record<string, unknown>): 
       if (typeof inputs['mode'] === 'string') return inputs;
       const combination = inputs['combination'];
       if (!Array.isArray(combination)) return { ...inputs, mode: 'find' };
-      const text = combination
-        .map((b: { angle?: unknown; reversed?: unknown }, i) => `${b.reversed ? '− ' : i ? '+ ' : ''}${String(b.angle ?? '')}`)
-        .join(' ');
-      return { set: inputs['set'], mode: 'total', combination: text };
+      return { set: inputs['set'], mode: 'total', combination: combinationText(combination) };
     }
     case 'pins-rolls':
       return pinsFormFields(inputs);

@@ -76,6 +76,7 @@ describe('setupResults', () => {
     expect(listed.map(([k]) => k).sort()).toEqual(['largeDiameter', 'length', 'stations', 'taperPerFoot', 'unit', 'workLength']);
     expect(inputText(Object.fromEntries(listed)['stations'])).toBe('0.5, 1, 2');
     expect(inputText({ a: 1 })).toBe('{"a":1}');
+    expect(inputText([{ angle: '27°', reversed: false }, { angle: '9°', reversed: true }, { angle: "27'", reversed: false }])).toBe("27° − 9° + 27'");
     expect(inputText(null)).toBe('');
   });
 });

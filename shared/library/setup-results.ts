@@ -5,7 +5,7 @@ import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
 import { calculateTaper } from '../calc/taper';
-import { savedRequest } from './saved-request';
+import { combinationText, savedRequest } from './saved-request';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -127,6 +127,9 @@ export function inputText(value: unknown): string {
   if (value === null || value === undefined) return '';
   if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
   if (Array.isArray(value) && value.every((v) => typeof v === 'string' || typeof v === 'number')) return value.join(', ');
+  if (Array.isArray(value) && value.every((v) => typeof v === 'object' && v !== null && typeof (v as { angle?: unknown }).angle === 'string')) {
+    return combinationText(value as Array<{ angle: string; reversed?: unknown }>);
+  }
   return JSON.stringify(value);
 }
 

@@ -94,6 +94,10 @@ describe('/api/batches', () => {
       expect(fix.body.part).toMatchObject({ partNo: 2, pass: false, values: { 'end-thickness': '0.5899' } });
       await c.machinist.agent.put(`/api/batches/${run.id}/parts/1`).set('X-CSRF-Token', c.machinist.token).send(part('0.5854')).expect(404);
       expect(await BatchPart.count({ where: { runId: run.id } })).toBe(1);
+      // A part sent without a number fills the gap part 2 left, so the run can be finished.
+      const first = await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854')).expect(201);
+      expect(first.body.part.partNo).toBe(1);
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854')).expect(409);
     });
 
     it('should number parts entered at the same moment without gaps or duplicates (one transaction each)', async () => {
@@ -131,6 +135,10 @@ describe('/api/batches', () => {
       expect(list.body.batches.length).toBeGreaterThan(0);
       expect(list.body.batches.every((b: { setupId: number; status: string }) => b.setupId === released && b.status === 'open')).toBe(true);
       await c.machinist.agent.get('/api/batches?status=half').expect(400);
+      // Open runs come first, then closed ones (the earlier tests closed some).
+      const all = (await c.machinist.agent.get('/api/batches').expect(200)).body.batches.map((b: { status: string }) => b.status);
+      expect(all).toContain('closed');
+      expect(all).toEqual([...all].sort((a: string, b: string) => (a === b ? 0 : a === 'open' ? -1 : 1)));
       const theirs = await c.foreign.agent.get('/api/batches').expect(200);
       expect(theirs.body.batches).toEqual([]);
       await c.foreign.agent.get(`/api/batches/${list.body.batches[0].id}`).expect(404);

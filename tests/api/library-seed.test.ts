@@ -26,6 +26,12 @@ describe('demo library seed', () => {
     expect(runs.map((r) => [r.status, r.partCount, r.parts?.length])).toEqual([['closed', 8, 8], ['open', 8, 3]]);
     expect(runs[0]?.parts?.every((p) => p.pass)).toBe(true);
     expect(runs[1]?.parts?.filter((p) => !p.pass).map((p) => p.partNo)).toEqual([3]);
+    // Each run starts no later than its first part and closes after its last.
+    for (const run of runs) {
+      const measured = (run.parts ?? []).map((p) => p.measuredAt.getTime());
+      expect(run.createdAt.getTime()).toBeLessThanOrEqual(Math.min(...measured));
+      if (run.closedAt) expect(run.closedAt.getTime()).toBeGreaterThan(Math.max(...measured));
+    }
   });
 
   it('should add nothing when run again', async () => {

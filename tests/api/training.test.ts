@@ -67,6 +67,9 @@ describe('/api/training', () => {
     it('names each bad field with 400', async () => {
       const res = await post(c.lead, '/api/training/assignments', { title: '', items: [{ type: 'knurling', count: 0 }], dueAt: 'tomorrow', assigneeIds: [] }).expect(400);
       expect(Object.keys(res.body.fields).sort()).toEqual(['assigneeIds', 'dueAt', 'items.0.count', 'items.0.type', 'title']);
+      // A due date already past would make the work "missing" from the start.
+      const past = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { dueAt: '2020-01-01T10:00:00Z' })).expect(400);
+      expect(past.body.fields).toEqual({ dueAt: 'The due date has passed: choose a time from now on.' });
     });
 
     it('assigns apprentices of the own team only', async () => {

@@ -45,8 +45,12 @@ describe('training', () => {
     await lead.page.goto('/training/assignments');
     await lead.page.getByRole('heading', { name: 'Assignments & scores' }).waitFor();
     await lead.page.getByLabel('Title').fill(title);
-    await lead.page.getByLabel('Depth to stop on an angle block').fill('1');
+    // A fraction of a problem is refused with its reason under its own box, not quietly rounded down.
+    await lead.page.getByLabel('Depth to stop on an angle block').fill('1.5');
     await lead.page.getByRole('checkbox', { name: 'Sam Okafor' }).check();
+    await lead.page.getByRole('button', { name: 'Assign and notify' }).click();
+    await lead.page.locator('mat-form-field', { hasText: 'Depth to stop on an angle block' }).locator('.field-error', { hasText: /whole number/i }).waitFor();
+    await lead.page.getByLabel('Depth to stop on an angle block').fill('1');
     await lead.page.getByRole('button', { name: 'Assign and notify' }).click();
     await lead.page.getByText(`Assigned "${title}" to 1 apprentice; 1 e-mail notice sent.`).waitFor();
 

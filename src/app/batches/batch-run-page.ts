@@ -51,9 +51,12 @@ export default class BatchRunPage {
   protected readonly csvUrl = csvUrl;
 
   protected readonly isOpen = computed(() => this.run()?.status === 'open');
+  /** The lowest part not yet entered, as the server numbers a part sent without one. */
   protected readonly nextPart = computed(() => {
-    const r = this.run();
-    return r ? (r.parts ?? []).reduce((m, p) => Math.max(m, p.partNo), 0) + 1 : 1;
+    const taken = new Set((this.run()?.parts ?? []).map((p) => p.partNo));
+    let next = 1;
+    while (taken.has(next)) next += 1;
+    return next;
   });
   protected readonly full = computed(() => !!this.run() && this.nextPart() > (this.run()?.partCount ?? 0));
   protected readonly mayRecord = computed(() => this.isOpen() && !this.full() && this.auth.user()?.role !== 'apprentice');

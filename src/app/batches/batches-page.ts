@@ -12,7 +12,7 @@ import { Router, RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
 
 import type { BatchRunDto } from '../../../shared/api/batch';
-import { apiErrorMessage } from '../core/api-error';
+import { apiErrorDetail, apiErrorMessage } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { LibraryApi } from '../library/library-api';
 import { BatchesApi } from './batches-api';
@@ -113,7 +113,7 @@ export default class BatchesPage {
     this.startError.set(null);
     this.api.start({ setupId, partCount: this.partCount() }).subscribe({
       next: (run) => void this.router.navigate(['/batches', run.id]),
-      error: (err: unknown) => this.startError.set(apiErrorMessage(err)),
+      error: (err: unknown) => this.startError.set(apiErrorDetail(err)),
     });
   }
 }

@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 
-import { QUIET_ERRORS, apiErrorMessage, apiFieldErrors, quietErrors } from './api-error';
+import { QUIET_ERRORS, apiErrorDetail, apiErrorMessage, apiFieldErrors, quietErrors } from './api-error';
 
 describe('apiErrorMessage', () => {
   const response = (status: number, error: unknown, statusText = '') => new HttpErrorResponse({ status, error, statusText });
@@ -37,6 +37,17 @@ describe('apiFieldErrors', () => {
   it('should return an empty record without fields', () => {
     expect(apiFieldErrors(new HttpErrorResponse({ status: 401, error: { error: 'No.' } }))).toEqual({});
     expect(apiFieldErrors(new Error('x'))).toEqual({});
+  });
+});
+
+describe('apiErrorDetail', () => {
+  it('should follow the message with each field\'s own reason', () => {
+    const err = new HttpErrorResponse({ status: 400, error: { error: 'Some fields are not valid.', fields: { partCount: 'Part count must be a whole number.' } } });
+    expect(apiErrorDetail(err)).toBe('Some fields are not valid. Part count must be a whole number.');
+  });
+
+  it('should be the message alone without fields', () => {
+    expect(apiErrorDetail(new HttpErrorResponse({ status: 409, error: { error: 'Already closed.' } }))).toBe('Already closed.');
   });
 });
 

@@ -21,6 +21,16 @@ export function apiErrorMessage(err: unknown): string {
   return 'Something went wrong.';
 }
 
+/**
+ * The error message followed by each field's own message ("Some fields are not valid. Part count
+ * must be a whole number."), for forms that have no place beside each field to show them.
+ */
+export function apiErrorDetail(err: unknown): string {
+  const fields = Object.values(apiFieldErrors(err));
+  const message = apiErrorMessage(err);
+  return fields.length ? `${message} ${fields.join(' ')}` : message;
+}
+
 /** The per-field messages of a 400 body `{"error", "fields": {name: message}}`, or an empty record. */
 export function apiFieldErrors(err: unknown): Readonly<Record<string, string>> {
   if (!(err instanceof HttpErrorResponse) || !isErrorBody(err.error)) return {};

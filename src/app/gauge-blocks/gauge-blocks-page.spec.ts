@@ -21,6 +21,15 @@ describe('GaugeBlocksPage', () => {
     expect(titles).toEqual([`Fewest: ${blocks.length} blocks`, `Last-digit method: ${last.length} blocks`]);
   });
 
+  it('should say "1 block" for a stack of one block', async () => {
+    await page.open();
+    // 0.500 in is a single block of the 81-piece set (REFERENCE.md §3.2).
+    await page.type('target', '0.500');
+    expect(page.resultValue('Fewest blocks')).toBe('0.500');
+    expect(page.el.textContent).toContain('1 block, wringing order');
+    expect(page.el.textContent).not.toContain('1 blocks');
+  });
+
   it('should leave a missing block out of the stack', async () => {
     await page.open();
     const first = (page.resultValue('Fewest blocks') ?? '').split(' + ');

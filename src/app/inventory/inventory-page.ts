@@ -10,7 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of } from 'rxjs';
 
 import type { InventoryBlockDto, InventoryListDto, InventorySetDto, InventoryType } from '../../../shared/api/inventory';
-import { apiErrorMessage } from '../core/api-error';
+import { apiErrorDetail } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { InventoryApi, type InventoryAnswer } from './inventory-api';
 
@@ -77,7 +77,7 @@ export default class InventoryPage {
       next: (a) => this.answer.set(a),
       error: (err: unknown) => {
         this.answer.set(null);
-        this.answerError.set(apiErrorMessage(err));
+        this.answerError.set(apiErrorDetail(err));
       },
     });
   }
@@ -98,7 +98,7 @@ export default class InventoryPage {
         this.selected.set(set);
         this.reload(set.id);
       },
-      error: (err: unknown) => this.createError.set(apiErrorMessage(err)),
+      error: (err: unknown) => this.createError.set(apiErrorDetail(err)),
     });
   }
 }

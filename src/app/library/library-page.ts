@@ -16,7 +16,7 @@ import { Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 
 import { SETUP_KINDS, SETUP_STATUSES, type SetupOwnerDto, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
-import { apiErrorMessage } from '../core/api-error';
+import { apiErrorDetail } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
 import { KIND_AREAS, LibraryApi, STATUS_LABELS, type LibraryQuery } from './library-api';
@@ -84,7 +84,7 @@ export default class LibraryPage {
       switchMap((q) =>
         this.api.list(q).pipe(
           map((page) => ({ loading: false, page, error: null as string | null })),
-          catchError((err: unknown) => of({ loading: false, page: null, error: apiErrorMessage(err) })),
+          catchError((err: unknown) => of({ loading: false, page: null, error: apiErrorDetail(err) })),
           startWith({ loading: true, page: null as SetupPageDto | null, error: null as string | null }),
         ),
       ),
@@ -151,7 +151,7 @@ export default class LibraryPage {
         next: (setup) => void this.router.navigate(['/library', setup.id]),
         error: (err: unknown) => {
           this.importing.set(false);
-          void this.notice.show(`Import failed: ${apiErrorMessage(err)}`);
+          void this.notice.show(`Import failed: ${apiErrorDetail(err)}`);
         },
       });
     } catch {

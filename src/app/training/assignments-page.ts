@@ -71,8 +71,22 @@ export default class AssignmentsPage {
     return STATUS_LABELS[status];
   }
 
+  /** The exercise types in the order the last request listed them (the API names its errors by position). */
+  private sentTypes: ExerciseType[] = [];
+  /** The API's message for each exercise type's count (`items.<n>.count`), shown under its box. */
+  protected readonly countErrors = computed(() => {
+    const out: Partial<Record<ExerciseType, string>> = {};
+    for (const [key, message] of Object.entries(this.formErrors())) {
+      const m = /^items\.(\d+)\.count$/.exec(key);
+      const type = m ? this.sentTypes[Number(m[1])] : undefined;
+      if (type) out[type] = message;
+    }
+    return out;
+  });
+
   protected setCount(type: ExerciseType, value: string | number): void {
-    const n = Math.max(0, Math.min(MAX_PER_TYPE, Math.floor(Number(value) || 0)));
+    // As typed: a fraction or too many is refused with its reason on sending, never quietly changed.
+    const n = Number(value) || 0;
     this.counts.update((c) => ({ ...c, [type]: n }));
   }
 
@@ -90,7 +104,8 @@ export default class AssignmentsPage {
     this.saving.set(true);
     this.formErrors.set({});
     this.formMessage.set(null);
-    const items = EXERCISE_TYPES.filter((t) => (this.counts()[t] ?? 0) > 0).map((type) => ({ type, count: this.counts()[type] ?? 0 }));
+    const items = EXERCISE_TYPES.filter((t) => (this.counts()[t] ?? 0) !== 0).map((type) => ({ type, count: this.counts()[type] ?? 0 }));
+    this.sentTypes = items.map((i) => i.type);
     const dueDate = new Date(this.due());
     try {
       const created = await firstValueFrom(this.api.create({
