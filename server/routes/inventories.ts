@@ -8,7 +8,8 @@ import { HttpError } from '../middleware/http-error';
 import { parseBody, parseId } from '../middleware/validate';
 import { InventoryBlock, InventorySet } from '../models/inventory';
 import type { User } from '../models/user';
-import { angleText, blockLabel, findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
+import { blockLabel, findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
+import { boxBlockAngles } from '../../shared/forms/angle-blocks-form';
 
 /** Roles that manage the shop's inventories. */
 const MANAGERS = new Set(['admin', 'lead']);
@@ -169,9 +170,9 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
   router.get('/angle-sets/:id/combination', async (req, res) => {
     const set = await findSet(req, 'angle-blocks');
     const q = parseQuery(inventoryAngleQuery, req.query);
-    const pieces = (set.blocks ?? []).flatMap((b) => Array.from({ length: b.available }, () => angleText(Number(b.size))));
+    const pieces = boxBlockAngles(set.blocks ?? []);
     if (pieces.length === 0) throw new HttpError(422, 'Every block of this set is marked missing or damaged.');
-    const result = calculateAngleBlocks({ blocks: pieces.slice(0, 24), angle: q.angle });
+    const result = calculateAngleBlocks({ blocks: pieces, angle: q.angle });
     const excluded = (set.blocks ?? []).filter((b) => b.missing + b.damaged > 0).map((b) => ({ size: b.size, label: blockLabel(set.unit, b.size), missing: b.missing, damaged: b.damaged }));
     if (!result.ok) {
       res.status(result.kind === 'invalid' ? 400 : 422).json({ error: result.error, fields: result.fields, excluded });

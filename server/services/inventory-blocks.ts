@@ -39,13 +39,6 @@ export function angleLabel(arcSeconds: number): string {
   return [d ? `${d}°` : '', m ? `${m}′` : '', s ? `${s}″` : ''].join('') || '0″';
 }
 
-/** DMS text the engine reads for an angle block ("0°27'0\""). */
-export function angleText(arcSeconds: number): string {
-  const d = Math.floor(arcSeconds / 3600);
-  const m = Math.floor((arcSeconds % 3600) / 60);
-  return `${d}°${m}'${arcSeconds % 60}"`;
-}
-
 /** Label of a block of a set. */
 export function blockLabel(unit: InventoryUnit, size: string): string {
   if (unit === 'arcsec') return angleLabel(Number(size));

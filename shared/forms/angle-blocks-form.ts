@@ -29,3 +29,23 @@ export function toAngleBlocksRequest(values: AngleBlocksForm): CalcResult<Record
   }
   return succeed({ set: values.set, angle: values.angle });
 }
+
+/** The most blocks the engine combines (its search is exhaustive over the blocks given). */
+export const MAX_BOX_ANGLE_BLOCKS = 24;
+
+/** DMS text the engine reads for an angle block of a team's box, whose size is kept in seconds of arc ("0°27'0\""). */
+export function boxBlockAngle(arcSeconds: number): string {
+  const d = Math.floor(arcSeconds / 3600);
+  const m = Math.floor((arcSeconds % 3600) / 60);
+  return `${d}°${m}'${arcSeconds % 60}"`;
+}
+
+/**
+ * The blocks of a team's angle-block box the engine may use: each block in it (count less missing
+ * and damaged) as DMS text, at most {@link MAX_BOX_ANGLE_BLOCKS}. The inventory route and the
+ * angle-block page both solve with this list, so they give the same combination.
+ */
+export function boxBlockAngles(blocks: ReadonlyArray<{ size: string; available: number }>): string[] {
+  return blocks.flatMap((b) => Array.from({ length: Math.max(0, b.available) }, () => boxBlockAngle(Number(b.size)))).slice(0, MAX_BOX_ANGLE_BLOCKS);
+}
+

@@ -54,7 +54,9 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
     case 'lathe-taper':
       return has('define') ? succeed({ ...latheRequest(asForm<LatheTapersForm>(inputs)) }) : succeed(inputs);
     case 'angle-blocks':
-      return has('mode') ? toAngleBlocksRequest(asForm<AngleBlocksForm>(inputs)) : succeed(inputs);
+      if (!has('mode')) return succeed(inputs);
+      if (boxIdOf(asForm<AngleBlocksForm>(inputs).set) !== null) return openOnPage('A combination from one of the team\'s own angle-block boxes');
+      return toAngleBlocksRequest(asForm<AngleBlocksForm>(inputs));
     case 'pins-rolls':
       return succeed(overPinsRequestFromInputs(inputs));
     default:

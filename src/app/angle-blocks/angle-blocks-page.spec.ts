@@ -1,5 +1,19 @@
+import { HttpTestingController } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+
+import type { InventorySetDto } from '../../../shared/api/inventory';
 import { pageSpec } from '../workbench/testing/page-spec-harness';
 import AngleBlocksPage, { angleBlocksRequest } from './angle-blocks-page';
+
+/** An invented team box of three angle blocks (sizes in seconds of arc), the 1° block marked missing. */
+function box(missing1: number): InventorySetDto {
+  const block = (id: number, size: number, label: string, missing = 0) => ({ id, size: String(size), label, count: 1, missing, damaged: 0, available: 1 - missing, note: '' });
+  return {
+    id: 2, type: 'angle-blocks', name: 'Bench box', unit: 'arcsec', standardSet: null, grade: null, wearBlockSize: null, wearBlockCount: 0, notes: '', version: 1,
+    totals: { sizes: 3, blocks: 3, missing: missing1, damaged: 0, available: 3 - missing1 },
+    blocks: [block(1, 54_000, '15°'), block(2, 10_800, '3°'), block(3, 3_600, '1°', missing1)],
+  } as InventorySetDto;
+}
 
 describe('AngleBlocksPage', () => {
   const page = pageSpec(AngleBlocksPage, 'angle-blocks');
@@ -58,6 +72,38 @@ describe('AngleBlocksPage', () => {
     it('should refuse a block the set does not hold', () => {
       const r = angleBlocksRequest({ mode: 'total', set: 'angle-13-npl', angle: '', combination: '41° + 5°' });
       expect(r).toMatchObject({ ok: false, fields: { 'combination.1.angle': expect.stringContaining('not (or no longer) in the set') } });
+    });
+  });
+
+  describe('with one of the team\'s boxes', () => {
+    let http: HttpTestingController;
+    afterEach(() => http.verify());
+
+    async function openWithBox(missing1: number, url: string): Promise<void> {
+      await page.open(url, { signedIn: true });
+      http = TestBed.inject(HttpTestingController);
+      http.expectOne('/api/inventories/angle-sets/2').flush(box(missing1));
+      http.expectOne('/api/inventories').flush({ gaugeSets: [], angleSets: [{ ...box(missing1), blocks: undefined }] });
+      await page.settle();
+    }
+
+    it('should make 17° from the blocks in the box: 15° + 3° − 1° (derived)', async () => {
+      await openWithBox(0, `/angle-blocks?set=box:2&angle=17`);
+      expect(page.resultValue('Blocks')).toBe('15° + 3° − 1°');
+      expect(page.resultValue('Error')).toBe('0.00');
+      expect(page.el.textContent).toContain('3 of 3 blocks usable');
+    });
+
+    it('should leave the missing 1° block out and give the nearest the box can make, 18° (derived)', async () => {
+      await openWithBox(1, `/angle-blocks?set=box:2&angle=17`);
+      expect(page.resultValue('Blocks')).toBe('15° + 3°');
+      expect(page.resultValue('Angle the blocks make')).toBe(`18°00'00"`);
+      expect(page.el.textContent).toContain('2 of 3 blocks usable (1 missing)');
+    });
+
+    it('should refuse a typed combination that uses the missing block', async () => {
+      await openWithBox(1, `/angle-blocks?set=box:2&mode=total&combination=${encodeURIComponent('15° + 3° − 1°')}`);
+      expect(page.fieldErrors()).toContain('not (or no longer) in the set');
     });
   });
 });

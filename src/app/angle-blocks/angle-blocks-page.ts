@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
@@ -10,7 +10,10 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import { startWith } from 'rxjs';
 
 import { type AngleBlocksResult, calculateAngleBlocks } from '../../../shared/calc/angle-blocks';
-import type { CalcResult } from '../../../shared/calc/step';
+import { type CalcResult, invalid } from '../../../shared/calc/step';
+import { boxIdOf } from '../../../shared/forms/gauge-blocks-form';
+import { Auth } from '../core/auth';
+import { InventoryApi } from '../inventory/inventory-api';
 import { ANGLE_BLOCK_SETS } from '../../../shared/data/angle-block-sets';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -24,7 +27,7 @@ import { WarningList } from '../workbench/warning-list';
 import { AngleStackDrawing } from './angle-stack-drawing';
 import type { StackBlockInput } from './angle-stack-geometry';
 import { compactAngle, formatCombination } from '../../../shared/forms/combination-text';
-import { type AngleBlocksForm, type AngleBlocksMode, toAngleBlocksRequest } from '../../../shared/forms/angle-blocks-form';
+import { type AngleBlocksForm, type AngleBlocksMode, boxBlockAngles, toAngleBlocksRequest } from '../../../shared/forms/angle-blocks-form';
 
 export type { AngleBlocksForm, AngleBlocksMode } from '../../../shared/forms/angle-blocks-form';
 
@@ -43,10 +46,33 @@ export const ANGLE_BLOCK_CAUTIONS: readonly string[] = [
   'Keep the table, vise, blocks and work clean and free of chips, nicks and burrs (US Army TM 1-1500-204-23-8, machine-tool safety).',
 ];
 
-/** Runs the engine on the form's request, or gives the failure naming the field. */
-export function angleBlocksRequest(values: AngleBlocksForm): CalcResult<AngleBlocksResult> {
-  const request = toAngleBlocksRequest(values);
-  return request.ok ? calculateAngleBlocks(request.value) : request;
+/** The usable blocks (DMS text) of each of the team's angle-block boxes loaded so far, by box id. */
+export type BoxBlocks = ReadonlyMap<number, readonly string[]>;
+
+/**
+ * Runs the engine on the form's request, or gives the failure naming the field. With one of the
+ * team's boxes (`box:<id>`), the engine gets the blocks that are in it — count less missing and
+ * damaged, as the inventory route solves — so a missing block is never used, and a typed
+ * combination is checked against the box.
+ */
+export function angleBlocksRequest(values: AngleBlocksForm, boxes: BoxBlocks = new Map()): CalcResult<AngleBlocksResult> {
+  const boxId = boxIdOf(values.set);
+  const request = toAngleBlocksRequest(boxId === null ? values : { ...values, set: '' });
+  if (!request.ok) return request;
+  if (boxId === null) return calculateAngleBlocks(request.value);
+  const blocks = boxes.get(boxId);
+  if (!blocks) return invalid('Angle blocks', 'set', 'is one of your team\'s boxes: its blocks are still loading');
+  if (blocks.length === 0) return invalid('Angle blocks', 'set', 'has every block marked missing or damaged');
+  const { set: _set, ...rest } = request.value;
+  return calculateAngleBlocks({ ...rest, blocks });
+}
+
+/** One of the team's angle-block boxes in the set picker. */
+interface OwnAngleBox {
+  readonly value: string;
+  readonly label: string;
+  /** "15 of 16 blocks usable (1 missing)". */
+  readonly note: string;
 }
 
 /** The angle-block page: the fewest blocks for an angle, or the angle a combination makes. */
@@ -75,7 +101,13 @@ export default class AngleBlocksPage {
   protected readonly sets = ANGLE_BLOCK_SETS;
   protected readonly cautions = ANGLE_BLOCK_CAUTIONS;
   protected readonly query = bindQueryState(this.form, 'angle-blocks');
-  protected readonly calc = liveCalc<AngleBlocksForm, AngleBlocksResult>(this.form, angleBlocksRequest);
+  /** Blocks of the team's boxes, loaded when a box is chosen. */
+  private readonly boxBlocks = new Map<number, readonly string[]>();
+  protected readonly calc = liveCalc<AngleBlocksForm, AngleBlocksResult>(this.form, (v) => angleBlocksRequest(v, this.boxBlocks));
+  /** The signed-in team's angle-block boxes (none for a visitor). */
+  protected readonly ownBoxes = signal<readonly OwnAngleBox[]>([]);
+  private readonly inventory = inject(InventoryApi);
+  private readonly auth = inject(Auth);
   protected readonly controlMessage = controlMessage;
 
   private readonly values = toSignal(this.form.valueChanges.pipe(startWith(null)), { initialValue: null });
@@ -94,6 +126,43 @@ export default class AngleBlocksPage {
     this.values();
     return ANGLE_BLOCK_SETS.find((s) => s.id === this.form.controls.set.value) ?? null;
   });
+  /** The chosen team box, for its note. */
+  protected readonly chosenBox = computed(() => {
+    this.values();
+    return this.ownBoxes().find((b) => b.value === this.form.controls.set.value) ?? null;
+  });
+
+  constructor() {
+    // Signed in: the team's boxes join the picker; choosing one loads what is in it and recomputes.
+    effect(() => {
+      if (!this.auth.user()) {
+        this.ownBoxes.set([]);
+        return;
+      }
+      this.inventory.list().subscribe({
+        next: (l) => this.ownBoxes.set(l.angleSets.map((b) => ({
+          value: `box:${b.id}`,
+          label: `Our box: ${b.name}`,
+          note: `${b.totals.available} of ${b.totals.blocks} blocks usable${b.totals.missing + b.totals.damaged ? ` (${[b.totals.missing ? `${b.totals.missing} missing` : '', b.totals.damaged ? `${b.totals.damaged} damaged` : ''].filter(Boolean).join(', ')})` : ''}`,
+        }))),
+        error: () => this.ownBoxes.set([]),
+      });
+    });
+    this.form.controls.set.valueChanges.pipe(startWith(this.form.controls.set.value), takeUntilDestroyed()).subscribe((set) => this.loadBox(set));
+  }
+
+  /** Loads a team box's usable blocks once, then recomputes with them. */
+  private loadBox(set: string): void {
+    const id = boxIdOf(set);
+    if (id === null || this.boxBlocks.has(id)) return;
+    this.inventory.get('angle-blocks', id).subscribe({
+      next: (box) => {
+        this.boxBlocks.set(id, boxBlockAngles(box.blocks ?? []));
+        this.form.updateValueAndValidity();
+      },
+      error: () => this.form.controls.set.setValue(ANGLE_BLOCKS_DEFAULTS.set),
+    });
+  }
 
   /** The blocks for the drawing, from the plate upward. */
   protected readonly stack = computed<StackBlockInput[]>(() => {

@@ -122,6 +122,11 @@ describe('a set-up saved from its calculator page', () => {
       if (!page.ok) return;
       expect(value(saved('angle-blocks', form))).toEqual(page.value);
     });
+    it('should send a combination from one of the team\'s boxes to its page', () => {
+      const r = saved('angle-blocks', { ...ANGLE_BLOCKS_DEFAULTS, set: 'box:2' });
+      expect(r.ok ? '' : r.error).toMatch(/team's own angle-block boxes: open the set-up in its calculator/);
+    });
+
     it('should name the combination when it cannot be read', () => {
       const r = saved('angle-blocks', { ...ANGLE_BLOCKS_DEFAULTS, mode: 'total', combination: '27° + banana' });
       expect(r.ok ? '' : r.error).toMatch(/^Angle blocks: combination/);
