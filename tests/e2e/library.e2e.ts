@@ -136,7 +136,10 @@ describe('set-up library, end to end', () => {
     await page.setViewportSize(TABLET);
     await screenshot(page, 'batch-run-768');
     await page.setViewportSize(DESKTOP);
+    // Closing asks first (a closed run cannot be reopened).
+    const asked = new Promise<string>((resolve) => page.once('dialog', (d) => { resolve(d.message()); void d.accept(); }));
     await page.getByRole('button', { name: 'Close run' }).click();
+    expect(await asked).toMatch(/^Close run ".+" with \d+ of \d+ parts recorded\?/);
     await page.getByText('Closed', { exact: true }).waitFor();
     await expect(page.getByRole('button', { name: /Record part/ }).count()).resolves.toBe(0);
 

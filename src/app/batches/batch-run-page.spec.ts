@@ -52,6 +52,34 @@ describe('BatchRunPage', () => {
     await fixture.whenStable();
   }
 
+  it('should close the run only after asking, and show it closed', async () => {
+    await open(run([[1, '0.5856', true]]));
+    const closeButton = () => Array.from(el().querySelectorAll('button')).find((b) => b.textContent?.includes('Close run')) as HTMLButtonElement;
+    const ask = jest.spyOn(window, 'confirm').mockReturnValueOnce(false);
+    closeButton().click();
+    expect(ask).toHaveBeenCalledWith(expect.stringMatching(/^Close run ".+" with 1 of \d+ parts recorded\? A closed run is kept as it is/));
+    http.expectNone('/api/batches/3/close');
+    ask.mockReturnValueOnce(true);
+    closeButton().click();
+    http.expectOne('/api/batches/3/close').flush(run([[1, '0.5856', true]], 'closed'));
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(closeButton()).toBeUndefined();
+    ask.mockRestore();
+  });
+
+  it('should show the run as it is when someone else closed it first', async () => {
+    await open(run([[1, '0.5856', true]]));
+    const ask = jest.spyOn(window, 'confirm').mockReturnValue(true);
+    (Array.from(el().querySelectorAll('button')).find((b) => b.textContent?.includes('Close run')) as HTMLButtonElement).click();
+    http.expectOne('/api/batches/3/close').flush({ error: 'This batch run is already closed.' }, { status: 409, statusText: 'Conflict' });
+    http.expectOne('/api/batches/3').flush(run([[1, '0.5856', true]], 'closed'));
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(Array.from(el().querySelectorAll('button')).some((b) => b.textContent?.includes('Close run'))).toBe(false);
+    ask.mockRestore();
+  });
+
   it('should show each part with a pass or fail chip, the spread and a chart', async () => {
     await open(run([[1, '0.5856', true], [2, '0.5870', false]]));
     expect(Array.from(el().querySelectorAll('.verdict')).map((v) => v.textContent)).toEqual(['Pass', 'Fail']);

@@ -115,9 +115,15 @@ export default class BatchRunPage {
     });
   }
 
+  /** Closes the run after asking (it cannot be reopened); if someone closed it meanwhile, shows it as it is now. */
   protected close(): void {
     const r = this.run();
     if (!r) return;
-    this.api.close(r.id).subscribe((fresh) => this.run.set(fresh));
+    const entered = r.parts?.length ?? 0;
+    if (!confirm(`Close run "${r.label || r.setupName}" with ${entered} of ${r.partCount} parts recorded? A closed run is kept as it is: no part can be added or corrected.`)) return;
+    this.api.close(r.id).subscribe({
+      next: (fresh) => this.run.set(fresh),
+      error: () => this.api.get(r.id).subscribe({ next: (fresh) => this.run.set(fresh), error: () => undefined }),
+    });
   }
 }
