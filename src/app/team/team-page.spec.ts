@@ -47,6 +47,33 @@ describe('TeamPage', () => {
     expect(el.textContent).toContain('Dev mailbox');
   });
 
+  it('should change a role only after asking, put the picker back when not, and say what was done', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] });
+    await settle();
+    const page = fixture.componentInstance as unknown as { setRole(m: unknown, role: string, picker: { value: unknown }): Promise<void> };
+    const sam = member(4, 'Sam Okafor', 'apprentice');
+    const picker = { value: 'lead' as unknown };
+    const ask = jest.spyOn(window, 'confirm').mockReturnValueOnce(false);
+    await page.setRole(sam, 'lead', picker);
+    expect(ask).toHaveBeenCalledWith(expect.stringMatching(/^Change Sam Okafor's role from Apprentice to Lead hand\?/));
+    http.expectNone('/api/team/members/4');
+    expect(picker.value).toBe('apprentice');
+    ask.mockReturnValueOnce(true);
+    const done = page.setRole(sam, 'lead', picker);
+    const req = http.expectOne('/api/team/members/4');
+    expect(req.request.body).toEqual({ role: 'lead' });
+    req.flush({ ...sam, role: 'lead' });
+    await done;
+    await settle();
+    expect(el.querySelector('p[role="status"]')?.textContent).toContain('Sam Okafor is now Lead hand.');
+    ask.mockRestore();
+  });
+
   it('should offer admins, and only admins, the download of all team data', async () => {
     await open(ADMIN);
     http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });

@@ -51,10 +51,27 @@ export default class TeamPage {
     void this.load();
   }
 
-  /** Changes a member's role. */
-  protected async setRole(member: MemberDto, role: Role): Promise<void> {
-    const updated = await firstValueFrom(this.api.updateMember(member.id, { role }));
-    this.members.update((list) => list.map((m) => (m.id === updated.id ? updated : m)));
+  /** What the last role change did, for the status line under the members. */
+  protected readonly memberMessage = signal<string | null>(null);
+
+  /**
+   * Changes a member's role after asking (it takes effect on their next request, everywhere). When
+   * the change is not made, the picker goes back to the role the member has.
+   */
+  protected async setRole(member: MemberDto, role: Role, picker?: { value: unknown }): Promise<void> {
+    this.memberMessage.set(null);
+    if (!confirm(`Change ${member.name}'s role from ${ROLE_LABELS[member.role]} to ${ROLE_LABELS[role]}? It takes effect at once, on every device they use.`)) {
+      if (picker) picker.value = member.role;
+      return;
+    }
+    try {
+      const updated = await firstValueFrom(this.api.updateMember(member.id, { role }));
+      this.members.update((list) => list.map((m) => (m.id === updated.id ? updated : m)));
+      this.memberMessage.set(`${updated.name} is now ${ROLE_LABELS[updated.role]}.`);
+    } catch (err) {
+      if (picker) picker.value = member.role;
+      this.memberMessage.set(apiErrorMessage(err));
+    }
   }
 
   /** Deactivates (signing the member out everywhere at once) or reactivates a member. */
