@@ -33,14 +33,19 @@ describe('TeamPage', () => {
     await fixture.whenStable();
   }
 
-  it('should list members with deactivate buttons for an admin, and load invitations and the mailbox', async () => {
+  /** Opens the page as the admin and answers its three loads: the members given, no invitations, an empty mailbox. */
+  async function openAsAdmin(members: ReturnType<typeof member>[]): Promise<void> {
     await open(ADMIN);
-    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
+    http.expectOne('/api/team/members').flush({ members });
     await settle();
     http.expectOne('/api/team/invitations').flush({ invitations: [] });
     await settle();
     http.expectOne('/api/team/mailbox').flush({ messages: [] });
     await settle();
+  }
+
+  it('should list members with deactivate buttons for an admin, and load invitations and the mailbox', async () => {
+    await openAsAdmin([member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')]);
     expect(el.textContent).toContain('Sam Okafor');
     const buttons = Array.from(el.querySelectorAll('button')).map((b) => b.textContent?.trim());
     expect(buttons.some((t) => t?.includes('Deactivate'))).toBe(true);
@@ -48,13 +53,7 @@ describe('TeamPage', () => {
   });
 
   it('should change a role only after asking, put the picker back when not, and say what was done', async () => {
-    await open(ADMIN);
-    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')] });
-    await settle();
-    http.expectOne('/api/team/invitations').flush({ invitations: [] });
-    await settle();
-    http.expectOne('/api/team/mailbox').flush({ messages: [] });
-    await settle();
+    await openAsAdmin([member(1, 'Mara Lindqvist', 'admin'), member(4, 'Sam Okafor', 'apprentice')]);
     const page = fixture.componentInstance as unknown as { setRole(m: unknown, role: string, picker: { value: unknown }): Promise<void> };
     const sam = member(4, 'Sam Okafor', 'apprentice');
     const picker = { value: 'lead' as unknown };
@@ -75,13 +74,7 @@ describe('TeamPage', () => {
   });
 
   it('should offer admins, and only admins, the download of all team data', async () => {
-    await open(ADMIN);
-    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });
-    await settle();
-    http.expectOne('/api/team/invitations').flush({ invitations: [] });
-    await settle();
-    http.expectOne('/api/team/mailbox').flush({ messages: [] });
-    await settle();
+    await openAsAdmin([member(1, 'Mara Lindqvist', 'admin')]);
     const link = el.querySelector<HTMLAnchorElement>('a[href="/api/team/export"]');
     expect(link?.textContent).toContain('Download all team data');
     expect(link?.hasAttribute('download')).toBe(true);
