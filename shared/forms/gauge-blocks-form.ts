@@ -3,6 +3,7 @@
  * saved from that page keeps the form as its inputs; its results and sheet make the same request.
  */
 import type { GaugeStackRequest } from '../api/calc';
+import { sizeList } from './form-text';
 
 /** The gauge-block form's values: all text, as typed. */
 export type GaugeBlocksFormValues = {
@@ -22,12 +23,6 @@ export type GaugeBlocksFormValues = {
 export function boxIdOf(set: string): number | null {
   const m = /^box:([1-9]\d{0,9})$/.exec(set);
   return m ? Number(m[1]) : null;
-}
-
-/** Sizes typed as a list → text entries, or undefined for none. */
-export function sizeList(text: string): string[] | undefined {
-  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
-  return sizes.length ? sizes : undefined;
 }
 
 /** The engine request for the form. */

@@ -5,6 +5,7 @@
  * always show the same answer.
  */
 import type { LengthUnit } from '../units/length-unit';
+import { savedForm } from './form-text';
 
 /** What is measured. */
 export type RollKind = 'dovetail' | 'v-groove' | 'dovetail-angle' | 'taper-two-heights' | 'taper-discs' | 'taper-balls';
@@ -106,6 +107,16 @@ export function overPinsRequest(v: PinsRollsForm): OverPinsRequest {
 const FORM_ONLY = ['mode', 'lowerReading', 'upperReading', 'discGiven', 'discTaperPerFoot', 'discAngle', 'reading', 'pinHeight'] as const;
 
 /**
+ * Check mode of a dovetail or a V-groove: the request from the reading measured on the work (the
+ * dovetail's `reading`, the pin's `pinHeight`) back to the work as it is now.
+ */
+export function checkReadingRequest(v: PinsRollsForm): Record<string, unknown> {
+  return v.kind === 'dovetail'
+    ? { kind: 'dovetail', unit: v.unit, side: v.side, angle: v.angle, rollDiameter: v.rollDiameter, depth: v.depth, measurement: v.reading }
+    : { kind: 'v-groove', unit: v.unit, includedAngle: v.includedAngle, pinDiameter: v.pinDiameter, measurement: v.pinHeight };
+}
+
+/**
  * The engine request for a saved set-up's inputs: a form saved from the page becomes the request
  * the page makes toward a reading (a dovetail or V-groove saved in check mode without a drawing
  * size: the request from its measured reading); inputs already in the engine's shape (saved
@@ -113,22 +124,8 @@ const FORM_ONLY = ['mode', 'lowerReading', 'upperReading', 'discGiven', 'discTap
  */
 export function overPinsRequestFromInputs(inputs: Record<string, unknown>): Record<string, unknown> {
   if (!FORM_ONLY.some((key) => key in inputs)) return inputs;
-  const text = (key: keyof PinsRollsForm) => (typeof inputs[key] === 'string' ? (inputs[key] as string) : '');
-  const form = Object.fromEntries(Object.keys(EMPTY_FORM).map((key) => [key, text(key as keyof PinsRollsForm)])) as unknown as PinsRollsForm;
-  const { request } = overPinsRequest(form);
-  if (form.mode === 'check' && form.kind === 'dovetail' && !form.width.trim()) {
-    return { kind: 'dovetail', unit: form.unit, side: form.side, angle: form.angle, rollDiameter: form.rollDiameter, depth: form.depth, measurement: form.reading };
-  }
-  if (form.mode === 'check' && form.kind === 'v-groove' && !form.grooveWidth.trim()) {
-    return { kind: 'v-groove', unit: form.unit, includedAngle: form.includedAngle, pinDiameter: form.pinDiameter, measurement: form.pinHeight };
-  }
-  return request;
+  const form = savedForm<PinsRollsForm>(inputs);
+  const drawingSize = form.kind === 'dovetail' ? form.width : form.kind === 'v-groove' ? form.grooveWidth : 'n/a';
+  if (form.mode === 'check' && !drawingSize.trim()) return checkReadingRequest(form);
+  return overPinsRequest(form).request;
 }
-
-/** Every field of the form (values unused: the list of keys). */
-const EMPTY_FORM: Record<keyof PinsRollsForm, ''> = {
-  unit: '', kind: '', mode: '', side: '', angle: '', rollDiameter: '', width: '', depth: '', reading: '', includedAngle: '', pinDiameter: '',
-  grooveWidth: '', pinHeight: '', rollDiameter1: '', measurement1: '', rollDiameter2: '', measurement2: '', lowerReading: '', upperReading: '',
-  heightDifference: '', largeDisc: '', smallDisc: '', discGiven: '', centreDistance: '', discTaperPerFoot: '', discAngle: '', reference: '',
-  largeBall: '', smallBall: '', largeBallDepth: '', smallBallDepth: '',
-};

@@ -4,6 +4,7 @@
  * request from it.
  */
 import type { SineBarRequest } from '../api/calc';
+import { sizeList } from './form-text';
 
 /** The sine-bar form's values: all text, as typed. */
 export type SineBarFormValues = {
@@ -26,12 +27,6 @@ export type SineBarFormValues = {
   lengthB: string;
 };
 
-/** Sizes typed as a list ("0.1001, 0.125 0.5") → text entries; empty text → none. */
-export function parseSizeList(text: string): string[] | undefined {
-  const sizes = text.split(/[\s,;]+/).filter((s) => s !== '');
-  return sizes.length ? sizes : undefined;
-}
-
 /** The engine request: the angle or the stack, the set (or none) and the missing blocks. */
 export function toSineBarRequest(values: SineBarFormValues): SineBarRequest {
   const byAngle = values.mode !== 'stack';
@@ -41,6 +36,6 @@ export function toSineBarRequest(values: SineBarFormValues): SineBarRequest {
     angle: byAngle ? values.angle : undefined,
     stackHeight: byAngle ? undefined : values.stackHeight,
     set: values.set || undefined,
-    missing: values.set ? parseSizeList(values.missing) : undefined,
+    missing: values.set ? sizeList(values.missing) : undefined,
   };
 }

@@ -1,18 +1,11 @@
 import { type CalcResult, fail, succeed } from '../calc/step';
+import { savedForm } from '../forms/form-text';
 import { type AngleBlocksForm, toAngleBlocksRequest } from '../forms/angle-blocks-form';
 import { type GaugeBlocksFormValues, boxIdOf, toGaugeStackRequest } from '../forms/gauge-blocks-form';
 import { type LatheTapersForm, latheRequest } from '../forms/lathe-taper-form';
 import { overPinsRequestFromInputs } from '../forms/pins-rolls-form';
 import { type SineBarFormValues, toSineBarRequest } from '../forms/sine-bar-form';
 import { type TaperFormValues, toTaperRequest } from '../forms/taper-form';
-
-/**
- * A saved form read field by field: each field's text, or '' where the saved inputs have none
- * (a set-up saved before a field was added, or imported with fewer fields).
- */
-function asForm<T>(inputs: Record<string, unknown>): T {
-  return new Proxy({}, { get: (_target, key) => (typeof key === 'string' && typeof inputs[key] === 'string' ? inputs[key] : '') }) as T;
-}
 
 /** A gauge-block form saved from its page: every field of it, as text (the engine takes a list of missing blocks). */
 function isGaugeForm(inputs: Record<string, unknown>): boolean {
@@ -34,10 +27,10 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
   const has = (key: string) => typeof inputs[key] === 'string';
   switch (kind) {
     case 'taper':
-      return has('given') ? succeed({ ...toTaperRequest(asForm<TaperFormValues>(inputs)) }) : succeed(inputs);
+      return has('given') ? succeed({ ...toTaperRequest(savedForm<TaperFormValues>(inputs)) }) : succeed(inputs);
     case 'sine-bar': {
       if (!has('mode')) return succeed(inputs);
-      const form = asForm<SineBarFormValues>(inputs);
+      const form = savedForm<SineBarFormValues>(inputs);
       if (form.mode === 'table') return openOnPage('A table of sine-bar stacks');
       if (form.mode === 'compound') return openOnPage('A compound sine plate');
       // With one of the team's own boxes, the page works out the stack without a set and asks the
@@ -47,16 +40,16 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
     }
     case 'gauge-blocks': {
       if (!isGaugeForm(inputs)) return succeed(inputs);
-      const form = asForm<GaugeBlocksFormValues>(inputs);
+      const form = savedForm<GaugeBlocksFormValues>(inputs);
       if (boxIdOf(form.set) !== null) return openOnPage('A stack from one of the team\'s own gauge-block boxes');
       return succeed({ ...toGaugeStackRequest(form) });
     }
     case 'lathe-taper':
-      return has('define') ? succeed({ ...latheRequest(asForm<LatheTapersForm>(inputs)) }) : succeed(inputs);
+      return has('define') ? succeed({ ...latheRequest(savedForm<LatheTapersForm>(inputs)) }) : succeed(inputs);
     case 'angle-blocks':
       if (!has('mode')) return succeed(inputs);
-      if (boxIdOf(asForm<AngleBlocksForm>(inputs).set) !== null) return openOnPage('A combination from one of the team\'s own angle-block boxes');
-      return toAngleBlocksRequest(asForm<AngleBlocksForm>(inputs));
+      if (boxIdOf(savedForm<AngleBlocksForm>(inputs).set) !== null) return openOnPage('A combination from one of the team\'s own angle-block boxes');
+      return toAngleBlocksRequest(savedForm<AngleBlocksForm>(inputs));
     case 'pins-rolls':
       return succeed(overPinsRequestFromInputs(inputs));
     default:

@@ -9,7 +9,7 @@ import type { GaugeBlockPiece, GaugeStackSceneInput } from './gauge-stack-scene'
 import { type BoxStackQuery, boxIdOf } from './own-boxes';
 import { type GaugeBlocksFormValues, toGaugeStackRequest } from '../../../shared/forms/gauge-blocks-form';
 
-export { sizeList, toGaugeStackRequest, type GaugeBlocksFormValues } from '../../../shared/forms/gauge-blocks-form';
+export { toGaugeStackRequest, type GaugeBlocksFormValues } from '../../../shared/forms/gauge-blocks-form';
 
 /** Defaults from the demo scenario: the 1.2519 in stack under the 5 in sine plate at 14°30', from the 81-piece set. */
 export const GAUGE_BLOCKS_DEFAULTS: GaugeBlocksFormValues = {

@@ -8,7 +8,7 @@ import { type OverPinsResult, calculateOverPins } from '../../../shared/calc/ove
 import { Dec } from '../../../shared/calc/decimal-math';
 import { type CalcFailure, type CalcResult, type Step, invalid, step, succeed } from '../../../shared/calc/step';
 import { formatLength } from '../../../shared/units/length-unit';
-import { type PinsRollsForm, overPinsRequest } from '../../../shared/forms/pins-rolls-form';
+import { type PinsRollsForm, checkReadingRequest, overPinsRequest } from '../../../shared/forms/pins-rolls-form';
 
 export type { DiscGiven, DovetailSide, PinsRollsForm, RollKind, RollMode } from '../../../shared/forms/pins-rolls-form';
 
@@ -92,16 +92,15 @@ function single(result: CalcResult<OverPinsResult>): CalcResult<PinsOutcome> {
  */
 function check(v: PinsRollsForm): CalcResult<PinsOutcome> {
   const dovetail = v.kind === 'dovetail';
-  const base = dovetail
-    ? { kind: 'dovetail', unit: v.unit, side: v.side, angle: v.angle, rollDiameter: v.rollDiameter, depth: v.depth }
-    : { kind: 'v-groove', unit: v.unit, includedAngle: v.includedAngle, pinDiameter: v.pinDiameter };
   const readingControl = dovetail ? 'reading' : 'pinHeight';
   const sizeControl = dovetail ? 'width' : 'grooveWidth';
   if (!(dovetail ? v.reading : v.pinHeight).trim()) return invalid('Over pins', readingControl, 'is required: type the reading you measured');
-  const now = run({ ...base, measurement: dovetail ? v.reading : v.pinHeight }, { measurement: readingControl, width: readingControl, grooveWidth: readingControl });
+  const reading = checkReadingRequest(v);
+  const now = run(reading, { measurement: readingControl, width: readingControl, grooveWidth: readingControl });
   if (!now.ok) return now;
   const size = dovetail ? v.width : v.grooveWidth;
   if (!size.trim()) return single(now);
+  const { measurement: _reading, ...base } = reading;
   const target = run({ ...base, [sizeControl]: size }, { measurement: sizeControl, rollDiameter: 'rollDiameter' });
   if (!target.ok) return target;
   const unit = now.value.unit;

@@ -7,7 +7,7 @@ import {
 } from '../../../shared/calc/sine-bar';
 import { type CalcResult, type Step, invalid, succeed } from '../../../shared/calc/step';
 import type { ResultItem } from '../workbench/result-list';
-import { type SineBarFormValues, parseSizeList, sineBarResultItems, toSineBarRequest } from './sine-bar-form';
+import { type SineBarFormValues, sizeList, sineBarResultItems, toSineBarRequest } from './sine-bar-form';
 import type { SineBarSceneInput } from './sine-bar-scene';
 
 /** What the page works out: one setting (from an angle or a stack), a table over a range, or a compound plate. */
@@ -76,14 +76,14 @@ export function toSineTableRequest(v: SineBarFormValues) {
     to: v.tableTo,
     step: v.tableStep,
     set: v.set || undefined,
-    missing: v.set ? parseSizeList(v.missing) : undefined,
+    missing: v.set ? sizeList(v.missing) : undefined,
   };
 }
 
 /** The fewest blocks of the chosen box for a stack, as marked; null without a set or when unreachable. */
 function blocksFor(v: SineBarFormValues, stack: string): CalcResult<string[] | null> {
   if (!v.set) return succeed(null);
-  const boxed = resolveBox('Compound sine plate', { set: v.set, missing: parseSizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
+  const boxed = resolveBox('Compound sine plate', { set: v.set, missing: sizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
   if (!boxed.ok) return boxed;
   const H = new Dec(stack);
   if (H.isZero()) return succeed([]);
@@ -126,7 +126,7 @@ export function runSineBar(v: SineBarFormValues): CalcResult<SineBarOutcome> {
     // With a set, each stack is rounded to the box's finest step so the blocks can make it.
     let resolution: string | undefined;
     if (v.set) {
-      const boxed = resolveBox('Compound sine plate', { set: v.set, missing: parseSizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
+      const boxed = resolveBox('Compound sine plate', { set: v.set, missing: sizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
       if (boxed.ok) resolution = boxed.value.step.toString();
     }
     const byAngles = v.compoundBy !== 'stacks';
