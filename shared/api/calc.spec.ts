@@ -14,6 +14,13 @@ describe('calc request schemas', () => {
     expect(decimalValue.safeParse(Number.POSITIVE_INFINITY).success).toBe(false);
   });
 
+  it('should say a required number left empty is empty, and show text that is not a number', () => {
+    const empty = parseRequest('Sine bar', sineBarRequestSchema, { unit: 'in', barLength: '  ', angle: '10' });
+    expect(empty.ok || empty.fields.barLength).toBe('is empty; type a number, e.g. 0.750');
+    const wrong = parseRequest('Sine bar', sineBarRequestSchema, { unit: 'in', barLength: '5 in', angle: '10' });
+    expect(wrong.ok || wrong.fields.barLength).toBe('must be a decimal number such as 0.750, got "5 in"');
+  });
+
   it('should treat null and "" as not given for optional fields', () => {
     const r = parseRequest('Taper', taperRequestSchema, { unit: 'in', thickness: 1, angle: 5, taperLength: '', faceLength: null });
     expect(r.ok && [r.value.taperLength, r.value.faceLength]).toEqual([undefined, undefined]);

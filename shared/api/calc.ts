@@ -20,7 +20,8 @@ export const decimalValue = z
   .union([z.number(), z.string()], { error: 'must be a number, e.g. 0.750' })
   .transform((value, ctx) => {
     if (typeof value === 'string' && !DECIMAL_TEXT.test(value)) {
-      ctx.addIssue({ code: 'custom', message: `must be a decimal number such as 0.750, got "${value}"` });
+      const message = value.trim() === '' ? 'is empty; type a number, e.g. 0.750' : `must be a decimal number such as 0.750, got "${value}"`;
+      ctx.addIssue({ code: 'custom', message });
       return z.NEVER;
     }
     return new Dec(typeof value === 'string' ? value.trim() : value);
