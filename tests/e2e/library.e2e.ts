@@ -120,12 +120,23 @@ describe('set-up library, end to end', () => {
     await page.getByLabel('Parts').fill('3');
     await page.getByRole('button', { name: 'Start a batch run' }).click();
     await page.waitForURL(/\/batches\/\d+$/);
-    for (const [i, value] of ['0.5856', '0.5850', '0.5871'].entries()) {
+    // Part 2 is mistyped (0.5805 for 0.5850) and corrected once the run is full.
+    for (const [i, value] of ['0.5856', '0.5805', '0.5871'].entries()) {
       await page.getByLabel('DRO at stop').fill('-0.1632');
       await page.getByLabel('End thickness (in)').fill(value);
       await page.getByRole('button', { name: `Record part ${i + 1}` }).click();
       await page.locator('tbody tr').nth(i).getByText(value).waitFor();
     }
+    await expect(page.locator('.verdict').allTextContents()).resolves.toEqual(['Pass', 'Fail', 'Fail']);
+    await page.getByRole('button', { name: 'Correct part 2' }).click();
+    await expect(page.getByLabel('End thickness (in)').inputValue()).resolves.toBe('0.5805');
+    await page.getByLabel('End thickness (in)').fill('0.5850');
+    await page.getByLabel('Note').fill('reading mistyped at the machine');
+    await page.getByRole('button', { name: 'Save part 2' }).click();
+    await page.getByRole('status').getByText('Part 2 corrected.').waitFor();
+    await page.locator('tbody tr').nth(1).getByText('reading mistyped at the machine').waitFor();
+    await page.locator('tbody tr').nth(1).getByRole('cell', { name: '0.5850', exact: true }).waitFor();
+    await expect(page.locator('tbody tr').nth(1).getByRole('cell', { name: '0.5805', exact: true }).count()).resolves.toBe(0);
     await expect(page.locator('.verdict').allTextContents()).resolves.toEqual(['Pass', 'Pass', 'Fail']);
     // Readings 0.5856, 0.5850, 0.5871: range 0.0021, largest |x − 0.5856| = 0.0015 (derived).
     await page.locator('.figures').getByText('0.0021').waitFor();

@@ -28,9 +28,9 @@ describe('BatchRunPage', () => {
   let http: HttpTestingController;
   const el = () => fixture.nativeElement as HTMLElement;
 
-  async function open(dto: BatchRunDto): Promise<void> {
+  async function open(dto: BatchRunDto, user: AuthUser = ME): Promise<void> {
     TestBed.configureTestingModule({
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal(ME) } }],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal(user) } }],
     });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(BatchRunPage);
@@ -105,11 +105,73 @@ describe('BatchRunPage', () => {
     fixture.detectChanges();
     await fixture.whenStable();
     expect(el().querySelector('form h2')?.textContent).toBe('Part 3');
+    await settle();
+    // The fresh form for part 3 shows no box as wrong before anything is typed or sent.
+    expect(el().querySelectorAll('mat-form-field.mat-form-field-invalid')).toHaveLength(0);
+    expect(field('End thickness').value).toBe('');
   });
 
   it('should show a closed run read-only', async () => {
     await open(run([[1, '0.5856', true]], 'closed'));
     expect(el().querySelector('form')).toBeNull();
     expect(Array.from(el().querySelectorAll('button')).some((b) => b.textContent?.includes('Close run'))).toBe(false);
+  });
+
+  const button = (text: string) => Array.from(el().querySelectorAll('button')).find((b) => b.textContent?.includes(text)) as HTMLButtonElement | undefined;
+  const field = (label: string) =>
+    Array.from(el().querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')?.textContent?.includes(label))?.querySelector('input') as HTMLInputElement;
+  async function settle(): Promise<void> {
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  it('should load a recorded part into the form, put the corrected readings and go back to the next part', async () => {
+    await open(run([[1, '0.5856', true], [2, '0.5780', false]]));
+    el().querySelector<HTMLButtonElement>('button[aria-label="Correct part 2"]')!.click();
+    await settle();
+    expect(el().querySelector('form h2')?.textContent).toBe('Correct part 2');
+    expect(field('End thickness').value).toBe('0.5780');
+    await type('End thickness', '0.5860');
+    await type('Note', 'first reading mistyped');
+    button('Save part 2')!.click();
+    const req = http.expectOne('/api/batches/3/parts/2');
+    expect(req.request.method).toBe('PUT');
+    expect(req.request.body).toEqual({ touchOff: null, droAtStop: null, values: { 'end-thickness': '0.5860' }, note: 'first reading mistyped' });
+    req.flush({ part: { partNo: 2 }, run: run([[1, '0.5856', true], [2, '0.5860', true]]) });
+    await settle();
+    expect(el().querySelector('form h2')?.textContent).toBe('Part 3');
+    expect(field('End thickness').value).toBe('');
+    expect(el().querySelector('[role=status]')?.textContent).toBe('Part 2 corrected.');
+    expect(Array.from(el().querySelectorAll('.verdict')).map((v) => v.textContent)).toEqual(['Pass', 'Pass']);
+  });
+
+  it('should let a full run be corrected, show a refused reading beside its box, and cancel without saving', async () => {
+    await open(run([[1, '0.5856', true], [2, '0.5857', true], [3, '0.5858', true]]));
+    expect(el().querySelector('form')).toBeNull();
+    el().querySelector<HTMLButtonElement>('button[aria-label="Correct part 3"]')!.click();
+    await settle();
+    expect(el().querySelector('form h2')?.textContent).toBe('Correct part 3');
+    await type('End thickness', '0,5858');
+    button('Save part 3')!.click();
+    http
+      .expectOne('/api/batches/3/parts/3')
+      .flush({ error: 'End thickness must be a decimal number such as 0.1645.', fields: { 'values.end-thickness': 'Must be a decimal number such as 0.1645.' } }, { status: 400, statusText: 'Bad Request' });
+    await settle();
+    expect(el().querySelector('form mat-hint.error')?.textContent).toContain('Must be a decimal number');
+    button('Cancel')!.click();
+    await settle();
+    expect(el().querySelector('form')).toBeNull();
+    expect(el().querySelector('.caution')?.textContent).toContain('All 3 parts are recorded');
+  });
+
+  it('should offer no correction to an apprentice', async () => {
+    await open(run([[1, '0.5856', true]]), { id: 9, email: 'a@example.test', name: 'Sam', role: 'apprentice' });
+    expect(el().querySelector('form')).toBeNull();
+    expect(button('Correct')).toBeUndefined();
+  });
+
+  it('should offer no correction on a closed run', async () => {
+    await open(run([[1, '0.5856', true]], 'closed'));
+    expect(button('Correct')).toBeUndefined();
   });
 });

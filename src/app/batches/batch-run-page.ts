@@ -1,7 +1,8 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal, viewChild } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
-import { FormsModule } from '@angular/forms';
+import { FormsModule, NgForm } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -9,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 
-import type { BatchRunDto } from '../../../shared/api/batch';
+import type { BatchPartDto, BatchRunDto } from '../../../shared/api/batch';
 import { DECIMAL_TEXT } from '../../../shared/api/setup';
 import { inBand } from '../../../shared/batch/batch-stats';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
@@ -42,12 +43,15 @@ export default class BatchRunPage {
   /** Route parameter `:id`. */
   readonly id = input.required({ transform: numberAttribute });
 
+  private readonly form = viewChild(NgForm);
   protected readonly run = signal<BatchRunDto | null>(null);
   protected readonly loadError = signal<string | null>(null);
   protected readonly entry = signal<PartEntry>(EMPTY);
   protected readonly saving = signal(false);
   protected readonly saveError = signal<string | null>(null);
   protected readonly fieldErrors = signal<Readonly<Record<string, string>>>({});
+  /** What the last save did, for screen readers and a glance. */
+  protected readonly saved = signal('');
   protected readonly csvUrl = csvUrl;
 
   protected readonly isOpen = computed(() => this.run()?.status === 'open');
@@ -59,7 +63,13 @@ export default class BatchRunPage {
     return next;
   });
   protected readonly full = computed(() => !!this.run() && this.nextPart() > (this.run()?.partCount ?? 0));
-  protected readonly mayRecord = computed(() => this.isOpen() && !this.full() && this.auth.user()?.role !== 'apprentice');
+  /** The part being corrected (its readings loaded into the form), or null while recording the next part. */
+  protected readonly correcting = signal<number | null>(null);
+  /** Apprentices watch a run; everyone else records and corrects parts while it is open. */
+  protected readonly mayWrite = computed(() => this.isOpen() && !!this.auth.user() && this.auth.user()?.role !== 'apprentice');
+  protected readonly mayRecord = computed(() => this.mayWrite() && (this.correcting() !== null || !this.full()));
+  /** The part the form writes: the one being corrected, else the next one. */
+  protected readonly formPart = computed(() => this.correcting() ?? this.nextPart());
   protected readonly mayClose = computed(() => {
     const u = this.auth.user();
     const r = this.run();
@@ -93,24 +103,61 @@ export default class BatchRunPage {
     this.entry.update((e) => ({ ...e, [field]: value }));
   }
 
-  /** Records the next part; on success the form clears for the one after. */
+  /** Loads a recorded part's readings into the form to correct them. */
+  protected startCorrecting(part: BatchPartDto): void {
+    const values: Record<string, string> = {};
+    for (const [key, value] of Object.entries(part.values)) values[key] = String(value);
+    this.entry.set({ touchOff: part.touchOff ?? '', droAtStop: part.droAtStop ?? '', values, note: part.note ?? '' });
+    this.correcting.set(part.partNo);
+    this.saveError.set(null);
+    this.fieldErrors.set({});
+    document.getElementById('part-entry')?.scrollIntoView?.({ block: 'start' });
+    (document.querySelector('#part-entry input') as HTMLInputElement | null)?.focus();
+  }
+
+  /** Leaves a correction unsaved and goes back to the next part. */
+  protected cancelCorrecting(): void {
+    this.correcting.set(null);
+    this.fill(EMPTY);
+    this.saveError.set(null);
+    this.fieldErrors.set({});
+  }
+
+  /** Puts `entry` in the form as a fresh one: no box shows "required" until the next part is sent. */
+  private fill(entry: PartEntry): void {
+    this.entry.set(entry);
+    const controls: Record<string, string> = { touchOff: entry.touchOff, droAtStop: entry.droAtStop, note: entry.note };
+    for (const c of this.run()?.checks ?? []) controls[`v-${c.key}`] = entry.values[c.key] ?? '';
+    this.form()?.resetForm(controls);
+  }
+
+  /** Records the next part (or saves the correction of one); on success the form clears for the next part. */
   protected record(): void {
     const r = this.run();
     if (!r) return;
     const e = this.entry();
+    const partNo = this.correcting();
+    const writing = this.formPart();
     this.saving.set(true);
     this.saveError.set(null);
+    this.saved.set('');
     this.fieldErrors.set({});
-    this.api.addPart(r.id, { touchOff: e.touchOff || null, droAtStop: e.droAtStop || null, values: e.values, note: e.note || undefined }).subscribe({
+    const body = { touchOff: e.touchOff || null, droAtStop: e.droAtStop || null, values: e.values, note: partNo === null ? e.note || undefined : e.note };
+    const save = partNo === null ? this.api.addPart(r.id, body) : this.api.correctPart(r.id, partNo, body);
+    save.subscribe({
       next: (res) => {
         this.run.set(res.run);
-        this.entry.set({ ...EMPTY, touchOff: e.touchOff });
+        this.correcting.set(null);
+        this.fill(partNo === null ? { ...EMPTY, touchOff: e.touchOff } : EMPTY);
         this.saving.set(false);
+        this.saved.set(partNo === null ? `Part ${res.part?.partNo ?? writing} recorded.` : `Part ${partNo} corrected.`);
       },
       error: (err: unknown) => {
         this.saving.set(false);
         this.fieldErrors.set(apiFieldErrors(err));
         this.saveError.set(apiErrorMessage(err));
+        // Closed meanwhile by someone else: show the run as it is now (the form goes).
+        if (err instanceof HttpErrorResponse && err.status === 409 && !Object.keys(apiFieldErrors(err)).length) this.load(r.id);
       },
     });
   }

@@ -39,6 +39,13 @@ export class BatchesApi {
     return this.http.post<{ part: BatchPartDto; run: unknown }>(`/api/batches/${runId}/parts`, body, { context: quietErrors() }).pipe(map((r) => ({ part: r.part, run: parseRun(r.run) })));
   }
 
+  /** Replaces the readings of a part already recorded (a mistyped reading); field errors come back as for addPart. */
+  correctPart(runId: number, partNo: number, body: BatchPartBody): Observable<{ part: BatchPartDto; run: BatchRunDto }> {
+    return this.http
+      .put<{ part: BatchPartDto; run: unknown }>(`/api/batches/${runId}/parts/${partNo}`, body, { context: quietErrors() })
+      .pipe(map((r) => ({ part: r.part, run: parseRun(r.run) })));
+  }
+
   close(runId: number): Observable<BatchRunDto> {
     return this.http.post<unknown>(`/api/batches/${runId}/close`, {}).pipe(map(parseRun));
   }
