@@ -53,6 +53,14 @@ describe('set-up library, end to end', () => {
     const page = machinist.page;
     await page.goto('/library');
     await page.getByLabel('Search name, job or notes').fill(NAME);
+    // The search goes into the address, so going back from the set-up finds the list as it was.
+    await page.waitForURL((url) => url.pathname === '/library' && url.searchParams.get('q') === NAME);
+    await page.getByRole('link', { name: NAME }).click();
+    await page.waitForURL(`**/library/${setupId}`);
+    await page.getByRole('heading', { name: NAME }).waitFor();
+    await page.goBack();
+    await page.getByRole('link', { name: NAME }).waitFor();
+    await expect(page.getByLabel('Search name, job or notes').inputValue()).resolves.toBe(NAME);
     await page.getByRole('link', { name: NAME }).click();
     await page.waitForURL(`**/library/${setupId}`);
     await page.getByRole('heading', { name: NAME }).waitFor();

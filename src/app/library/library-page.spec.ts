@@ -2,7 +2,8 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import { provideRouter } from '@angular/router';
+import { Router, provideRouter } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
 
 import type { SetupDto, SetupPageDto } from '../../../shared/api/setup';
 import { Auth, type AuthUser } from '../core/auth';
@@ -103,5 +104,58 @@ describe('LibraryPage', () => {
   it('should say so when nothing matches', async () => {
     await answer({ setups: [], total: 0 });
     expect((fixture.nativeElement as HTMLElement).querySelector('.empty')?.textContent).toContain('No set-ups match these filters.');
+  });
+});
+
+describe('LibraryPage address', () => {
+  let http: HttpTestingController;
+  let harness: RouterTestingHarness;
+
+  async function openAt(url: string): Promise<void> {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 'library', component: LibraryPage }]), provideHttpClient(), provideHttpClientTesting(),
+        { provide: Auth, useValue: { user: signal(ME), signedIn: signal(true) } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+    harness = await RouterTestingHarness.create(url);
+    http.expectOne('/api/setups/owners').flush({ owners: [{ id: 7, name: 'Ines', count: 2 }] });
+  }
+
+  afterEach(() => http.verify());
+
+  async function listParams(total = 120): Promise<Record<string, string>> {
+    await new Promise((r) => setTimeout(r, 300));
+    const req = http.expectOne((r) => r.url === '/api/setups');
+    const params = Object.fromEntries(new URLSearchParams(req.request.params.toString()));
+    req.flush({ setups: [], total, page: 1, pageSize: 25 });
+    harness.detectChanges();
+    await harness.fixture.whenStable();
+    return params;
+  }
+
+  it('should show the list the address asks for, as after going back from a set-up', async () => {
+    await openAt('/library?q=wedge&kind=taper&status=released&sort=name&dir=asc&page=3&size=10');
+    expect(await listParams()).toEqual({ q: 'wedge', kind: 'taper', status: 'released', sort: 'name', dir: 'asc', page: '3', pageSize: '10' });
+    const search = harness.routeNativeElement!.querySelector('input[type=search]') as HTMLInputElement;
+    expect(search.value).toBe('wedge');
+  });
+
+  it('should put a changed filter in the address (page back to 1) and follow the plain menu address', async () => {
+    await openAt('/library?kind=taper&page=2');
+    expect((await listParams()).page).toBe('2');
+    const search = harness.routeNativeElement!.querySelector('input[type=search]') as HTMLInputElement;
+    search.value = 'dovetail';
+    search.dispatchEvent(new Event('input'));
+    expect(await listParams()).toMatchObject({ q: 'dovetail', kind: 'taper', page: '1' });
+    await new Promise((r) => setTimeout(r, 300));
+    await harness.fixture.whenStable();
+    const router = TestBed.inject(Router);
+    expect(router.url).toBe('/library?q=dovetail&kind=taper');
+    await harness.navigateByUrl('/library');
+    expect(await listParams()).toEqual({ sort: 'updatedAt', dir: 'desc', page: '1', pageSize: '25' });
+    expect(search.value).toBe('');
+    expect(router.url).toBe('/library');
   });
 });

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
@@ -12,7 +12,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { Router, RouterLink } from '@angular/router';
+import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 
 import { SETUP_KINDS, SETUP_STATUSES, type SetupOwnerDto, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
@@ -20,9 +20,7 @@ import { apiErrorDetail } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
 import { KIND_AREAS, LibraryApi, STATUS_LABELS, type LibraryQuery } from './library-api';
-
-/** Page sizes the paginator offers. */
-const PAGE_SIZES = [10, 25, 50];
+import { type LibraryView, PAGE_SIZES, paramsOfView, sameView, viewFromParams } from './library-url';
 
 /** The set-up library: the team's set-ups with search, filters, sort and server-side paging. */
 @Component({
@@ -40,18 +38,21 @@ export default class LibraryPage {
   private readonly auth = inject(Auth);
   private readonly router = inject(Router);
   private readonly notice = inject(ErrorNotice);
+  private readonly route = inject(ActivatedRoute);
+  /** The view the address asks for (filters, sort, page), so going back to the list finds it as it was. */
+  private readonly initial = viewFromParams((name) => this.route.snapshot.queryParamMap.get(name));
 
   protected readonly kinds = SETUP_KINDS;
   protected readonly statuses = SETUP_STATUSES;
-  protected readonly pageSizes = PAGE_SIZES;
+  protected readonly pageSizes = [...PAGE_SIZES];
   protected readonly columns = ['name', 'kind', 'status', 'job', 'owner', 'updatedAt'];
 
-  protected readonly search = signal('');
-  protected readonly kind = signal('');
-  protected readonly status = signal<SetupStatus | ''>('');
-  protected readonly job = signal('');
+  protected readonly search = signal(this.initial.search);
+  protected readonly kind = signal(this.initial.kind);
+  protected readonly status = signal<SetupStatus | ''>(this.initial.status);
+  protected readonly job = signal(this.initial.job);
   /** The owner filter: '' anyone, 'me' the signed-in member, otherwise an owner's id. */
-  protected readonly owner = signal('');
+  protected readonly owner = signal(this.initial.owner);
   /** Owners of set-ups this member may see (not the member), for the owner filter. */
   protected readonly owners = toSignal(
     this.api.owners().pipe(
@@ -60,9 +61,9 @@ export default class LibraryPage {
     ),
     { initialValue: [] as SetupOwnerDto[] },
   );
-  protected readonly sort = signal<Sort>({ active: 'updatedAt', direction: 'desc' });
-  protected readonly pageIndex = signal(0);
-  protected readonly pageSize = signal(25);
+  protected readonly sort = signal<Sort>(this.initial.sort);
+  protected readonly pageIndex = signal(this.initial.pageIndex);
+  protected readonly pageSize = signal(this.initial.pageSize);
   protected readonly importing = signal(false);
 
   /** The query the filters make; any change goes back to page 1 except paging itself. */
@@ -100,10 +101,53 @@ export default class LibraryPage {
   protected readonly rows = computed(() => this.page()?.setups ?? []);
   protected readonly total = computed(() => this.page()?.total ?? 0);
 
+  /** The address parameters this page last wrote (JSON), told apart from addresses changed from outside. */
+  private written: string | null = null;
+
+  /** The view the controls hold now. */
+  private readonly view = computed<LibraryView>(() => ({
+    search: this.search(),
+    kind: this.kind(),
+    status: this.status(),
+    job: this.job(),
+    owner: this.owner(),
+    sort: this.sort(),
+    pageIndex: this.pageIndex(),
+    pageSize: this.pageSize(),
+  }));
+
   constructor() {
     toObservable(this.result).subscribe((r) => {
       if (r.page) this.lastPage.set(r.page);
     });
+    // The address follows the view (replacing the entry: typing a search makes no history), and the
+    // view follows an address changed from outside (the menu's plain /library, back and forward).
+    toObservable(this.view)
+      .pipe(debounceTime(250), takeUntilDestroyed())
+      .subscribe((view) => {
+        const now = viewFromParams((name) => this.route.snapshot.queryParamMap.get(name));
+        if (sameView(view, now)) return;
+        const queryParams = paramsOfView(view);
+        this.written = JSON.stringify(queryParams);
+        void this.router.navigate([], { relativeTo: this.route, queryParams, replaceUrl: true });
+      });
+    this.route.queryParamMap.pipe(takeUntilDestroyed()).subscribe((params) => {
+      const wanted = viewFromParams((name) => params.get(name));
+      // The address this page wrote itself is already shown (or was typed past meanwhile).
+      if (JSON.stringify(paramsOfView(wanted)) === this.written) return;
+      if (!sameView(wanted, this.view())) this.show(wanted);
+    });
+  }
+
+  private show(view: LibraryView): void {
+    this.search.set(view.search);
+    this.kind.set(view.kind);
+    this.status.set(view.status);
+    this.job.set(view.job);
+    this.owner.set(view.owner);
+    this.sort.set(view.sort);
+    this.pageIndex.set(view.pageIndex);
+    this.pageSize.set(view.pageSize);
   }
 
   protected kindLabel(kind: string): string {
