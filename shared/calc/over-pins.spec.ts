@@ -27,6 +27,12 @@ describe('calculateOverPins', () => {
     it('should give c = 0.2165 in for h = 0.375 in at 60°', () => {
       expect(pins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: 0.25, width: 2, depth: 0.375 }).flankRun).toBe('0.2165');
     });
+    it('should warn about a dovetail angle far from the usual ones, naming the angle from the vertical (common practice)', () => {
+      const warn = (angle: number) => value(calculateOverPins({ kind: 'dovetail', unit: 'in', side: 'male', angle, rollDiameter: 0.25, width: 2 })).warnings;
+      for (const usual of [45, 55, 60]) expect(warn(usual)).toEqual([]);
+      expect(warn(20)).toEqual([expect.stringMatching(/^A dovetail angle of 20°00'00" between the flank and the base is unusual.+would make it 70°00'00"\)\.$/)]);
+      expect(warn(80)).toHaveLength(1);
+    });
     it('should find the angle and width from two roll sizes (toolmonger inverse, derived)', () => {
       // a = 1.5, α = 60°: x₁ = 1.5 + 0.25·2.7320508 = 2.1830127, x₂ = 1.5 + 0.5·2.7320508 = 2.8660254.
       const v = pins({ kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: 0.25, measurement1: '2.1830127', rollDiameter2: 0.5, measurement2: '2.8660254' });

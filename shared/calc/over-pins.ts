@@ -96,6 +96,11 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
           steps.push(step('Sharp-corner width', male ? 'a = x − D · k' : 'b = y + D · k', `${len(m)} ${male ? '−' : '+'} ${len(p.rollDiameter)} · ${fixedText(k, 7)}`, len(w), unit));
         }
         putAngle('angleDeg', p.angle);
+        if (p.angle.lt(30) || p.angle.gt(75)) {
+          warnings.push(
+            `A dovetail angle of ${formatDms(p.angle)} between the flank and the base is unusual: common dovetails are 45°, 55° and 60° (common practice). Check the angle is measured from the base and not from the vertical (that would make it ${formatDms(new Dec(90).minus(p.angle))}).`,
+          );
+        }
         if (p.depth) {
           const c = p.depth.mul(cot(p.angle));
           putLength('flankRun', c);

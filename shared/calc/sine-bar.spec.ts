@@ -91,6 +91,30 @@ describe('calculateSineBar', () => {
     });
   });
 
+  describe('unusual bar lengths (common practice: sine bars and plates of 2.5, 5 or 10 in, 100, 200 or 250 mm)', () => {
+    const lengthWarning = (r: { warnings: string[] }) => r.warnings.filter((w) => /between the roll centres is unusual/.test(w));
+    it.each([
+      ['in', 2.5], ['in', 5], ['in', 10], ['mm', 100], ['mm', 200], ['mm', 250],
+    ])('should take a %s bar of %s without a length warning', (unit, length) => {
+      expect(lengthWarning(bar({ unit, barLength: length, angle: 10 }))).toEqual([]);
+    });
+    it.each([
+      ['in', 125, '125.0000 in'], ['in', 0.5, '0.5000 in'], ['mm', 5, '5.000 mm'], ['mm', 1000, '1000.000 mm'],
+    ])('should still answer a %s bar of %s but warn to check the unit and the length', (unit, length, shown) => {
+      const warnings = lengthWarning(bar({ unit, barLength: length, angle: 10 }));
+      expect(warnings).toHaveLength(1);
+      expect(warnings[0]).toContain(`A bar with ${shown} between the roll centres`);
+      expect(warnings[0]).toContain('Check the unit and the length.');
+    });
+    it('should name the plate of a compound sine plate whose length is unusual', () => {
+      const same = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, angleA: 10, angleB: 10 }));
+      expect(same.warnings).toEqual([]);
+      const upper = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, lengthB: 127, angleA: 10, angleB: 10 }));
+      expect(upper.warnings).toHaveLength(1);
+      expect(upper.warnings[0]).toMatch(/^An? upper plate with 127\.0000 in between the roll centres is unusual/);
+    });
+  });
+
   describe('invalid and impossible input', () => {
     it('should refuse a stack taller than the bar with 422-kind "impossible"', () => {
       const r = calculateSineBar({ unit: 'in', barLength: 5, stackHeight: 6 });

@@ -114,6 +114,21 @@ function steepWarnings(theta: Dec): string[] {
   return out;
 }
 
+/** Between these lengths (in inches) a bar or plate is of a usual size; outside, a unit or typing slip is likely. */
+const USUAL_BAR_INCHES = { min: new Dec(2), max: new Dec(20) };
+
+/**
+ * A roll distance far from the usual sizes (a 125 typed with the unit left at inches, a 0.5 meant
+ * as 5): still answered, with a warning to check the unit and the length.
+ */
+function barLengthWarnings(L: Dec, unit: LengthUnit, what = 'bar'): string[] {
+  const inches = unit === 'mm' ? L.div(25.4) : L;
+  if (inches.gte(USUAL_BAR_INCHES.min) && inches.lte(USUAL_BAR_INCHES.max)) return [];
+  return [
+    `A ${what} with ${formatLength(L, unit)} ${unit} between the roll centres is unusual: sine bars and plates are commonly 2.5, 5 or 10 in, or 100, 200 or 250 mm (common practice). Check the unit and the length.`,
+  ];
+}
+
 /**
  * Sine bar or sine plate: the stack for an angle (rounded to the box's or the unit's resolution,
  * with the angle it really makes and the error), or the angle a stack makes; with a box (`set` or
@@ -156,7 +171,7 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
     const sens = sensitivity(L, setting.achieved, resolution);
     steps.push(step('Sensitivity', 'Δθ = ΔH / (L · cos θ)', `Δθ = ${resolution.toString()} / (${len(L)} · cos ${formatDms(setting.achieved)})`, fixedText(sens, 2), '″'));
 
-    const warnings = steepWarnings(setting.wanted);
+    const warnings = [...barLengthWarnings(L, unit), ...steepWarnings(setting.wanted)];
     let blocks: string[] | null = null;
     if (box) {
       if (setting.stack.isZero()) {
@@ -367,7 +382,12 @@ export function calculateCompoundSinePlate(input: CompoundSineRequest | unknown)
       axisB: b.value.axis,
       resultantTiltDeg: formatDegrees(phi),
       resultantTiltDms: formatDms(phi),
-      warnings: [...steepWarnings(a.value.wanted), ...steepWarnings(b.value.wanted)],
+      warnings: [
+        ...barLengthWarnings(p.lengthA, unit, 'lower plate'),
+        ...(p.lengthB && !p.lengthB.eq(p.lengthA) ? barLengthWarnings(p.lengthB, unit, 'upper plate') : []),
+        ...steepWarnings(a.value.wanted),
+        ...steepWarnings(b.value.wanted),
+      ],
       steps,
     });
   });
