@@ -3,7 +3,7 @@ import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
 import { inputText, listedInputs, setupResults, type SetupResults } from '../../shared/library/setup-results';
-import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape } from './sheet-drawing';
+import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape, type TaperSketchHolding } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
 /** What a set-up sheet is made from. */
@@ -79,7 +79,12 @@ export function sketchFor(kind: string, saved: Record<string, unknown>, results:
     const T = num(v['thickness']) ?? num(inputs['thickness']);
     const L = num(v['taperLength']) ?? num(inputs['taperLength']);
     const a = num(v['angleDeg']) ?? angleOf(inputs['angle']);
-    if (T && L && a && a > 0 && a < 90) return taperSketch(T, L, a, `${String(v['depthToStop'] ?? '')} ${String(v['unit'] ?? inputs['unit'] ?? '')}`.trim());
+    const drawing = results.ok && results.holding?.ok ? results.holding.plan.drawing : null;
+    const holding: TaperSketchHolding =
+      drawing?.kind === 'sine-plate' && drawing.plateLength > 0
+        ? { kind: 'sine-plate', plateLength: drawing.plateLength, stackLabel: drawing.stackLabel.replace(/ stack$/, '') }
+        : drawing?.kind === 'tilted-vise' ? { kind: 'tilted-vise' } : { kind: 'angle-block' };
+    if (T && L && a && a > 0 && a < 90) return taperSketch(T, L, a, `${String(v['depthToStop'] ?? '')} ${String(v['unit'] ?? inputs['unit'] ?? '')}`.trim(), holding);
   }
   if (kind === 'sine-bar') {
     const L = num(v['barLength']) ?? num(inputs['barLength']);
@@ -286,6 +291,21 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
     }
   } else {
     doc.fillColor('#b3261e').text(pdfText(results.error)).fillColor(INK);
+  }
+
+  if (results.ok && results.holding) {
+    const holding = results.holding;
+    heading(doc, holding.ok ? holding.plan.heading : 'Work-holding');
+    if (holding.ok) {
+      holding.plan.instructions.forEach((line, i) => doc.text(pdfText(`${i + 1}. ${line}`), { paragraphGap: 2 }));
+      if (holding.plan.warnings.length) {
+        doc.moveDown(0.3).fillColor('#8a4b00');
+        for (const w of holding.plan.warnings) doc.text(pdfText(`Warning: ${w}`));
+        doc.fillColor(INK);
+      }
+    } else {
+      doc.fillColor('#b3261e').text(pdfText(`No holding plan: ${holding.error}`)).fillColor(INK);
+    }
   }
 
   if (results.ok && results.stack?.length) {

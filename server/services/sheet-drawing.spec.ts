@@ -21,6 +21,37 @@ describe('sheet-drawing', () => {
       expect(removed?.points).toHaveLength(3);
       expect(removed?.points[0]?.y).toBeCloseTo(removed?.points[2]?.y ?? NaN, 9);
     });
+    it('should stand a sine plate on a stack L·sin α high and lay the part on the plate at α', () => {
+      const sketch = taperSketch(0.75, 2.5, 7.5, '0.3263', { kind: 'sine-plate', plateLength: 5, stackLabel: '0.6526 in' });
+      expect(sketch.title).toBe('Part on the sine plate over a 0.6526 in stack, taper face level; touch off on the high corner');
+      const stack = sketch.shapes.find((sh) => sh.label === 'stack');
+      expect(stack?.points[2]?.y).toBeCloseTo(5 * Math.sin((7.5 * Math.PI) / 180), 9);
+      const [hinge, free] = sketch.shapes.filter((sh) => sh.kind === 'circle' && sh.style === 'tool');
+      // The free roll rests on the stack, the hinge roll on the surface plate.
+      expect((free?.points[0]?.y ?? 0) - (free?.r ?? 0)).toBeCloseTo(stack?.points[2]?.y ?? NaN, 9);
+      expect((hinge?.points[0]?.y ?? 0) - (hinge?.r ?? 0)).toBeCloseTo(0, 9);
+      // The part's bottom face lies on the plate's top face: both at α, the part above the plate.
+      const plate = sketch.shapes.find((sh) => sh.label === 'sine plate')!.points;
+      const part = sketch.shapes.find((sh) => sh.style === 'part')!.points;
+      const slope = (a: Pt, b: Pt) => (b.y - a.y) / (b.x - a.x);
+      expect(Math.atan(slope(part[0]!, part[1]!)) * (180 / Math.PI)).toBeCloseTo(7.5, 9);
+      const onTop = (p: Pt) => plate[3]!.y + slope(plate[3]!, plate[2]!) * (p.x - plate[3]!.x);
+      expect(part[0]!.y).toBeCloseTo(onTop(part[0]!), 9);
+      expect(part[1]!.y).toBeCloseTo(onTop(part[1]!), 9);
+      const dim = sketch.shapes.filter((sh) => sh.kind === 'dimension').find((sh) => sh.label?.startsWith('h '));
+      expect((dim?.points[0]?.y ?? 0) - (dim?.points[1]?.y ?? 0)).toBeCloseTo(2.5 * Math.sin((7.5 * Math.PI) / 180), 9);
+    });
+    it('should put the part in a tilted vise above its body and base', () => {
+      const sketch = taperSketch(0.75, 2.5, 7.5, '0.3263', { kind: 'tilted-vise' });
+      expect(sketch.title).toBe('Part in the tilted vise, taper face level; touch off on the high corner');
+      const body = sketch.shapes.find((sh) => sh.label === 'vise body, tilted')!.points;
+      const base = sketch.shapes.find((sh) => sh.label === 'vise base')!.points;
+      const part = sketch.shapes.find((sh) => sh.style === 'part')!.points;
+      expect(Math.min(...body.map((p) => p.y))).toBeGreaterThan(Math.max(...base.map((p) => p.y)));
+      // The part's bottom edge is the body's top edge.
+      expect(part[0]!.y).toBeCloseTo((body[3]!.y + body[2]!.y) / 2 + (part[0]!.x - (body[3]!.x + body[2]!.x) / 2) * Math.tan((7.5 * Math.PI) / 180), 9);
+      expect([sketch.box.minX, sketch.box.minY, sketch.box.maxX, sketch.box.maxY].every(Number.isFinite)).toBe(true);
+    });
     it('should give a finite bounding box', () => {
       const { box } = taperSketch(0.75, 1.25, 7.5, 'x');
       expect([box.minX, box.minY, box.maxX, box.maxY].every(Number.isFinite)).toBe(true);

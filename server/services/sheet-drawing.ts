@@ -54,16 +54,71 @@ function boundsWithLabels(shapes: SketchShape[]): Sketch['box'] {
   return bounds([...shapes, { kind: 'line', style: 'mark', points: anchors }]);
 }
 
+/** What holds the part at the taper angle, as the taper page plans it (shared/forms/taper-holding). */
+export type TaperSketchHolding =
+  | { kind: 'angle-block' }
+  /** A sine plate of roll distance `plateLength` (model units) on a stack under its free roll. */
+  | { kind: 'sine-plate'; plateLength: number; stackLabel: string }
+  | { kind: 'tilted-vise' };
+
 /**
- * A part of thickness T tilted by α on an angle block, so that the taper face (L long from the end)
- * is cut horizontally; touch off on the high corner and go down h = L·sin α (REFERENCE.md §1).
+ * A part of thickness T tilted by α so that the taper face (L long from the end) is cut
+ * horizontally; touch off on the high corner and go down h = L·sin α (REFERENCE.md §1). The part
+ * sits on angle blocks, on a sine plate over a stack of H = Lp·sin α (REFERENCE.md §2.1), or in the
+ * jaws of a tilted vise; the end to taper is always the raised one.
  */
-export function taperSketch(thickness: number, taperLength: number, angleDeg: number, depthLabel: string): Sketch {
+export function taperSketch(thickness: number, taperLength: number, angleDeg: number, depthLabel: string, holding: TaperSketchHolding = { kind: 'angle-block' }): Sketch {
   const L = taperLength;
   const T = thickness;
   const P = Math.max(L * 2.2, L + 2 * T);
-  const tilt = (x: number, y: number) => rotate({ x, y }, angleDeg);
-  const blockLen = P * Math.cos(angleDeg * RAD);
+  const sin = Math.sin(angleDeg * RAD);
+  const cos = Math.cos(angleDeg * RAD);
+  const support: SketchShape[] = [];
+  // Where the part lies: part coordinates (x along its bottom face from the low end, y up through
+  // it) → drawing coordinates.
+  let tilt = (x: number, y: number) => rotate({ x, y }, angleDeg);
+  let title = 'Part on the angle block, taper face level; touch off on the high corner';
+  if (holding.kind === 'angle-block') {
+    const blockLen = P * cos;
+    support.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y: 0 }, { x: blockLen, y: 0 }, { x: blockLen, y: blockLen * Math.tan(angleDeg * RAD) }], label: 'angle block' });
+  } else if (holding.kind === 'sine-plate') {
+    // As the sine-bar sketch: the hinge roll's centre r above the base, the plate r to 3r above
+    // the roll centres, the free roll on a stack of H = Lp·sin α; the part on the plate, its
+    // tapered end toward the raised roll.
+    const Lp = holding.plateLength;
+    const r = Math.max(Lp, P) * 0.04;
+    const onPlate = (x: number, y: number) => {
+      const p = rotate({ x, y }, angleDeg);
+      return { x: p.x, y: p.y + r };
+    };
+    const x0 = Math.max(0, Lp - P);
+    tilt = (x, y) => onPlate(x0 + x, y + 3 * r);
+    const H = Lp * sin;
+    const x2 = Lp * cos;
+    const w = Math.max(Lp, P) * 0.1;
+    support.push(
+      { kind: 'line', style: 'cut', points: [{ x: -r * 3, y: 0 }, { x: Math.max(x2, (x0 + P) * cos) + w * 2, y: 0 }], label: 'surface plate' },
+      { kind: 'polygon', style: 'block', points: [{ x: x2 - w / 2, y: 0 }, { x: x2 + w / 2, y: 0 }, { x: x2 + w / 2, y: H }, { x: x2 - w / 2, y: H }], label: 'stack' },
+      { kind: 'polygon', style: 'block', points: [onPlate(-r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, 3 * r), onPlate(-r * 1.5, 3 * r)], label: 'sine plate', labelAt: onPlate(Lp * 0.3, 1.6 * r) },
+      { kind: 'circle', style: 'tool', points: [{ x: 0, y: r }], r },
+      { kind: 'circle', style: 'tool', points: [{ x: x2, y: H + r }], r },
+      { kind: 'dimension', style: 'mark', points: [{ x: x2 + w, y: 0 }, { x: x2 + w, y: H }], label: `H ${holding.stackLabel}` },
+    );
+    title = `Part on the sine plate over a ${holding.stackLabel} stack, taper face level; touch off on the high corner`;
+  } else {
+    // The vise body tilted about its hinge at the low end; the part in its jaws, on a parallel.
+    const bed = T * 0.9;
+    const m = P * 0.08;
+    const body = [tilt(-m, -bed), tilt(P + m, -bed), tilt(P + m, 0), tilt(-m, 0)];
+    const low = Math.min(...body.map((p) => p.y));
+    const hinge = tilt(-m * 0.5, -bed * 0.5);
+    support.push(
+      { kind: 'polygon', style: 'block', points: [{ x: -m * 1.5, y: low - bed }, { x: (P + m) * cos + m, y: low - bed }, { x: (P + m) * cos + m, y: low - bed * 0.25 }, { x: -m * 1.5, y: low - bed * 0.25 }], label: 'vise base', labelAt: { x: P * 0.3, y: low - bed * 0.6 } },
+      { kind: 'polygon', style: 'block', points: body, label: 'vise body, tilted', labelAt: tilt(P * 0.3, -bed * 0.45) },
+      { kind: 'circle', style: 'tool', points: [hinge], r: bed * 0.3 },
+    );
+    title = 'Part in the tilted vise, taper face level; touch off on the high corner';
+  }
   const part = [tilt(0, 0), tilt(P, 0), tilt(P, T), tilt(0, T)];
   const start = tilt(P - L, T);
   const corner = tilt(P, T);
@@ -72,14 +127,14 @@ export function taperSketch(thickness: number, taperLength: number, angleDeg: nu
   const f = (start.y - endBottom.y) / (corner.y - endBottom.y);
   const endCut = { x: endBottom.x + (corner.x - endBottom.x) * f, y: start.y };
   const shapes: SketchShape[] = [
-    { kind: 'polygon', style: 'block', points: [{ x: 0, y: 0 }, { x: blockLen, y: 0 }, { x: blockLen, y: blockLen * Math.tan(angleDeg * RAD) }], label: 'angle block' },
+    ...support,
     { kind: 'polygon', style: 'part', points: part },
     { kind: 'polygon', style: 'removed', points: [start, corner, endCut] },
     { kind: 'line', style: 'cut', points: [{ x: start.x - L * 0.4, y: start.y }, { x: endCut.x + L * 0.3, y: start.y }] },
     { kind: 'circle', style: 'mark', points: [corner], r: T * 0.06, label: 'touch off' },
     { kind: 'dimension', style: 'mark', points: [{ x: corner.x + L * 0.25, y: corner.y }, { x: corner.x + L * 0.25, y: start.y }], label: `h ${depthLabel}` },
   ];
-  return { title: 'Part on the angle block, taper face level; touch off on the high corner', shapes, box: bounds(shapes) };
+  return { title, shapes, box: bounds(shapes) };
 }
 
 /** A sine bar of roll centre distance L set to θ on a gauge-block stack H = L·sin θ (REFERENCE.md §2.1). */

@@ -67,7 +67,7 @@ const MAX_PASSES = 1000;
 
 /** Published cautions for milling on an angled set-up (REFERENCE.md §7.1–7.2). */
 export const MILLING_CAUTIONS: readonly string[] = [
-  'Clamp the work and the angle block securely before the table moves toward the cutter; make adjustments and measurements only with the spindle and work stopped (Michigan Admin. Code R 408.12640 "Milling").',
+  'Clamp the work and what holds it at the angle (angle blocks, sine plate or vise) securely before the table moves toward the cutter; make adjustments and measurements only with the spindle and work stopped (Michigan Admin. Code R 408.12640 "Milling").',
   'Keep the table, vise, block and work clean and free of chips, nicks and burrs; do not change feed or speed while cutting (US Army TM 1-1500-204-23-8, machine-tool safety).',
   'Follow your shop rules and local regulations on guards and eye protection; take light cuts on a tilted set-up and deburr the sharp edge the taper leaves.',
 ];

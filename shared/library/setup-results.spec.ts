@@ -2,6 +2,43 @@ import demo from '../../fixtures/demo.json';
 import { inputText, labelOf, listedInputs, setupResults } from './setup-results';
 
 describe('setupResults', () => {
+  describe('the holding plan of a taper saved from its page', () => {
+    const form = {
+      unit: 'in', shape: 'taper', given: 'angle-length', thickness: '0.75', angle: "7°30'", taperLength: '2.5', endThickness: '', faceLength: '',
+      partLength: '4', depthPerPass: '0.1', fluteLength: '1', cutterDiameter: '0.75', holding: 'angle-block', angleSet: 'angle-16', plateLength: '5', plateSet: 'inch-81',
+    };
+    it('should plan a sine plate: a stack of H = L · sin α under the free roll', () => {
+      const r = setupResults('taper', { ...form, holding: 'sine-plate' });
+      if (!r.ok || !r.holding?.ok) throw new Error('expected a holding plan');
+      // H = 5 · sin 7°30′ = 5 · 0.1305262 = 0.6526 in (REFERENCE.md §2.1; sin 7.5° from Math.sin, a reference library).
+      expect((5 * Math.sin((7.5 * Math.PI) / 180)).toFixed(4)).toBe('0.6526');
+      expect(r.holding.plan.heading).toBe('Set-up on a sine plate');
+      expect(r.holding.plan.instructions[0]).toMatch(/^Wring a 0\.6526 in stack: .+ \(H = L · sin α for the 5\.0000 in plate\)\.$/);
+      expect(r.holding.plan.drawing).toMatchObject({ kind: 'sine-plate', plateLength: 5, stackLabel: '0.6526 in stack' });
+    });
+    it('should plan angle blocks whose angles add up to the taper angle', () => {
+      const r = setupResults('taper', form);
+      if (!r.ok || !r.holding?.ok) throw new Error('expected a holding plan');
+      expect(r.holding.plan.heading).toBe('Set-up on angle blocks');
+      // 7°30' from a 16-piece set: 5° + 3° − 30' (common practice: reversed blocks subtract).
+      expect(r.holding.plan.instructions[0]).toContain("= 7°30'00\"");
+      expect(r.holding.plan.instructions.at(-1)).toContain('feed down 0.3263 in');
+    });
+    it('should plan a tilted vise and say what a vise scale cannot do', () => {
+      const r = setupResults('taper', { ...form, holding: 'tilted-vise' });
+      if (!r.ok || !r.holding?.ok) throw new Error('expected a holding plan');
+      expect(r.holding.plan.instructions[0]).toBe("Tilt the vise body to 7°30'00\" on its scale and lock it.");
+    });
+    it('should say why there is no plan when the holding figures are wrong, and give none to a set-up without a holding', () => {
+      const r = setupResults('taper', { ...form, holding: 'sine-plate', plateLength: 'abc' });
+      if (!r.ok || !r.holding || r.holding.ok) throw new Error('expected a failed holding plan');
+      expect(r.holding.error).toMatch(/^Sine plate/);
+      expect(r.holding.error).toContain('abc');
+      const plain = setupResults('taper', { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250' });
+      expect(plain.ok && plain.holding).toBeNull();
+    });
+  });
+
   it('should flatten a taper answer into labelled lines with the unit', () => {
     const r = setupResults('taper', { unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250' });
     expect(r.ok).toBe(true);

@@ -4,7 +4,9 @@ import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
-import { calculateTaper } from '../calc/taper';
+import { type TaperResult, calculateTaper } from '../calc/taper';
+import { savedForm } from '../forms/form-text';
+import { type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { combinationText, savedRequest } from './saved-request';
 
 /** A result value as the set-up sheet lists it. */
@@ -12,6 +14,9 @@ export interface ResultLine {
   label: string;
   value: string;
 }
+
+/** A set-up's holding plan, or why it cannot be made. */
+export type SetupHolding = { ok: true; plan: HoldingPlan } | { ok: false; error: string };
 
 /** The answer of a set-up's calculation, flattened for printing. */
 export type SetupResults =
@@ -30,6 +35,12 @@ export type SetupResults =
       steps: Step[];
       warnings: string[];
       cautions: string[];
+      /**
+       * How the work is held, step by step (a taper saved from its page with its holding: angle
+       * blocks, sine plate or tilting vise), or why that plan cannot be made; null where the set-up
+       * has none.
+       */
+      holding: SetupHolding | null;
     }
   | { ok: false; error: string };
 
@@ -98,7 +109,19 @@ export function setupResults(kind: string, inputs: Record<string, unknown>): Set
   const blocks = value['blocks'];
   const stack = Array.isArray(blocks) && blocks.every((b) => typeof b === 'string') ? (blocks as string[]) : null;
   const list = (k: string) => (Array.isArray(value[k]) ? (value[k] as unknown[]).filter((x): x is string => typeof x === 'string') : []);
-  return { ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions') };
+  return {
+    ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions'),
+    holding: holdingOf(kind, inputs, value),
+  };
+}
+
+/** The holding plan of a taper saved from its page, as the page makes it (shared/forms/taper-holding). */
+function holdingOf(kind: string, inputs: Record<string, unknown>, value: Record<string, unknown>): SetupHolding | null {
+  if (kind !== 'taper' || typeof inputs['holding'] !== 'string' || inputs['holding'] === '') return null;
+  const plan = planHolding(savedForm<HoldingValues>(inputs), value as unknown as TaperResult);
+  if (plan.ok) return { ok: true, plan: plan.value };
+  const why = Object.entries(plan.fields).map(([field, message]) => `${field} ${message}`).join('; ');
+  return { ok: false, error: `${plan.error}${why && !plan.error.includes(why) ? ` (${why})` : ''}` };
 }
 
 /**

@@ -25,6 +25,14 @@ afterAll(() => t.close());
 function create(who: Client, body: Record<string, unknown>) {
   return who.agent.post('/api/setups').set('X-CSRF-Token', who.token).send({ kind: 'taper', inputs: taper, ...body });
 }
+/** GET a set-up's sheet as bytes (200 expected). */
+function sheet(who: Client, id: number) {
+  return who.agent.get(`/api/setups/${id}/sheet.pdf`).buffer(true).parse((r, cb) => {
+    const chunks: Buffer[] = [];
+    r.on('data', (d: Buffer) => chunks.push(d));
+    r.on('end', () => cb(null, Buffer.concat(chunks)));
+  }).expect(200);
+}
 function post(who: Client, path: string, body: object = {}) {
   return who.agent.post(path).set('X-CSRF-Token', who.token).send(body);
 }
@@ -289,11 +297,7 @@ describe('set-up library', () => {
   describe('GET /api/setups/:id/sheet.pdf', () => {
     it('should print a PDF set-up sheet with the name, results, checks and cautions', async () => {
       const s = await create(c.machinist, { name: 'Sheet wedge 7°30\'', checks, notes: 'Touch off on the high corner.' }).expect(201);
-      const res = await c.machinist.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).buffer(true).parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (d: Buffer) => chunks.push(d));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      }).expect(200);
+      const res = await sheet(c.machinist, s.body.id);
       expect(res.headers['content-type']).toBe('application/pdf');
       expect(res.headers['content-disposition']).toMatch(/attachment; filename="?setup-sheet-\d+-v1\.pdf"?/);
       const pdf = res.body as Buffer;
@@ -308,6 +312,22 @@ describe('set-up library', () => {
       expect(text).toContain(`/library/${s.body.id}`);
     });
 
+    it('should print how a taper saved from its page is held: the sine-plate stack and the steps in order', async () => {
+      const form = {
+        unit: 'in', shape: 'taper', given: 'angle-length', thickness: '0.75', angle: "7°30'", taperLength: '2.5', endThickness: '', faceLength: '',
+        partLength: '4', depthPerPass: '0.1', fluteLength: '1', cutterDiameter: '0.75', holding: 'sine-plate', angleSet: 'angle-16', plateLength: '5', plateSet: 'inch-81',
+      };
+      const s = await create(c.machinist, { name: 'Wedge on the sine plate', kind: 'taper', inputs: form }).expect(201);
+      const res = await sheet(c.machinist, s.body.id);
+      const text = pdfText(res.body as Buffer);
+      // H = 5 · sin 7°30′ = 0.6526 in (REFERENCE.md §2.1); h = 2.5 · sin 7°30′ = 0.3263 in (REFERENCE.md §1).
+      expect(text).toContain('Part on the sine plate over a 0.6526 in stack');
+      expect(text).toContain('Set-up on a sine plate');
+      expect(text).toMatch(/1\. Wring a 0\.6526 in stack: /);
+      expect(text).toMatch(/5\. Touch the cutter off on the highest corner .*feed down 0\.3263 in/s);
+      expect(text).not.toMatch(/Part on the angle block|Set-up on angle blocks/);
+    });
+
     it('should print a pins-and-rolls set-up saved from its page with the page\'s figures and answer', async () => {
       // The page saves its whole form; for a two-height taper the readings are lowerReading and
       // upperReading (measurement1/2 hold the dovetail-angle example). REFERENCE.md §5.2 published
@@ -320,11 +340,7 @@ describe('set-up library', () => {
         reference: 'axis', largeBall: '1.000', smallBall: '0.500', largeBallDepth: '0.250', smallBallDepth: '2.000',
       };
       const s = await create(c.machinist, { name: 'Two-height taper check', kind: 'pins-rolls', inputs: form }).expect(201);
-      const res = await c.machinist.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).buffer(true).parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (d: Buffer) => chunks.push(d));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      }).expect(200);
+      const res = await sheet(c.machinist, s.body.id);
       const text = pdfText(res.body as Buffer);
       expect(text).toContain('Half angle (DMS)');
       expect(text).toContain('3°34\'35"');

@@ -1,6 +1,6 @@
 import type { TaperResult } from '../../../shared/calc/taper';
 import type { ResultItem } from '../workbench/result-list';
-import type { HoldingDrawing } from './taper-holding';
+import type { HoldingDrawing } from '../../../shared/forms/taper-holding';
 import type { TaperSceneInput } from './taper-scene';
 import type { TaperFormValues } from '../../../shared/forms/taper-form';
 

@@ -1,6 +1,6 @@
 import { calculateTaper } from '../../../shared/calc/taper';
 import { TAPER_DEFAULTS, type TaperFormValues, toTaperRequest } from './taper-form';
-import { holdingKind, planHolding, shortAngle } from './taper-holding';
+import { holdingKind, planHolding, shortAngle } from '../../../shared/forms/taper-holding';
 
 const taper = calculateTaper(toTaperRequest(TAPER_DEFAULTS));
 if (!taper.ok) throw new Error(taper.error);

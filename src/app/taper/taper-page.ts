@@ -23,7 +23,7 @@ import { SaveSetup } from '../workbench/save-setup';
 import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { TaperDrawing } from './taper-drawing';
-import { ANGLE_SET_OPTIONS, HOLDING_OPTIONS, type HoldingPlan, holdingKind, planHolding } from './taper-holding';
+import { ANGLE_SET_OPTIONS, HOLDING_OPTIONS, type HoldingPlan, holdingKind, planHolding } from '../../../shared/forms/taper-holding';
 import {
   TAPER_DEFAULTS, TAPER_GIVEN_OPTIONS, TAPER_LENGTH_FIELDS, type TaperFormValues, givenFields, taperResultItems,
   taperSceneInput, toTaperRequest,

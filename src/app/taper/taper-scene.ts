@@ -2,7 +2,7 @@ import { type AngleArcGeometry, type DimensionGeometry, type Label, angleArc, di
 import { chordAtLevel, clipToLevel, hatchPath, polygonPath, polylinePath, segmentsPath } from '../drawing/shapes';
 import { type PlacedLabel, boxInside, boxesTouch, firstClear, labelBox as boxOfText } from '../drawing/label-room';
 import { type Bounds, type Point, boundsOf, fitView, round2 } from '../drawing/view-fit';
-import type { HoldingDrawing } from './taper-holding';
+import type { HoldingDrawing } from '../../../shared/forms/taper-holding';
 
 /** What the taper set-up drawing is drawn from: model sizes as numbers in the page's unit. */
 export interface TaperSceneInput {

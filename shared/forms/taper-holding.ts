@@ -1,8 +1,8 @@
-import { calculateAngleBlocks } from '../../../shared/calc/angle-blocks';
-import { calculateSineBar } from '../../../shared/calc/sine-bar';
-import { type CalcResult, fail, succeed } from '../../../shared/calc/step';
-import type { TaperResult } from '../../../shared/calc/taper';
-import { ANGLE_BLOCK_SETS } from '../../../shared/data/angle-block-sets';
+import { calculateAngleBlocks } from '../calc/angle-blocks';
+import { calculateSineBar } from '../calc/sine-bar';
+import { type CalcResult, fail, succeed } from '../calc/step';
+import type { TaperResult } from '../calc/taper';
+import { ANGLE_BLOCK_SETS } from '../data/angle-block-sets';
 
 /** How the part is held at the taper angle. The numbers of the cut do not change with it; the set-up does. */
 export type HoldingKind = 'angle-block' | 'sine-plate' | 'tilted-vise';
