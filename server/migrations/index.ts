@@ -6,6 +6,7 @@ import * as inventories from './20261201-0502-inventories';
 import * as batchRuns from './20261201-0503-batch-runs';
 import * as trainingAndTeamMail from './20261201-0601-training-and-team-mail';
 import * as setupListIndexes from './20261201-0701-setup-list-indexes';
+import * as batchPartCorrections from './20261203-0801-batch-part-corrections';
 
 export interface Migration {
   readonly name: string;
@@ -22,4 +23,5 @@ export const migrations: readonly Migration[] = [
   { name: '20261201-0502-inventories', ...inventories },
   { name: '20261201-0503-batch-runs', ...batchRuns },
   { name: '20261201-0701-setup-list-indexes', ...setupListIndexes },
+  { name: '20261203-0801-batch-part-corrections', ...batchPartCorrections },
 ];

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { BatchPartDto, BatchRunDto, BatchStatus } from '../../shared/api/batch';
+import type { BatchPartDto, BatchRunDto, BatchStatus, PartReadings } from '../../shared/api/batch';
 import type { SetupCheck } from '../../shared/api/setup';
 import { jsonText } from './setup-revision';
 import type { User } from './user';
@@ -86,10 +86,16 @@ export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAt
   declare operatorId: number | null;
   declare measuredAt: Date;
   declare note: CreationOptional<string>;
+  /** Who last corrected the readings, and when (null: as recorded). */
+  declare correctedById: CreationOptional<number | null>;
+  declare correctedAt: CreationOptional<Date | null>;
+  /** The readings as first recorded, kept at the first correction. */
+  declare firstRecorded: CreationOptional<PartReadings | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
   declare operator?: User | null;
+  declare correctedBy?: User | null;
 
   toDto(): BatchPartDto {
     return {
@@ -104,6 +110,9 @@ export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAt
       operatorName: this.operator?.name ?? null,
       measuredAt: this.measuredAt.toISOString(),
       note: this.note,
+      correctedAt: this.correctedAt ? this.correctedAt.toISOString() : null,
+      correctedByName: this.correctedAt ? (this.correctedBy?.name ?? null) : null,
+      firstRecorded: this.firstRecorded ?? null,
     };
   }
 
@@ -121,6 +130,19 @@ export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAt
         operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         measuredAt: { type: DataTypes.DATE, allowNull: false },
         note: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
+        correctedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        correctedAt: { type: DataTypes.DATE, allowNull: true },
+        firstRecorded: {
+          type: DataTypes.TEXT,
+          allowNull: true,
+          get(this: BatchPart): PartReadings | null {
+            const raw = this.getDataValue('firstRecorded') as unknown;
+            return typeof raw === 'string' && raw !== '' ? (JSON.parse(raw) as PartReadings) : null;
+          },
+          set(this: BatchPart, value: PartReadings | null) {
+            this.setDataValue('firstRecorded', (value === null ? null : JSON.stringify(value)) as unknown as PartReadings);
+          },
+        },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -68,4 +68,5 @@ export function initModels(sequelize: Sequelize): void {
   BatchRun.belongsTo(User, { as: 'closedBy', foreignKey: 'closedById' });
   BatchRun.hasMany(BatchPart, { as: 'parts', foreignKey: 'runId' });
   BatchPart.belongsTo(User, { as: 'operator', foreignKey: 'operatorId' });
+  BatchPart.belongsTo(User, { as: 'correctedBy', foreignKey: 'correctedById' });
 }

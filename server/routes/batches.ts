@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { Transaction, type Sequelize, type WhereOptions } from 'sequelize';
-import { batchCreateBody, batchPartBody, BATCH_STATUSES, type BatchPartBody, type BatchRunDto } from '../../shared/api/batch';
+import { batchCreateBody, batchPartBody, BATCH_STATUSES, type BatchPartBody, type BatchRunDto, type PartReadings } from '../../shared/api/batch';
 import { DECIMAL_TEXT, type SetupCheck } from '../../shared/api/setup';
 import { checkStats, partVerdict } from '../../shared/batch/batch-stats';
 import { currentUser } from '../middleware/auth';
@@ -44,15 +44,26 @@ function csvCell(value: string | number | null | undefined, text = false): strin
 }
 
 /** The batch run as CSV: one row per part, a column per check value (band in the header). */
+/** The readings as first recorded, for the CSV: "touch_off=0.0000; dro_at_stop=-0.1632; End thickness=0.5805". */
+function firstRecordedText(first: PartReadings | null, checks: readonly SetupCheck[]): string {
+  if (!first) return '';
+  const parts = [`touch_off=${first.touchOff ?? ''}`, `dro_at_stop=${first.droAtStop ?? ''}`, ...checks.map((c) => `${c.label}=${first.values[c.key] ?? ''}`)];
+  return parts.join('; ');
+}
+
 export function batchCsv(run: BatchRun, parts: readonly BatchPart[]): string {
   const checks = run.checks;
-  const header = ['part', 'measured_at_utc', 'operator', 'touch_off', 'dro_at_stop', ...checks.map((c) => `${c.label} (${c.unit}) [${c.nominal} +${c.plus}/-${c.minus}]`), 'pass', 'out_of_band', 'note'];
+  const header = [
+    'part', 'measured_at_utc', 'operator', 'touch_off', 'dro_at_stop', ...checks.map((c) => `${c.label} (${c.unit}) [${c.nominal} +${c.plus}/-${c.minus}]`), 'pass', 'out_of_band', 'note',
+    'corrected_at_utc', 'corrected_by', 'first_recorded',
+  ];
   const lines = [header.map((h) => csvCell(h, true)).join(',')];
   for (const p of [...parts].sort((a, b) => a.partNo - b.partNo)) {
     lines.push([
       csvCell(p.partNo), csvCell(p.measuredAt.toISOString()), csvCell(p.operator?.name ?? '', true), csvCell(p.touchOff), csvCell(p.droAtStop),
       ...checks.map((c) => csvCell(p.readings[c.key] ?? '')),
       csvCell(p.pass ? 'pass' : 'fail'), csvCell(p.outOfBand, true), csvCell(p.note, true),
+      csvCell(p.correctedAt ? p.correctedAt.toISOString() : ''), csvCell(p.correctedAt ? (p.correctedBy?.name ?? '') : '', true), csvCell(firstRecordedText(p.firstRecorded, checks), true),
     ].join(','));
   }
   return `${lines.join('\r\n')}\r\n`;
@@ -65,7 +76,7 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
   async function loadRun(teamId: number, id: number, withParts = false): Promise<BatchRun> {
     const run = await BatchRun.findOne({
       where: { id, teamId },
-      include: withParts ? [...PEOPLE, { model: BatchPart, as: 'parts', include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }] }] : PEOPLE,
+      include: withParts ? [...PEOPLE, { model: BatchPart, as: 'parts', include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }, { model: User, as: 'correctedBy', attributes: ['id', 'name'] }] }] : PEOPLE,
     });
     if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
     return run;
@@ -142,17 +153,22 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
       while (taken.has(next)) next += 1;
       const wanted = partNo ?? body.partNo ?? next;
       if (wanted > run.partCount) throw new HttpError(409, `This run is for ${run.partCount} parts; part ${wanted} is beyond it.`, { partNo: `At most ${run.partCount}.` });
-      const row = {
-        touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass,
-        outOfBand: verdict.outOfBand.join(','), operatorId: user.id, measuredAt: new Date(), note: body.note ?? '',
-      };
+      const entered = { touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass, outOfBand: verdict.outOfBand.join(','), note: body.note ?? '' };
       const already = existing.find((p) => p.partNo === wanted);
       if (replace) {
         if (!already) throw new HttpError(404, `Part ${wanted} has not been entered yet.`);
-        await BatchPart.update(row, { where: { id: already.id }, transaction });
+        // A correction keeps who measured the part and when; changed readings record who corrected
+        // them and when, and keep the readings as first recorded (a note alone is just edited).
+        const part = (await BatchPart.findByPk(already.id, { transaction }))!;
+        const readingsOf = (p: { touchOff: string | null; droAtStop: string | null; readings: Record<string, string> }) => ({ touchOff: p.touchOff, droAtStop: p.droAtStop, values: p.readings });
+        const changed = JSON.stringify(readingsOf(part)) !== JSON.stringify(readingsOf(entered));
+        await part.update(
+          { ...entered, ...(changed ? { correctedById: user.id, correctedAt: new Date(), firstRecorded: part.firstRecorded ?? readingsOf(part) } : {}) },
+          { transaction },
+        );
       } else {
         if (already) throw new HttpError(409, `Part ${wanted} is already entered; correct it instead of adding it again.`, { partNo: 'Already entered.' });
-        await BatchPart.create({ runId: run.id, partNo: wanted, ...row }, { transaction });
+        await BatchPart.create({ runId: run.id, partNo: wanted, ...entered, operatorId: user.id, measuredAt: new Date() }, { transaction });
       }
       await run.update({ version: run.version + 1 }, { transaction });
       return wanted;

@@ -24,6 +24,18 @@ export interface BatchPartDto {
   operatorName: string | null;
   measuredAt: string;
   note: string;
+  /** When the part's readings were last corrected (null: as recorded). */
+  correctedAt: string | null;
+  correctedByName: string | null;
+  /** The readings as first recorded, before any correction (null: never corrected). */
+  firstRecorded: PartReadings | null;
+}
+
+/** A part's readings: the DRO figures and the measured value per check. */
+export interface PartReadings {
+  touchOff: string | null;
+  droAtStop: string | null;
+  values: Record<string, string>;
 }
 
 /** A part's deviation on one check. */

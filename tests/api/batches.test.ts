@@ -92,6 +92,7 @@ describe('/api/batches', () => {
       await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854', '1.2608', { partNo: 3 })).expect(409);
       const fix = await c.machinist.agent.put(`/api/batches/${run.id}/parts/2`).set('X-CSRF-Token', c.machinist.token).send(part('0.5899')).expect(200);
       expect(fix.body.part).toMatchObject({ partNo: 2, pass: false, values: { 'end-thickness': '0.5899' } });
+      expect(fix.body.part).toMatchObject({ correctedByName: m.machinist.name, firstRecorded: { touchOff: '0.0000', droAtStop: '-0.1632', values: { 'end-thickness': '0.5854', 'face-length': '1.2608' } } });
       await c.machinist.agent.put(`/api/batches/${run.id}/parts/1`).set('X-CSRF-Token', c.machinist.token).send(part('0.5854')).expect(404);
       expect(await BatchPart.count({ where: { runId: run.id } })).toBe(1);
       // A part sent without a number fills the gap part 2 left, so the run can be finished.
@@ -100,6 +101,25 @@ describe('/api/batches', () => {
       await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5854')).expect(409);
     });
 
+
+    it('should keep who measured a corrected part and when, and the readings as first recorded', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 2 }).expect(201)).body;
+      const first = (await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5805', '1.2610', { note: 'typed fast' })).expect(201)).body.part;
+      expect(first).toMatchObject({ correctedAt: null, correctedByName: null, firstRecorded: null });
+      const put = (who: Client, body: object) => who.agent.put(`/api/batches/${run.id}/parts/1`).set('X-CSRF-Token', who.token).send(body);
+      // Only the note changes: an edit, not a correction of the readings.
+      const noted = (await put(c.machinist, part('0.5805', '1.2610', { note: 'burr on the edge' })).expect(200)).body.part;
+      expect(noted).toMatchObject({ note: 'burr on the edge', correctedAt: null, firstRecorded: null });
+      const fixed = (await put(c.lead, part('0.5850', '1.2610', { note: '' })).expect(200)).body.part;
+      expect(fixed).toMatchObject({ operatorName: m.machinist.name, measuredAt: first.measuredAt, correctedByName: m.lead.name, note: '', pass: true, values: { 'end-thickness': '0.5850' } });
+      expect(Date.parse(fixed.correctedAt)).toBeGreaterThanOrEqual(Date.parse(first.measuredAt));
+      expect(fixed.firstRecorded).toEqual({ touchOff: '0.0000', droAtStop: '-0.1632', values: { 'end-thickness': '0.5805', 'face-length': '1.2610' } });
+      // A second correction keeps the readings as first recorded, and names the latest corrector.
+      const again = (await put(c.machinist, part('0.5851')).expect(200)).body.part;
+      expect(again).toMatchObject({ correctedByName: m.machinist.name, firstRecorded: fixed.firstRecorded, values: { 'end-thickness': '0.5851' } });
+      const row = await BatchPart.findOne({ where: { runId: run.id, partNo: 1 } });
+      expect(row?.operatorId).toBe(m.machinist.id);
+    });
     it('should number parts entered at the same moment without gaps or duplicates (one transaction each)', async () => {
       const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 6 }).expect(201)).body;
       const results = await Promise.all(Array.from({ length: 6 }, (_, i) => post(i % 2 ? c.other : c.machinist, `/api/batches/${run.id}/parts`, part('0.5854'))));
@@ -153,9 +173,17 @@ describe('/api/batches', () => {
       expect(res.headers['content-disposition']).toMatch(/attachment; filename="?batch-\d+\.csv"?/);
       const lines = res.text.trimEnd().split('\r\n');
       expect(lines).toHaveLength(3);
-      expect(lines[0]).toBe('part,measured_at_utc,operator,touch_off,dro_at_stop,End thickness (in) [0.5854 +0.0010/-0.0010],Face length (in) [1.2608 +0.005/-0.005],pass,out_of_band,note');
-      expect(lines[1]).toMatch(new RegExp(`^1,\\d{4}-\\d\\d-\\d\\dT[^,]+,${m.machinist.name},0\\.0000,-0\\.1632,0\\.5856,1\\.2610,pass,,"'=SUM\\(A1\\), burr on edge"$`));
-      expect(lines[2]).toMatch(new RegExp(`^2,[^,]+,${m.other.name},0\\.0000,-0\\.1632,0\\.5870,1\\.2610,fail,end-thickness,$`));
+      expect(lines[0]).toBe(
+        'part,measured_at_utc,operator,touch_off,dro_at_stop,End thickness (in) [0.5854 +0.0010/-0.0010],Face length (in) [1.2608 +0.005/-0.005],pass,out_of_band,note,corrected_at_utc,corrected_by,first_recorded',
+      );
+      expect(lines[1]).toMatch(new RegExp(`^1,\\d{4}-\\d\\d-\\d\\dT[^,]+,${m.machinist.name},0\\.0000,-0\\.1632,0\\.5856,1\\.2610,pass,,"'=SUM\\(A1\\), burr on edge",,,$`));
+      expect(lines[2]).toMatch(new RegExp(`^2,[^,]+,${m.other.name},0\\.0000,-0\\.1632,0\\.5870,1\\.2610,fail,end-thickness,,,,$`));
+      // A correction by the lead: the measurement keeps its operator; the correction and the first readings are listed.
+      await c.lead.agent.put(`/api/batches/${run.id}/parts/2`).set('X-CSRF-Token', c.lead.token).send(part('0.5860')).expect(200);
+      const after = (await c.machinist.agent.get(`/api/batches/${run.id}/export.csv`).expect(200)).text.trimEnd().split('\r\n');
+      expect(after[2]).toMatch(
+        new RegExp(`^2,[^,]+,${m.other.name},0\\.0000,-0\\.1632,0\\.5860,1\\.2610,pass,,,\\d{4}-[^,]+Z,${m.lead.name},touch_off=0\\.0000; dro_at_stop=-0\\.1632; End thickness=0\\.5870; Face length=1\\.2610$`),
+      );
     });
   });
 });

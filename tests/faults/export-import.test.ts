@@ -151,6 +151,8 @@ beforeAll(async () => {
   const run = await machinist.post('/api/batches', { setupId: id, partCount: 3, label: 'KL-2291 lot 1' }).expect(201);
   await machinist.post(`/api/batches/${run.body.id}/parts`, { values: { 'end-thickness': '0.5856' }, touchOff: '0.1000', note: 'first part' }).expect(201);
   await machinist.post(`/api/batches/${run.body.id}/parts`, { values: { 'end-thickness': '0.5880' } }).expect(201);
+  // A corrected part: who corrected it and the readings as first recorded go along.
+  await lead.put(`/api/batches/${run.body.id}/parts/2`, { values: { 'end-thickness': '0.5858' } }).expect(200);
   await lead.post(`/api/batches/${run.body.id}/close`).expect(200);
 
   const assignment = await lead.post('/api/training/assignments', { title: 'Sine stacks', instructions: 'Show your working.', items: [{ type: 'sine-stack', count: 2 }], dueAt: '2030-01-01T12:00:00Z', assigneeIds: [m.apprentice.id] }).expect(201);

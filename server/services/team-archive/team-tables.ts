@@ -30,7 +30,7 @@ export const TEAM_TABLES: readonly TeamTable[] = [
   { table: 'inventory_sets', where: 'teamId = :teamId', refs: { teamId: 'teams' } },
   { table: 'inventory_blocks', where: 'setId IN (SELECT id FROM inventory_sets WHERE teamId = :teamId)', refs: { setId: 'inventory_sets' } },
   { table: 'batch_runs', where: 'teamId = :teamId', refs: { teamId: 'teams', setupId: 'setups', startedById: 'users', closedById: 'users' } },
-  { table: 'batch_parts', where: 'runId IN (SELECT id FROM batch_runs WHERE teamId = :teamId)', refs: { runId: 'batch_runs', operatorId: 'users' } },
+  { table: 'batch_parts', where: 'runId IN (SELECT id FROM batch_runs WHERE teamId = :teamId)', refs: { runId: 'batch_runs', operatorId: 'users', correctedById: 'users' } },
   // Only the sha256 of an invitation's token is stored; even that stays out of the archive.
   { table: 'invitations', where: 'teamId = :teamId', refs: { teamId: 'teams', invitedById: 'users' }, omit: ['tokenHash'] },
   { table: 'assignments', where: 'teamId = :teamId', refs: { teamId: 'teams', createdById: 'users' } },

@@ -13,7 +13,7 @@ const ME: AuthUser = { id: 7, email: 'm@example.test', name: 'Ines', role: 'mach
 const CHECK = { key: 'end-thickness', label: 'End thickness', unit: 'in' as const, nominal: '0.5854', plus: '0.0010', minus: '0.0010' };
 
 function run(parts: Array<[number, string, boolean]>, status: 'open' | 'closed' = 'open'): BatchRunDto {
-  const p = parts.map(([partNo, value, pass]) => ({ id: partNo, partNo, touchOff: null, droAtStop: null, values: { 'end-thickness': value }, pass, outOfBand: pass ? [] : ['end-thickness'], operatorId: 7, operatorName: 'Ines', measuredAt: '2026-12-01T10:00:00.000Z', note: '' }));
+  const p = parts.map(([partNo, value, pass]) => ({ id: partNo, partNo, touchOff: null, droAtStop: null, values: { 'end-thickness': value }, pass, outOfBand: pass ? [] : ['end-thickness'], operatorId: 7, operatorName: 'Ines', measuredAt: '2026-12-01T10:00:00.000Z', note: '', correctedAt: null, correctedByName: null, firstRecorded: null }));
   return {
     id: 3, setupId: 1, setupName: 'Fixture wedge', setupVersion: 2, label: 'Lot A', partCount: 3, status, checks: [CHECK],
     startedById: 7, startedByName: 'Ines', closedAt: null, closedByName: null, version: 1,
@@ -173,5 +173,16 @@ describe('BatchRunPage', () => {
   it('should offer no correction on a closed run', async () => {
     await open(run([[1, '0.5856', true]], 'closed'));
     expect(button('Correct')).toBeUndefined();
+  });
+
+  it('should show who corrected a part, and its readings as first recorded', async () => {
+    const dto = run([[1, '0.5850', true]]);
+    dto.parts![0] = {
+      ...dto.parts![0]!, correctedAt: '2026-12-01T11:30:00.000Z', correctedByName: 'Teodor',
+      firstRecorded: { touchOff: '0.0000', droAtStop: null, values: { 'end-thickness': '0.5805' } },
+    };
+    await open(dto);
+    const text = el().querySelector('tbody .corrected')?.textContent?.replace(/\s+/g, ' ').trim();
+    expect(text).toMatch(/^corrected by Teodor, 1 Dec, \d\d:30; first recorded End thickness 0\.5805, touch-off 0\.0000$/);
   });
 });

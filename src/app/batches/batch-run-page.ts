@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 
-import type { BatchPartDto, BatchRunDto } from '../../../shared/api/batch';
+import type { BatchPartDto, BatchRunDto, PartReadings } from '../../../shared/api/batch';
 import { DECIMAL_TEXT } from '../../../shared/api/setup';
 import { inBand } from '../../../shared/batch/batch-stats';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
@@ -101,6 +101,14 @@ export default class BatchRunPage {
 
   protected setField(field: 'touchOff' | 'droAtStop' | 'note', value: string): void {
     this.entry.update((e) => ({ ...e, [field]: value }));
+  }
+
+  /** The readings as first recorded, in the run's check order: "End thickness 0.5805, DRO at stop -0.1632". */
+  protected firstText(first: PartReadings, run: BatchRunDto): string {
+    const out = run.checks.map((c) => `${c.label} ${first.values[c.key] ?? '—'}`);
+    if (first.touchOff !== null) out.push(`touch-off ${first.touchOff}`);
+    if (first.droAtStop !== null) out.push(`DRO at stop ${first.droAtStop}`);
+    return out.join(', ');
   }
 
   /** Loads a recorded part's readings into the form to correct them. */
