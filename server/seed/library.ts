@@ -27,6 +27,8 @@ interface DemoPart {
   droAtStop: string;
   values: Record<string, string>;
   note: string;
+  /** A reading corrected after it was recorded: by whom, when, and what was first typed. */
+  correction?: { by: string; minutesAfterStart: number; firstValues: Record<string, string> };
 }
 interface DemoRun {
   setup: string;
@@ -106,6 +108,13 @@ export async function seedLibrary(teamId: number, lib: DemoLibrary, byEmail: Rea
       return {
         runId: run.id, partNo: p.partNo, touchOff: p.touchOff, droAtStop: p.droAtStop, readings: p.values, pass: verdict.pass,
         outOfBand: verdict.outOfBand.join(','), operatorId: byEmail.get(p.operator)?.id ?? null, measuredAt: new Date(start.getTime() + p.minutesAfterStart * 60_000), note: p.note,
+        ...(p.correction
+          ? {
+              correctedById: byEmail.get(p.correction.by)?.id ?? null,
+              correctedAt: new Date(start.getTime() + p.correction.minutesAfterStart * 60_000),
+              firstRecorded: { touchOff: p.touchOff, droAtStop: p.droAtStop, values: p.correction.firstValues },
+            }
+          : {}),
       };
     }));
     created++;

@@ -26,12 +26,16 @@ describe('demo library seed', () => {
     expect(runs.map((r) => [r.status, r.partCount, r.parts?.length])).toEqual([['closed', 8, 8], ['open', 8, 3]]);
     expect(runs[0]?.parts?.every((p) => p.pass)).toBe(true);
     expect(runs[1]?.parts?.filter((p) => !p.pass).map((p) => p.partNo)).toEqual([3]);
-    // Each run starts no later than its first part and closes after its last.
+    // Each run starts no later than its first part and closes after its last (and after any correction).
     for (const run of runs) {
       const measured = (run.parts ?? []).map((p) => p.measuredAt.getTime());
       expect(run.createdAt.getTime()).toBeLessThanOrEqual(Math.min(...measured));
-      if (run.closedAt) expect(run.closedAt.getTime()).toBeGreaterThan(Math.max(...measured));
+      if (run.closedAt) expect(run.closedAt.getTime()).toBeGreaterThan(Math.max(...measured, ...(run.parts ?? []).map((p) => p.correctedAt?.getTime() ?? 0)));
     }
+    // Lot A's part 4 was first typed as 0.5815 and corrected by the lead after it was measured.
+    const corrected = runs[0]?.parts?.filter((p) => p.correctedAt) ?? [];
+    expect(corrected.map((p) => [p.partNo, p.readings['end-thickness'], p.firstRecorded?.values['end-thickness']])).toEqual([[4, '0.5851', '0.5815']]);
+    expect(corrected[0]!.correctedAt!.getTime()).toBeGreaterThan(corrected[0]!.measuredAt.getTime());
   });
 
   it('should add nothing when run again', async () => {
