@@ -30,6 +30,8 @@ function readings(checks: readonly SetupCheck[], body: BatchPartBody): Record<st
     const text = raw === undefined ? '' : String(raw).trim();
     if (text === '') fields[`values.${check.key}`] = `Enter the ${check.label.toLowerCase()}.`;
     else if (!DECIMAL_TEXT.test(text)) fields[`values.${check.key}`] = `${check.label} must be a decimal number such as ${check.nominal}.`;
+    // A length or angle measured on the part is never 0 or less when its nominal is above 0: a slip.
+    else if (Number(check.nominal) > 0 && Number(text) <= 0) fields[`values.${check.key}`] = `${check.label} must be more than 0 (nominal ${check.nominal} ${check.unit}): check the reading.`;
     else out[check.key] = text;
   }
   if (Object.keys(fields).length) throw new HttpError(400, 'Some readings are not valid.', fields);

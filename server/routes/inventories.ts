@@ -25,7 +25,7 @@ function parseQuery<T>(schema: { safeParse(v: unknown): { success: true; data: T
   if (parsed.success) return parsed.data;
   const fields: Record<string, string> = {};
   for (const issue of parsed.error.issues) fields[issue.path.map(String).join('.') || '_'] ??= issue.message;
-  throw new HttpError(400, 'Some query parameters are not valid.', fields);
+  throw new HttpError(400, Object.values(fields)[0] ?? 'Some query parameters are not valid.', fields);
 }
 
 const label = (set: InventorySet) => (b: InventoryBlock) => blockLabel(set.unit, b.size);

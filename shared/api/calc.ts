@@ -58,9 +58,9 @@ export function angleBetween(min: number, max: number, open: { min?: boolean; ma
   });
 }
 
-/** Treats null and "" as "not given" so form values can be passed straight in. */
+/** Treats null, "" and blank text as "not given" so form values can be passed straight in. */
 export function optional<T extends z.ZodType>(schema: T) {
-  return z.preprocess((value) => (value === null || value === '' ? undefined : value), schema.optional());
+  return z.preprocess((value) => (value === null || (typeof value === 'string' && value.trim() === '') ? undefined : value), schema.optional());
 }
 
 /** Length unit of a request. */

@@ -96,7 +96,12 @@ export type InventoryBlockPatch = z.infer<typeof inventoryBlockPatch>;
 
 /** Query of GET /api/inventories/gauge-sets/:id/stack. */
 export const inventoryStackQuery = z.object({
-  target: z.string({ error: 'Give the target length.' }).trim().refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Target must be a positive decimal number such as 2.0084.'),
+  target: z
+    .string({ error: 'Give the target length.' })
+    .trim()
+    // ".5" as typed on the shop floor is 0.5.
+    .transform((v) => (/^\.\d/.test(v) ? `0${v}` : v))
+    .refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).'),
   grade: z.enum(['K', '0', '1', '2'], { error: 'Grade must be one of K, 0, 1, 2.' }).optional(),
   wear: z.enum(['yes', 'no'], { error: 'Wear must be yes or no.' }).optional(),
 });

@@ -98,11 +98,11 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
         const missing = !D ? 'largeDiameter' : !d ? 'smallDiameter' : 'length';
         return invalid(AREA, missing, 'is required: give a taper (taperPerFoot, includedAngle, …) or both diameters and the length');
       }
-      if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than smallDiameter');
+      if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than the small diameter');
       k = D.minus(d).div(l);
       steps.push(step('Taper per inch', 'k = (D − d) / l', `k = (${len(D)} − ${len(d)}) / ${len(l)}`, fixedText(k, 6), `${unit}/${unit}`));
     } else {
-      if (D && d && l) return invalid(AREA, 'length', 'leave out one of largeDiameter, smallDiameter, length when the taper is given');
+      if (D && d && l) return invalid(AREA, 'length', 'leave one of the large diameter, small diameter and taper length empty when the taper is given');
       if (definer === 'taperPerFoot') {
         k = (p.taperPerFoot as Dec).div(12);
         steps.push(step('Taper per inch', 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), ''));
@@ -131,7 +131,7 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
         }
       }
       if (D && d && !l) {
-        if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than smallDiameter');
+        if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than the small diameter');
         l = D.minus(d).div(k);
         steps.push(step('Taper length', 'l = (D − d) / k', `l = (${len(D)} − ${len(d)}) / ${fixedText(k, 6)}`, len(l), unit));
       } else if (D && l && !d) {
@@ -158,7 +158,7 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
     }
     const stations: TaperStation[] = [];
     if (p.stations && p.stations.length > 0) {
-      if (!D) return invalid(AREA, 'stations', 'need the large diameter (give largeDiameter, or smallDiameter and length)');
+      if (!D) return invalid(AREA, 'stations', 'need the large diameter: give it, or the small diameter and the taper length');
       for (const x of p.stations) {
         const dia = D.minus(k.mul(x));
         if (dia.lte(0)) return impossible(AREA, 'stations', `${len(x)} ${unit} from the large end is past the point of the taper`);

@@ -125,7 +125,7 @@ function barLengthWarnings(L: Dec, unit: LengthUnit, what = 'bar'): string[] {
   const inches = unit === 'mm' ? L.div(25.4) : L;
   if (inches.gte(USUAL_BAR_INCHES.min) && inches.lte(USUAL_BAR_INCHES.max)) return [];
   return [
-    `A ${what} with ${formatLength(L, unit)} ${unit} between the roll centres is unusual: sine bars and plates are commonly 2.5, 5 or 10 in, or 100, 200 or 250 mm (common practice). Check the unit and the length.`,
+    `${/^[aeiou]/.test(what) ? 'An' : 'A'} ${what} with ${formatLength(L, unit)} ${unit} between the roll centres is unusual: sine bars and plates are commonly 2.5, 5 or 10 in, or 100, 200 or 250 mm (common practice). Check the unit and the length.`,
   ];
 }
 

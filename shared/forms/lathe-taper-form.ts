@@ -3,6 +3,7 @@
  * saved from that page keeps the form as its inputs; its results and sheet make the same request.
  */
 import type { LatheTaperRequest } from '../api/calc';
+import { findMachineTaper } from '../data/machine-tapers';
 import type { LengthUnit } from '../units/length-unit';
 
 /** How the taper is given. */
@@ -31,12 +32,26 @@ export function splitStations(text: string): string[] {
   return text.split(/[\s,;]+/).filter((s) => s !== '');
 }
 
+/**
+ * Whether a standard taper fixes its sizes (Morse, Jarno, metric…), or only the taper itself (the
+ * 7:24 steep taper, the taper pin): then the part's own diameters and length are asked for.
+ */
+export function standardHasSizes(id: string): boolean {
+  const t = findMachineTaper(id);
+  return !t || t.largeDiameter !== null;
+}
+
 /** Turns the form's values into the engine's request, sending only what the chosen definition uses. */
 export function latheRequest(v: LatheTapersForm): LatheTaperRequest {
   const base: LatheTaperRequest = { unit: v.unit, workLength: v.workLength, stations: splitStations(v.stations) };
   switch (v.define) {
-    case 'standard':
-      return { ...base, standard: v.standard };
+    case 'standard': {
+      if (standardHasSizes(v.standard)) return { ...base, standard: v.standard };
+      // Only the taper is standard: the part's sizes come from the form, and diameters along it
+      // are listed once there is a diameter to start from.
+      const sized = v.largeDiameter.trim() !== '' || (v.smallDiameter.trim() !== '' && v.length.trim() !== '');
+      return { ...base, stations: sized ? base.stations : [], standard: v.standard, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
+    }
     case 'tpf':
       return { ...base, taperPerFoot: v.taperPerFoot, largeDiameter: v.largeDiameter, smallDiameter: v.smallDiameter, length: v.length };
     case 'angle':

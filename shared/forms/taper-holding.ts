@@ -97,7 +97,8 @@ export function planHolding(values: HoldingValues, r: TaperResult): CalcResult<H
         'Close the jaws on the part and tap it down until the blocks cannot be moved under it; clamp firmly.',
         touchOffStep(r),
       ],
-      warnings: a.exact ? [] : [`The ${values.angleSet} set makes ${a.achievedAngleDms}, ${a.errorArcSec}″ from the taper angle.`, ...a.warnings],
+      // The engine's own warning already says how near the set comes (and by how much).
+      warnings: a.warnings,
       drawing: { kind, blocks: a.blocks.map((b, i) => (b.direction === 'reverse' ? '−' : i === 0 ? '' : '+') + shortAngle(b.angle)) },
     });
   }

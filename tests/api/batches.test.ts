@@ -81,6 +81,9 @@ describe('/api/batches', () => {
       expect(Object.keys(res.body.fields).sort()).toEqual(['touchOff']);
       const res2 = await post(c.machinist, `/api/batches/${run.id}/parts`, { values: { 'end-thickness': 'abc', colour: '1' } }).expect(400);
       expect(Object.keys(res2.body.fields).sort()).toEqual(['values.colour', 'values.end-thickness', 'values.face-length']);
+      // A reading of 0 or less on a check whose nominal is above 0 is a slip, not a part.
+      const negative = await post(c.machinist, `/api/batches/${run.id}/parts`, part('-5')).expect(400);
+      expect(negative.body.fields).toEqual({ 'values.end-thickness': 'End thickness must be more than 0 (nominal 0.5854 in): check the reading.' });
       expect(await BatchPart.count({ where: { runId: run.id } })).toBe(0);
       expect((await BatchRun.findByPk(run.id))?.version).toBe(1);
     });

@@ -99,7 +99,10 @@ describe('/api/inventories', () => {
 
     it('should answer 400 for a bad target and 422 for one the box cannot make', async () => {
       const bad = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=abc`).expect(400);
-      expect(bad.body.fields.target).toBeDefined();
+      expect(bad.body).toEqual({ error: 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).', fields: { target: 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).' } });
+      // ".5" as typed on the shop floor is 0.5.
+      const point = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=.5`).expect(200);
+      expect(point.body).toMatchObject({ count: 1, total: '0.5000' });
       await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack`).expect(400);
       const far = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=0.0001`).expect(422);
       expect(far.body.error).toBeTruthy();

@@ -26,8 +26,9 @@ export function apiErrorMessage(err: unknown): string {
  * must be a whole number."), for forms that have no place beside each field to show them.
  */
 export function apiErrorDetail(err: unknown): string {
-  const fields = Object.values(apiFieldErrors(err));
   const message = apiErrorMessage(err);
+  // Field messages the summary already says are not repeated.
+  const fields = Object.values(apiFieldErrors(err)).filter((f) => !message.includes(f));
   return fields.length ? `${message} ${fields.join(' ')}` : message;
 }
 

@@ -63,9 +63,10 @@ export function runGaugeBlocks(values: GaugeBlocksFormValues): CalcResult<GaugeO
   }
   const checked = parseRequest('Gauge stack', boxFieldsSchema, { target: values.target, grade: values.grade || undefined });
   if (!checked.ok) return checked;
-  const target = values.target.trim();
-  // The inventory route reads plain decimals (no sign, no leading point, at most 6 decimals).
-  if (!DECIMAL_TEXT.test(target)) return invalid('Gauge stack', 'target', 'must be written with digits before the point, e.g. 0.2507 (at most 6 decimals)');
+  // The inventory route reads plain decimals (no sign, at most 6 decimals); ".5" is sent as 0.5.
+  const typed = values.target.trim();
+  const target = /^\.\d/.test(typed) ? `0${typed}` : typed;
+  if (!DECIMAL_TEXT.test(target)) return invalid('Gauge stack', 'target', 'must be a plain decimal such as 0.2507 (at most 6 decimals)');
   const query: BoxStackQuery = { setId, target, wear: values.wearBlocks !== '', ...(values.grade ? { grade: values.grade } : {}) };
   return succeed({ source: 'box', query });
 }

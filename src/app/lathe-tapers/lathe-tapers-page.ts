@@ -24,7 +24,7 @@ import { UnitToggle, convertLengthControls, convertLengthText } from '../workben
 import { WarningList } from '../workbench/warning-list';
 import { type LatheDimensionTexts, LatheWorkDrawing } from './lathe-work-drawing';
 import type { LatheWorkInput } from './lathe-work-geometry';
-import { type LatheTapersForm, type TaperDefinition, type TurningMethod, latheRequest, splitStations } from '../../../shared/forms/lathe-taper-form';
+import { type LatheTapersForm, type TaperDefinition, type TurningMethod, latheRequest, splitStations, standardHasSizes } from '../../../shared/forms/lathe-taper-form';
 
 export { latheRequest, splitStations, type LatheTapersForm, type TaperDefinition, type TurningMethod } from '../../../shared/forms/lathe-taper-form';
 
@@ -118,6 +118,8 @@ export default class LatheTapersPage {
   protected readonly unit = computed(() => this.raw().unit);
   /** How the taper is given. */
   protected readonly define = computed(() => this.raw().define);
+  /** A standard that fixes only the taper (7:24, taper pin): the part's sizes are asked for. */
+  protected readonly unsizedStandard = computed(() => this.raw().define === 'standard' && !standardHasSizes(this.raw().standard));
   /** The form values to save as a set-up. */
   protected readonly inputs = computed(() => this.raw() as unknown as Record<string, unknown>);
 
