@@ -22,6 +22,17 @@ describe('LatheTapersPage', () => {
     expect(page.el.querySelector('sw-lathe-work-drawing')?.textContent).toContain('Diameters not given');
   });
 
+  it('should answer a 7:24 steep taper and ask for the part\'s own sizes to list diameters along it', async () => {
+    await page.open('/lathe-tapers?define=standard&standard=steep-7-24&largeDiameter=&smallDiameter=&length=');
+    // 7:24 = 3-1/2 in/ft (US Army OD1645, REFERENCE.md §4.5).
+    expect(page.resultValue('Taper per foot')).toBe('3.50000');
+    expect(page.el.querySelector('.hint-line')?.textContent).toContain('This standard fixes only the taper');
+    expect(page.fieldErrors()).toBe('');
+    await page.type('largeDiameter', '2.75');
+    // d(1 in) = 2.75 − 3.5/12 = 2.4583 in (derived).
+    expect(page.el.textContent).toContain('2.4583');
+  });
+
   it('should put the message under a bad taper per foot and clear the results', async () => {
     await page.open('/lathe-tapers?define=tpf&largeDiameter=&smallDiameter=&length=&stations=');
     await page.type('taperPerFoot', 'steep');
