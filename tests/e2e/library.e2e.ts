@@ -69,6 +69,16 @@ describe('set-up library, end to end', () => {
     await page.getByRole('button', { name: 'Measure End thickness on each part' }).click();
     await page.getByRole('button', { name: /^Save/ }).click();
     await page.locator('table.plain').getByText('End thickness').waitFor();
+    // A bad tolerance is named beside its own box, not only "some fields are not valid".
+    await page.getByRole('button', { name: 'Edit details' }).click();
+    await page.getByLabel('Plus').fill('-1');
+    await page.getByRole('button', { name: /^Save/ }).click();
+    await page.locator('mat-form-field', { hasText: 'Plus' }).locator('.field-error', { hasText: 'Plus tolerance must be 0 or more.' }).waitFor();
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    // The refused save is the one expected 400 in the console.
+    const refused = machinist.problems.filter((p) => /status of 400/.test(p));
+    expect(refused).toHaveLength(1);
+    machinist.problems.splice(0, machinist.problems.length, ...machinist.problems.filter((p) => !refused.includes(p)));
 
     const png = await sharp({ create: { width: 800, height: 500, channels: 3, background: { r: 240, g: 244, b: 246 } } })
       .composite([{ input: Buffer.from('<svg width="800" height="500"><polygon points="60,420 740,420 740,300 420,160 60,160" fill="none" stroke="#234" stroke-width="6"/></svg>') }])

@@ -54,6 +54,12 @@ export default class SetupDetailPage {
   protected readonly editing = signal(false);
   protected readonly saveError = signal<string | null>(null);
   protected readonly fieldErrors = signal<Readonly<Record<string, string>>>({});
+  /** Field messages with no box of their own beside them (e.g. a check's unit, the list of checks), said with the summary. */
+  protected readonly otherFieldErrors = computed(() =>
+    Object.entries(this.fieldErrors())
+      .filter(([path]) => !/^(name|job|notes|checks\.\d+\.(label|nominal|plus|minus))$/.test(path))
+      .map(([, message]) => message),
+  );
   protected readonly draft = signal<{ name: string; job: string; notes: string; checks: SetupCheck[] }>({ name: '', job: '', notes: '', checks: [] });
   protected readonly partCount = signal(8);
   protected readonly startError = signal<string | null>(null);
