@@ -4,6 +4,7 @@ import {
   SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
   type SetupExportDto, type SetupStatus,
 } from '../../shared/api/setup';
+import { setupResults } from '../../shared/library/setup-results';
 import type { AppConfig } from '../config';
 import { currentUser } from '../middleware/auth';
 import { HttpError } from '../middleware/http-error';
@@ -147,6 +148,13 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
       return;
     }
     if (setup.status === to) throw new HttpError(409, `This set-up is already ${to}.`);
+    if (to === 'released') {
+      // A released set-up is run on parts: its numbers must come out of the engine.
+      const results = setupResults(setup.kind, setup.inputs);
+      if (!results.ok && !results.pageOnly) {
+        throw new HttpError(422, `This set-up does not compute, so it cannot be released: ${results.error}. Open it in its calculator, correct the inputs and save it again.`);
+      }
+    }
     const stamp = to === 'released' ? { releasedAt: new Date(), releasedById: user.id } : {};
     const stale = await sequelize.transaction(async (transaction) => {
       const [count] = await Setup.update({ status: to, version: setup.version + 1, ...stamp }, { where: { id: setup.id, version: setup.version }, transaction });

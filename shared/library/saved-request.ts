@@ -12,9 +12,12 @@ function isGaugeForm(inputs: Record<string, unknown>): boolean {
   return ['unit', 'target', 'set', 'missing', 'wearBlocks', 'grade', 'temperature'].every((k) => typeof inputs[k] === 'string');
 }
 
+/** What a set-up answered only on its calculator page says (see `openOnPage`). */
+export const OPEN_ON_PAGE = 'open the set-up in its calculator to see the answer.';
+
 /** A set-up its calculator page answers but the set-up's own results cannot, with why. */
 function openOnPage(what: string): CalcResult<never> {
-  return fail('impossible', what, { body: 'open the set-up in its calculator to see the answer.' });
+  return fail('impossible', what, { body: OPEN_ON_PAGE });
 }
 
 /**

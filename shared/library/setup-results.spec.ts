@@ -2,6 +2,14 @@ import demo from '../../fixtures/demo.json';
 import { inputText, labelOf, listedInputs, setupResults } from './setup-results';
 
 describe('setupResults', () => {
+  it('should tell a set-up answered only on its page from one that does not compute', () => {
+    const table = { unit: 'in', mode: 'table', barLength: '5', angle: '', stackHeight: '', set: '', missing: '', tableFrom: '0', tableTo: '10', tableStep: '1', compoundBy: 'angles', angleB: '', stackB: '', lengthB: '' };
+    const page = setupResults('sine-bar', table);
+    expect(page.ok || page.pageOnly).toBe(true);
+    const bad = setupResults('taper', { unit: 'in', thickness: '-5', angle: 'abc', taperLength: '1.250' });
+    expect(bad.ok || bad.pageOnly).toBeUndefined();
+  });
+
   describe('the holding plan of a taper saved from its page', () => {
     const form = {
       unit: 'in', shape: 'taper', given: 'angle-length', thickness: '0.75', angle: "7°30'", taperLength: '2.5', endThickness: '', faceLength: '',

@@ -7,7 +7,7 @@ import type { CalcResult, Step } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { savedForm } from '../forms/form-text';
 import { type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
-import { combinationText, savedRequest } from './saved-request';
+import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -42,7 +42,8 @@ export type SetupResults =
        */
       holding: SetupHolding | null;
     }
-  | { ok: false; error: string };
+  /** `pageOnly`: the set-up is sound but answered on its calculator page only (a sine table, a team box…). */
+  | { ok: false; error: string; pageOnly?: true };
 
 type Engine = (input: unknown) => CalcResult<object>;
 
@@ -81,7 +82,7 @@ export function setupResults(kind: string, inputs: Record<string, unknown>): Set
   const engine = ENGINES[kind];
   if (!engine) return { ok: false, error: `No calculation is wired for "${kind}" set-ups yet; open the set-up in its calculator.` };
   const request = savedRequest(kind, inputs);
-  if (!request.ok) return { ok: false, error: request.error };
+  if (!request.ok) return request.fields['body'] === OPEN_ON_PAGE ? { ok: false, error: request.error, pageOnly: true } : { ok: false, error: request.error };
   const input = request.value;
   const result = engine(input);
   if (!result.ok) return { ok: false, error: result.error };

@@ -51,7 +51,7 @@ describe('set-up library', () => {
         [w.machinist, { name: 'Alpha wedge', job: 'J-100', notes: 'first of the wedges' }, true],
         [w.machinist, { name: 'Bravo wedge', job: 'J-100' }, false],
         [w.machinist, { name: 'Charlie sine', kind: 'sine-bar', inputs: { unit: 'in', barLength: '5', angle: '14.5' }, job: 'J-200' }, true],
-        [w.other, { name: 'Delta dovetail 50%_off', kind: 'pins-rolls', inputs: { unit: 'in' }, job: 'J-300' }, true],
+        [w.other, { name: 'Delta dovetail 50%_off', kind: 'pins-rolls', inputs: { kind: 'dovetail', unit: 'in', side: 'male', angle: '60', rollDiameter: '0.5', width: '2' }, job: 'J-300' }, true],
         [w.other, { name: 'Echo draft of other', job: 'J-300' }, false],
         [w.apprentice, { name: 'Foxtrot practice' }, false],
         [w.lead, { name: 'Golf lathe', kind: 'lathe-taper', inputs: { unit: 'in', taperPerFoot: '0.6' }, job: 'J-400' }, true],
@@ -223,6 +223,18 @@ describe('set-up library', () => {
       const refused = await put(c.machinist, s.body.id, { name: 'Edit archived', version: 3 }).expect(409);
       expect(refused.body.error).toMatch(/archived/);
       expect((await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200)).body.status).toBe('released');
+    });
+
+    it('should refuse to release a set-up that does not compute, and release one answered on its page only', async () => {
+      // Imported with a negative thickness and text for an angle: a draft may hold it, a release may not.
+      const bad = await create(c.machinist, { name: 'Imported bad wedge', inputs: { unit: 'in', thickness: '-5', angle: 'abc', taperLength: '1.250' } }).expect(201);
+      const refused = await post(c.lead, `/api/setups/${bad.body.id}/release`).expect(422);
+      expect(refused.body.error).toMatch(/^This set-up does not compute, so it cannot be released: Taper: .+ Open it in its calculator, correct the inputs and save it again\.$/);
+      expect((await c.lead.agent.get(`/api/setups/${bad.body.id}`).expect(200)).body).toMatchObject({ status: 'draft', version: 1 });
+      // A sine table saved from its page is answered there: it is sound and may be released.
+      const table = { unit: 'in', mode: 'table', barLength: '5', angle: '', stackHeight: '', set: '', missing: '', tableFrom: '0', tableTo: '10', tableStep: '1', compoundBy: 'angles', angleB: '', stackB: '', lengthB: '' };
+      const page = await create(c.machinist, { name: 'Sine table 0-10', kind: 'sine-bar', inputs: table }).expect(201);
+      expect((await post(c.lead, `/api/setups/${page.body.id}/release`).expect(200)).body.status).toBe('released');
     });
 
     it('should keep an apprentice\'s set-up a draft until a lead releases it', async () => {

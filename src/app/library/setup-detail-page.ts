@@ -114,6 +114,12 @@ export default class SetupDetailPage {
     this.api.revisions(id).subscribe((r) => this.revisions.set(r));
   }
 
+  /** Why this set-up cannot be released (its inputs do not compute), or null; the server refuses it too. */
+  protected readonly releaseBlocked = computed(() => {
+    const r = this.results();
+    return r && !r.ok && !r.pageOnly ? `Cannot be released: it does not compute (${r.error}).` : null;
+  });
+
   protected release(): void {
     const s = this.setup();
     if (!s) return;
