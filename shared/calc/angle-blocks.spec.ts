@@ -54,6 +54,13 @@ describe('calculateAngleBlocks', () => {
     expect([r.count, r.exact]).toEqual([13, true]);
   });
 
+  it('should refuse an angle beyond the 81°40\'57" the 13 blocks make together, naming that top (NPL, REFERENCE.md §6)', () => {
+    const r = calculateAngleBlocks({ set: 'angle-13-npl', angle: '81°41\'' });
+    expect(r.ok || r.kind).toBe('impossible');
+    expect(r.ok || r.fields.angle).toMatch(/^is beyond the set: all its blocks added together make 81°40'57"\./);
+    expect(calculateAngleBlocks({ set: 'angle-13-npl', angle: 200 }).ok).toBe(false);
+  });
+
   it('should give the nearest reachable angle and its error when exact is impossible', () => {
     const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: '10°00\'01"' }));
     expect(r.exact).toBe(false);

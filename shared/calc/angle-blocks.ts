@@ -244,6 +244,14 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
     if (!p.angle) return invalid(AREA, 'angle', 'is required (or give a combination to total)');
     if (!blockSeconds) return invalid(AREA, 'set', 'give a set id (e.g. angle-13-npl) or a blocks list');
     const targetSeconds = p.angle.mul(3600);
+    const reach = (blockSeconds as number[]).reduce((a, b) => a + b, 0);
+    if (targetSeconds.gt(reach)) {
+      return impossible(
+        AREA,
+        'angle',
+        `is beyond the set: all its blocks added together make ${formatDms(new Dec(reach).div(3600))}. Set the work on a square or an angle plate for 90° and build the rest from blocks, or use a sine plate (common practice)`,
+      );
+    }
     const signed = nearestAngleCombination(blockSeconds as number[], targetSeconds.toNumber());
     if (signed.length === 0) return impossible(AREA, 'angle', 'no combination of these blocks makes a positive angle');
     const achieved = new Dec(signed.reduce((a, b) => a + b, 0)).div(3600);
