@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { parseAngle } from '../../shared/angle/angle-text';
 import type { Attachment } from '../models/attachment';
 import type { Setup } from '../models/setup';
-import { inputText, listedInputs, setupResults, type SetupResults } from '../../shared/library/setup-results';
+import { inputRows, setupResults, type SetupResults } from '../../shared/library/setup-results';
 import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape, type TaperSketchHolding } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 
@@ -279,7 +279,7 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
   }
 
   heading(doc, 'Inputs');
-  rows(doc, listedInputs(setup.kind, inputs, results).map(([k, v]) => [k, inputText(v)] as const));
+  rows(doc, inputRows(setup.kind, inputs, results).map((row) => [row.label, row.value] as const));
 
   heading(doc, 'Results');
   if (results.ok) {

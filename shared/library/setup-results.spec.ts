@@ -1,7 +1,21 @@
 import demo from '../../fixtures/demo.json';
-import { inputText, labelOf, listedInputs, setupResults } from './setup-results';
+import { inputRows, inputText, labelOf, listedInputs, setupResults } from './setup-results';
 
 describe('setupResults', () => {
+  it('should list inputs in words, with sets, standard tapers and holdings by their names', () => {
+    const lathe = { unit: 'in', define: 'standard', standard: 'morse-3', taperPerFoot: '', includedAngle: '', largeDiameter: '', smallDiameter: '', length: '', workLength: '8', method: 'offset', stations: '0.5, 1' };
+    const rows = inputRows('lathe-taper', lathe, setupResults('lathe-taper', lathe));
+    expect(rows).toContainEqual({ label: 'Standard', value: 'Morse No. 3' });
+    expect(rows).toContainEqual({ label: 'Work length', value: '8' });
+    expect(rows).toContainEqual({ label: 'Stations', value: '0.5, 1' });
+    const pins = { kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: '0.25', measurement1: '2.1830127', rollDiameter2: '0.5', measurement2: '2.8660254' };
+    expect(inputRows('pins-rolls', pins, setupResults('pins-rolls', pins)).map((r) => r.label)).toContain('Roll diameter 1');
+    const boxed = { unit: 'in', target: '2.0084', set: 'box:12', missing: '', wearBlocks: '', grade: '', temperature: '' };
+    expect(inputRows('gauge-blocks', boxed, setupResults('gauge-blocks', boxed))).toContainEqual({ label: 'Set', value: "the team's own box (no. 12)" });
+    const plain = { ...boxed, set: 'inch-81' };
+    expect(inputRows('gauge-blocks', plain, setupResults('gauge-blocks', plain))).toContainEqual({ label: 'Set', value: 'Inch 81-piece set' });
+  });
+
   it('should tell a set-up answered only on its page from one that does not compute', () => {
     const table = { unit: 'in', mode: 'table', barLength: '5', angle: '', stackHeight: '', set: '', missing: '', tableFrom: '0', tableTo: '10', tableStep: '1', compoundBy: 'angles', angleB: '', stackB: '', lengthB: '' };
     const page = setupResults('sine-bar', table);

@@ -6,7 +6,10 @@ import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { savedForm } from '../forms/form-text';
-import { type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
+import { findAngleBlockSet } from '../data/angle-block-sets';
+import { findGaugeSet } from '../data/gauge-sets';
+import { findMachineTaper } from '../data/machine-tapers';
+import { HOLDING_OPTIONS, type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
 
 /** A result value as the set-up sheet lists it. */
@@ -61,7 +64,10 @@ const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'block
 
 /** "depthToStop" → "Depth to stop". */
 export function labelOf(key: string): string {
-  const words = key.replace(/Dms$/, ' (DMS)').replace(/Deg$/, ' (°)').replace(/ArcSec$/, ' (″)').replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase().replace('(dms)', '(DMS)');
+  const words = key
+    .replace(/Dms$/, ' (DMS)').replace(/Deg$/, ' (°)').replace(/ArcSec$/, ' (″)')
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/([a-z])(\d)/g, '$1 $2')
+    .toLowerCase().replace('(dms)', '(DMS)');
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
@@ -144,6 +150,27 @@ export function listedInputs(kind: string, saved: Record<string, unknown>, resul
   if (!results.ok) return Object.entries(saved);
   const extra = setUpFields(kind, saved).filter((k) => !(k in results.input) && saved[k] !== undefined && saved[k] !== '').map((k) => [k, saved[k]] as [string, unknown]);
   return [...Object.entries(results.input).filter(([, v]) => v !== undefined && v !== ''), ...extra];
+}
+
+/**
+ * The inputs as the set-up page and sheet list them: a label in words ("taperLength" → "Taper
+ * length") and the value as text, with set, taper and holding ids by their names.
+ */
+export function inputRows(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<{ label: string; value: string }> {
+  return listedInputs(kind, saved, results).map(([key, value]) => ({ label: labelOf(key), value: namedValue(kind, key, value) }));
+}
+
+/** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
+function namedValue(kind: string, key: string, value: unknown): string {
+  if (typeof value === 'string' && value !== '') {
+    const box = /^box:(\d+)$/.exec(value);
+    if (box) return `the team's own box (no. ${box[1]})`;
+    if (key === 'holding') return HOLDING_OPTIONS.find((o) => o.value === value)?.label ?? value;
+    if (key === 'standard') return findMachineTaper(value)?.name ?? value;
+    if (key === 'angleSet' || (key === 'set' && kind === 'angle-blocks')) return findAngleBlockSet(value)?.name ?? value;
+    if (key === 'plateSet' || key === 'set') return findGaugeSet(value)?.name ?? value;
+  }
+  return inputText(value);
 }
 
 /** An input's value as text: a list of plain values comma-separated, other objects as JSON. */

@@ -338,6 +338,11 @@ describe('set-up library', () => {
       expect(text).toMatch(/1\. Wring a 0\.6526 in stack: /);
       expect(text).toMatch(/5\. Touch the cutter off on the highest corner .*feed down 0\.3263 in/s);
       expect(text).not.toMatch(/Part on the angle block|Set-up on angle blocks/);
+      // Inputs in words, the holding and the stack set by their names.
+      expect(text).toContain('Taper length');
+      expect(text).toContain('Sine plate on gauge blocks');
+      expect(text).toContain('Inch 81-piece set');
+      expect(text).not.toMatch(/taperLength|plateSet|inch-81/);
     });
 
     it('should print a pins-and-rolls set-up saved from its page with the page\'s figures and answer', async () => {
@@ -359,8 +364,9 @@ describe('set-up library', () => {
       expect(text).toContain('1.50000 in/ft');
       expect(text).toContain('M1 0.745 in');
       // Only the figures of the kind are listed, under the engine's names; none of the other fields.
-      expect(text).toContain('heightDifference');
-      expect(text).not.toContain('lowerReading');
+      expect(text).toContain('Height difference');
+      expect(text).not.toContain('heightDifference');
+      expect(text).not.toMatch(/lowerReading|Lower reading/);
       expect(text).not.toContain('2.2745');
       expect(text).not.toContain('?');
     });

@@ -15,7 +15,7 @@ import { forkJoin } from 'rxjs';
 
 import type { BatchRunDto } from '../../../shared/api/batch';
 import { CHECK_UNITS, type AttachmentDto, type RevisionDto, type SetupCheck, type SetupDto } from '../../../shared/api/setup';
-import { inputText, listedInputs, setupResults, type ResultLine } from '../../../shared/library/setup-results';
+import { inputRows, setupResults, type ResultLine } from '../../../shared/library/setup-results';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
@@ -81,7 +81,7 @@ export default class SetupDetailPage {
     const s = this.setup();
     const r = this.results();
     if (!s || !r) return [];
-    return listedInputs(s.kind, s.inputs, r).map(([k, v]) => ({ key: k, value: inputText(v) }));
+    return inputRows(s.kind, s.inputs, r).map((row) => ({ key: row.label, value: row.value }));
   });
   protected readonly role = computed(() => this.auth.user()?.role ?? null);
   protected readonly isLead = computed(() => this.role() === 'lead' || this.role() === 'admin');
