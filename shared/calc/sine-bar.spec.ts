@@ -91,6 +91,14 @@ describe('calculateSineBar', () => {
     });
   });
 
+  it('should show the unrounded stack in the work to three places past the resolution, not thirty digits', () => {
+    const r = bar({ unit: 'in', barLength: 5, angle: 14.5 });
+    const unrounded = r.steps.find((st) => st.label === 'Stack height');
+    // 5 · sin 14.5° = 1.2519000… (Math.sin, a reference library); the resolution 0.0001 in → 7 places.
+    expect(unrounded?.value).toBe((5 * Math.sin((14.5 * Math.PI) / 180)).toFixed(7));
+    expect(r.exact.stackHeight.length).toBeGreaterThan(20);
+  });
+
   describe('unusual bar lengths (common practice: sine bars and plates of 2.5, 5 or 10 in, 100, 200 or 250 mm)', () => {
     const lengthWarning = (r: { warnings: string[] }) => r.warnings.filter((w) => /between the roll centres is unusual/.test(w));
     it.each([

@@ -155,8 +155,10 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
       const s = settingForAngle(L, p.angle, resolution);
       if (!s) return impossible(AREA, 'angle', `needs a stack as tall as the bar (${len(L)} ${unit}); use a smaller angle or set the complement`);
       setting = s;
-      steps.push(step('Stack height', 'H = L · sin θ', `H = ${len(L)} · sin ${formatDms(p.angle)}`, exactText(s.exactStack), unit));
-      steps.push(step('Stack at the resolution', `H rounded to ${resolution.toString()}`, exactText(s.exactStack), res(s.stack), unit));
+      // The unrounded stack to three places past the resolution (the exact figure stays in `exact`).
+      const fine = fixedText(s.exactStack, resolution.decimalPlaces() + 3);
+      steps.push(step('Stack height', 'H = L · sin θ', `H = ${len(L)} · sin ${formatDms(p.angle)}`, fine, unit));
+      steps.push(step('Stack at the resolution', `H rounded to ${resolution.toString()}`, fine, res(s.stack), unit));
       steps.push(step('Angle the stack makes', 'θ′ = asin(H / L)', `θ′ = asin(${res(s.stack)} / ${len(L)})`, formatDegrees(s.achieved), '°'));
       steps.push(step('Angle error', 'e = (θ′ − θ) · 3600', `e = (${formatDegrees(s.achieved, 6)} − ${formatDegrees(p.angle, 6)}) · 3600`, fixedText(s.errorArcSec, 2), '″'));
     } else {
