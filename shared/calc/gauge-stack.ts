@@ -70,7 +70,7 @@ export function resolveBox(area: string, choice: BoxChoice): CalcResult<GaugeBox
   }
   for (const [i, size] of (missing ?? []).entries()) {
     const at = pieces.findIndex((p) => p.eq(size));
-    if (at < 0) return invalid(area, `missing.${i}`, `there is no ${size.toString()} block left in the box`);
+    if (at < 0) return invalid(area, `missing.${i}`, `there is no ${size.toString()} block left in the box (list sizes with commas or spaces between them and a point for decimals, e.g. 0.1009, 0.125)`);
     pieces = [...pieces.slice(0, at), ...pieces.slice(at + 1)];
   }
   if (pieces.length === 0) return invalid(area, 'missing', 'leaves no blocks in the box');
