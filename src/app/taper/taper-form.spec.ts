@@ -1,5 +1,5 @@
 import { calculateTaper } from '../../../shared/calc/taper';
-import { TAPER_DEFAULTS, givenFields, taperResultItems, taperSceneInput, toTaperRequest } from './taper-form';
+import { CHAMFER_GIVEN_OPTIONS, TAPER_DEFAULTS, givenFields, taperResultItems, taperSceneInput, toTaperRequest } from './taper-form';
 
 describe('taper form', () => {
   describe('givenFields', () => {
@@ -23,6 +23,17 @@ describe('taper form', () => {
       expect(request.endThickness).toBeUndefined();
       expect(request.angle).toBeUndefined();
     });
+  });
+
+  it('should name a chamfer\'s figures by its legs, in the results and in what defines it', () => {
+    const chamfer = calculateTaper(toTaperRequest({ ...TAPER_DEFAULTS, shape: 'chamfer', given: 'length-end', taperLength: '0.1', endThickness: '0.1' }));
+    if (!chamfer.ok) throw new Error(chamfer.error);
+    const labels = taperResultItems(chamfer.value).map((i) => i.label);
+    expect(labels).toEqual(expect.arrayContaining(['Leg on the top face', 'Leg on the end face']));
+    expect(labels).not.toContain('Taper length');
+    // Equal legs of 0.1 make a 45° chamfer (tan α = 0.1 / 0.1, derived).
+    expect(chamfer.value.angleDeg).toBe('45.0000');
+    expect(CHAMFER_GIVEN_OPTIONS.find((o) => o.value === 'length-end')?.label).toBe('Top-face leg and end-face leg');
   });
 
   describe('with the demo defaults', () => {

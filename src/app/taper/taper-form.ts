@@ -19,6 +19,12 @@ export const TAPER_GIVEN_OPTIONS: readonly { readonly value: TaperGiven; readonl
   { value: 'end-face', label: 'End thickness and face length' },
 ];
 
+/** The same pairs in a chamfer's words: its two legs instead of the taper length and end thickness. */
+export const CHAMFER_GIVEN_OPTIONS: readonly { readonly value: TaperGiven; readonly label: string }[] = TAPER_GIVEN_OPTIONS.map((o) => ({
+  value: o.value,
+  label: o.label.replace('taper length', 'top-face leg').replace('Taper length', 'Top-face leg').replace('end thickness', 'end-face leg').replace('End thickness', 'End-face leg'),
+}));
+
 /**
  * Defaults from the demo scenario: a fixture wedge of 3/4 in stock with a 7°30' taper over the
  * last 2.5 in of a 4 in part, cut 0.1 in a pass with a 3/4 in end mill (1 in of flute).
@@ -55,8 +61,12 @@ export function taperResultItems(r: TaperResult): ResultItem[] {
   items.push(
     { label: 'Face length', value: r.faceLength, unit: u, note: 'Aligned dimension: read with a scale along the face' },
     { label: 'Angle', value: r.angleDms, unit: '', note: `${r.angleDeg}° — tilt of the block, plate or vise` },
-    { label: 'Taper length', value: r.taperLength, unit: u, note: 'From the end, along the top face' },
-    { label: 'Removed at the end', value: r.removedAtEnd, unit: u, note: 'Square to the top face' },
+    r.shape === 'chamfer'
+      ? { label: 'Leg on the top face', value: r.taperLength, unit: u, note: 'From the edge, along the top face' }
+      : { label: 'Taper length', value: r.taperLength, unit: u, note: 'From the end, along the top face' },
+    r.shape === 'chamfer'
+      ? { label: 'Leg on the end face', value: r.removedAtEnd, unit: u, note: 'From the edge, down the end face' }
+      : { label: 'Removed at the end', value: r.removedAtEnd, unit: u, note: 'Square to the top face' },
     { label: 'Table travel', value: r.tableTravel, unit: u, note: 'To sweep the whole face' },
   );
   if (r.passes.length) items.push({ label: 'Passes', value: String(r.passes.length), unit: '', note: 'See the pass list for each DRO reading' });

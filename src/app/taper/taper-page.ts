@@ -25,7 +25,7 @@ import { WarningList } from '../workbench/warning-list';
 import { TaperDrawing } from './taper-drawing';
 import { ANGLE_SET_OPTIONS, HOLDING_OPTIONS, type HoldingPlan, holdingKind, planHolding } from '../../../shared/forms/taper-holding';
 import {
-  TAPER_DEFAULTS, TAPER_GIVEN_OPTIONS, TAPER_LENGTH_FIELDS, type TaperFormValues, givenFields, taperResultItems,
+  CHAMFER_GIVEN_OPTIONS, TAPER_DEFAULTS, TAPER_GIVEN_OPTIONS, TAPER_LENGTH_FIELDS, type TaperFormValues, givenFields, taperResultItems,
   taperSceneInput, toTaperRequest,
 } from './taper-form';
 
@@ -80,7 +80,7 @@ export default class TaperPage {
   /** Which pass the drawing shows (0: the whole cut). */
   protected readonly selectedPass = signal(0);
 
-  protected readonly givenOptions = TAPER_GIVEN_OPTIONS;
+  protected readonly givenOptions = computed(() => (this.chamfer() ? CHAMFER_GIVEN_OPTIONS : TAPER_GIVEN_OPTIONS));
   protected readonly holdingOptions = HOLDING_OPTIONS;
   protected readonly angleSets = ANGLE_SET_OPTIONS;
   protected readonly cautions = MILLING_CAUTIONS;
