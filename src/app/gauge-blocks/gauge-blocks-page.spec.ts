@@ -131,6 +131,8 @@ describe('GaugeBlocksPage with the team inventory', () => {
     expect(page.el.querySelector('.warnings.problem')?.textContent).toContain('Stack length cannot be made from the blocks in the box (0.1007 in wanted).');
     expect(page.el.querySelector('.box-note .left-out')?.textContent).toContain('0.1007 in (1 missing)');
     expect(page.el.querySelector('.no-drawing')).not.toBeNull();
+    // The refused field is marked too, as the results panel's "fix the highlighted inputs" says.
+    expect(page.fieldErrors()).toContain('Stack length cannot be made from the blocks in the box (0.1007 in wanted).');
   });
 
   it('should check the target in the browser before asking the server', async () => {

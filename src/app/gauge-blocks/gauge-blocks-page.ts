@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -12,7 +12,7 @@ import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
 import { DerivationPanel } from '../workbench/derivation-panel';
-import { controlMessage } from '../workbench/field-errors';
+import { CALC_ERROR_KEY, controlMessage } from '../workbench/field-errors';
 import { liveCalc } from '../workbench/live-calc';
 import { bindQueryState } from '../workbench/query-state';
 import { ResultList } from '../workbench/result-list';
@@ -91,6 +91,17 @@ export default class GaugeBlocksPage {
   });
   /** Whether the box's stack is being asked for. */
   protected readonly asking = computed(() => this.calc.value()?.source === 'box' && this.boxState().status === 'loading');
+  /** A box answer refused for one of the form's own fields marks that field too, not only the problem list. */
+  private readonly markRefusedField = effect(() => {
+    const st = this.boxState();
+    if (st.status !== 'failed' || this.calc.value()?.source !== 'box') return;
+    const name = st.field === 'target' || st.field === 'wearBlocks' || st.field === 'grade' ? st.field : null;
+    if (!name) return;
+    const control = this.form.controls[name];
+    control.setErrors({ ...(control.errors ?? {}), [CALC_ERROR_KEY]: st.message });
+    control.markAsTouched();
+  });
+
   /** Why the box cannot give the stack, for the problem list. */
   protected readonly boxProblems = computed(() => {
     const st = this.boxState();

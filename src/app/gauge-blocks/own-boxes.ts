@@ -90,7 +90,14 @@ export type BoxStackState =
   | { readonly status: 'idle' }
   | { readonly status: 'loading'; readonly query: BoxStackQuery; readonly answer: BoxStackAnswer | null }
   | { readonly status: 'done'; readonly query: BoxStackQuery; readonly answer: BoxStackAnswer }
-  | { readonly status: 'failed'; readonly query: BoxStackQuery; readonly message: string; readonly excluded: readonly ExcludedBlock[] };
+  | {
+      readonly status: 'failed';
+      readonly query: BoxStackQuery;
+      readonly message: string;
+      readonly excluded: readonly ExcludedBlock[];
+      /** The query field the route refused (target, wearBlocks, grade), or null. */
+      readonly field: string | null;
+    };
 
 /** Readable names of the route's query fields, for its messages. */
 const FIELD_NAMES: Readonly<Record<string, string>> = { target: 'Stack length', wearBlocks: 'Wear blocks', grade: 'Grade' };
@@ -140,7 +147,9 @@ export function boxStackState(query: Signal<BoxStackQuery | null>): Signal<BoxSt
           last = answer;
           return { status: 'done', query: q, answer };
         }),
-        catchError((err: unknown) => of<BoxStackState>({ status: 'failed', query: q, message: boxFailureMessage(err), excluded: excludedOf(err) })),
+        catchError((err: unknown) =>
+          of<BoxStackState>({ status: 'failed', query: q, message: boxFailureMessage(err), excluded: excludedOf(err), field: Object.keys(apiFieldErrors(err))[0] ?? null }),
+        ),
         startWith<BoxStackState>({ status: 'loading', query: q, answer: last }),
       );
     }),

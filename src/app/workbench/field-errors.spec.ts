@@ -2,7 +2,7 @@ import { FormControl, FormGroup } from '@angular/forms';
 import { z } from 'zod';
 
 import { fail } from '../../../shared/calc/step';
-import { applyControlErrors, controlMessage, failureMessages, sentence, sortFieldMessages, zodFieldMessages } from './field-errors';
+import { applyControlErrors, controlMessage, failureMessages, fieldWords, sentence, sortFieldMessages, zodFieldMessages } from './field-errors';
 
 describe('field errors', () => {
   describe('sentence', () => {
@@ -33,6 +33,14 @@ describe('field errors', () => {
       const sorted = sortFieldMessages({ body: 'give exactly two of angle, taperLength', cutter: 'is too short' }, names);
       expect(sorted.controls).toEqual({});
       expect(sorted.general).toEqual(['Give exactly two of angle, taperLength', 'Cutter is too short']);
+    });
+
+    it('should name a field with no control in words, not by its code name', () => {
+      expect(sortFieldMessages({ wearBlocks: 'make 0.1 in together', 'missing.0': 'is not in the box' }, names).general).toEqual([
+        'Wear blocks make 0.1 in together',
+        'Missing 1 is not in the box',
+      ]);
+      expect(fieldWords('combination.2.angle')).toBe('Combination 3 angle');
     });
   });
 

@@ -19,6 +19,16 @@ export function sentence(message: string): string {
   return message ? message[0].toUpperCase() + message.slice(1) : message;
 }
 
+/** An engine field path in words: "wearBlocks" → "Wear blocks", "missing.0" → "Missing 1". */
+export function fieldWords(path: string): string {
+  const words = path
+    .replace(/\.(\d+)/g, (_m, n: string) => ` ${Number(n) + 1}`)
+    .replace(/\./g, ' ')
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .toLowerCase();
+  return sentence(words);
+}
+
 /**
  * Sorts the `fields` of a calculation failure into messages per control. `aliases` maps an engine
  * field path (e.g. "removedAtEnd") onto the control that holds it (e.g. "endThickness"); paths
@@ -36,7 +46,7 @@ export function sortFieldMessages(
     const top = name.split('.')[0];
     if (controlNames.includes(name)) controls[name] ??= sentence(message);
     else if (controlNames.includes(top)) controls[top] ??= sentence(message);
-    else general.push(path === 'body' || path === '_' ? sentence(message) : `${sentence(path)} ${message}`);
+    else general.push(path === 'body' || path === '_' ? sentence(message) : `${fieldWords(path)} ${message}`);
   }
   return { controls, general };
 }
