@@ -254,7 +254,7 @@ describe('taper work-holding, label room and print', () => {
       ['/sine-bar?mode=table', 'To angle', '5', 'Must not be below from'],
       ['/sine-bar?mode=compound', 'Angle B', 'abc', '"abc" is not an angle'],
       ['/gauge-blocks', 'Stack length', '1e9', 'Must be a decimal number such as 0.750, got "1e9"'],
-      ['/gauge-blocks', 'Stack length', '', 'Must be a decimal number'],
+      ['/gauge-blocks', 'Stack length', '', 'Is empty; type a number, e.g. 0.750'],
     ];
     for (const [url, field, value, message] of cases) {
       await o.page.goto(url);
