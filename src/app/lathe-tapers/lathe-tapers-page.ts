@@ -11,6 +11,8 @@ import { startWith } from 'rxjs';
 import { type LatheTaperResult, calculateLatheTaper } from '../../../shared/calc/lathe-taper';
 import { invalid, type CalcResult } from '../../../shared/calc/step';
 import { MACHINE_TAPERS, type MachineTaper } from '../../../shared/data/machine-tapers';
+import { Dec } from '../../../shared/calc/decimal-math';
+import { formatLength } from '../../../shared/units/length-unit';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -181,8 +183,11 @@ export default class LatheTapersPage {
       label: 'Half angle (compound setting)', value: r.halfAngleDms, unit: '', note: `${r.halfAngleDeg}° from the lathe axis`, emphasis: compound,
     };
     if (r.tailstockOffset !== null) {
+      // The work length as the unit shows lengths (".5" → "0.5000"), or as typed while it is not a number yet.
+      const typed = this.calc.values().workLength.trim();
+      const work = /^(\d+\.?\d*|\.\d+)$/.test(typed) ? formatLength(new Dec(typed), r.unit) : typed;
       const offset: ResultItem = {
-        label: 'Tail-stock offset', value: r.tailstockOffset, unit: u, note: `For ${this.calc.values().workLength} ${u} between centres`, emphasis: !compound,
+        label: 'Tail-stock offset', value: r.tailstockOffset, unit: u, note: `For ${work} ${u} between centres`, emphasis: !compound,
       };
       items.push(...(compound ? [half, offset] : [offset, half]));
     } else {
