@@ -39,7 +39,12 @@ const ORDER_BY: Record<SetupSort, string> = {
 
 /** Escapes LIKE wildcards so a search for "50%" means those characters. */
 function likeText(word: string): string {
-  return `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return `%${escapeLike(word)}%`;
+}
+
+/** Text with LIKE's wildcards and escape taken literally. */
+function escapeLike(text: string): string {
+  return text.replace(/[\\%_]/g, (c) => `\\${c}`);
 }
 
 /** WHERE clause of the list: the team, what this user may see, the filters and the search words. */
@@ -54,7 +59,8 @@ function listWhere(user: User, f: SetupListFilter): { sql: string; params: Array
   if (f.kind) { parts.push('s.kind = ?'); params.push(f.kind); }
   if (f.status) { parts.push('s.status = ?'); params.push(f.status); }
   if (f.ownerId) { parts.push('s.ownerId = ?'); params.push(f.ownerId); }
-  if (f.job) { parts.push('s.job = ?'); params.push(f.job); }
+  // A job number or its start: "KL-24" finds KL-2417 and KL-2491.
+  if (f.job) { parts.push('s.job LIKE ?'); params.push(`${escapeLike(f.job)}%`); }
   for (const word of (f.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
     const like = likeText(word);
     parts.push('(s.name LIKE ? OR s.job LIKE ? OR s.notes LIKE ?)');

@@ -87,6 +87,10 @@ describe('set-up library', () => {
       expect(owner.body.total).toBe(2);
       const job = await w.lead.agent.get('/api/setups?job=J-100').expect(200);
       expect(job.body.total).toBe(2);
+      // The start of a job number finds its set-ups; LIKE wildcards are taken literally.
+      expect((await w.lead.agent.get('/api/setups?job=J-1').expect(200)).body.total).toBe(2);
+      expect((await w.lead.agent.get('/api/setups?job=J-_00').expect(200)).body.total).toBe(0);
+      expect((await w.lead.agent.get('/api/setups?job=J-3').expect(200)).body.total).toBe(2);
       const combined = await w.lead.agent.get('/api/setups?job=J-100&status=released').expect(200);
       expect(combined.body.setups.map((s: { name: string }) => s.name)).toEqual(['Alpha wedge']);
     });
