@@ -66,6 +66,16 @@ describe('TaperPage', () => {
     expect(page.fieldErrors()).toContain('Must be a decimal number such as 0.750, got "x"');
   });
 
+  it('should offer the print sheet only while the inputs give an answer', async () => {
+    await page.open();
+    const print = () => Array.from(page.el.querySelectorAll('button')).find((b) => b.textContent?.includes('Print sheet')) as HTMLButtonElement;
+    expect(print().disabled).toBe(false);
+    await page.type('thickness', 'abc');
+    expect(print().disabled).toBe(true);
+    await page.type('thickness', '0.75');
+    expect(print().disabled).toBe(false);
+  });
+
   it('should draw a tilting vise with its scale', async () => {
     await page.open('/taper?holding=tilted-vise');
     expect(page.resultValue('Depth to stop')).toBe('0.3263');
