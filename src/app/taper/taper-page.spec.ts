@@ -66,6 +66,13 @@ describe('TaperPage', () => {
     expect(page.fieldErrors()).toContain('Must be a decimal number such as 0.750, got "x"');
   });
 
+  it('should warn when the taper is longer than the part', async () => {
+    await page.open('/taper?partLength=1');
+    expect(page.el.textContent).toContain('The taper length (2.5000 in) is longer than the part (1 in): check both against the drawing.');
+    await page.type('partLength', '4');
+    expect(page.el.textContent).not.toContain('is longer than the part');
+  });
+
   it('should offer the print sheet only while the inputs give an answer', async () => {
     await page.open();
     const print = () => Array.from(page.el.querySelectorAll('button')).find((b) => b.textContent?.includes('Print sheet')) as HTMLButtonElement;

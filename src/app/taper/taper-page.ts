@@ -8,6 +8,7 @@ import { MatInput } from '@angular/material/input';
 import { MatSelect, MatOption } from '@angular/material/select';
 
 import { positiveLength } from '../../../shared/api/calc';
+import { Dec } from '../../../shared/calc/decimal-math';
 import { type CalcResult, fail, invalid, succeed } from '../../../shared/calc/step';
 import { MILLING_CAUTIONS, calculateTaper, type TaperResult } from '../../../shared/calc/taper';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
@@ -47,14 +48,18 @@ export function runTaper(values: TaperFormValues): CalcResult<TaperOutcome> {
   if (empty) return invalid('Taper', empty[0], `is required: type ${empty[2]}`);
   const taper = calculateTaper(toTaperRequest(values));
   if (!taper.ok) return taper;
-  // The part length only sizes the drawing, but a typo in it still gets its own message.
+  // The part length only sizes the drawing, but a typo in it still gets its own message, and a
+  // taper longer than the part is said.
+  const warnings = [...taper.value.warnings];
   if (values.partLength.trim() !== '') {
     const part = positiveLength.safeParse(values.partLength);
     if (!part.success) return fail('invalid', 'Taper', { partLength: part.error.issues[0]?.message ?? 'must be a length' });
+    const along = values.shape === 'chamfer' ? 'leg on the top face' : 'taper length';
+    if (new Dec(taper.value.taperLength).gt(part.data)) warnings.push(`The ${along} (${taper.value.taperLength} ${taper.value.unit}) is longer than the part (${values.partLength.trim()} ${taper.value.unit}): check both against the drawing.`);
   }
   const holding = planHolding(values, taper.value);
   if (!holding.ok) return holding;
-  return succeed({ ...taper.value, holding: holding.value });
+  return succeed({ ...taper.value, warnings, holding: holding.value });
 }
 
 /** Taper planner (mill): the depth to stop, end thickness, face length and passes, drawn on the set-up. */
