@@ -4,6 +4,7 @@
  */
 import type { LatheTaperRequest } from '../api/calc';
 import { findMachineTaper } from '../data/machine-tapers';
+import { sizeList } from './form-text';
 import type { LengthUnit } from '../units/length-unit';
 
 /** How the taper is given. */
@@ -29,7 +30,7 @@ export interface LatheTapersForm {
 
 /** Splits the stations text into distances; empty parts are left out. */
 export function splitStations(text: string): string[] {
-  return text.split(/[\s,;]+/).filter((s) => s !== '');
+  return sizeList(text) ?? [];
 }
 
 /**
