@@ -105,7 +105,8 @@ export function savedFormFields(kind: string, inputs: Record<string, unknown>): 
       if (typeof inputs['given'] === 'string') return inputs;
       const chamfer = inputs['shape'] === 'chamfer' || (!has('endThickness') && has('removedAtEnd'));
       const given = takenGiven(inputs);
-      return filled(['angle', 'taperLength', 'endThickness', 'faceLength', 'depthPerPass', 'fluteLength', 'cutterDiameter'], {
+      // The part length is the page's own (for its drawing): unknown for engine-shaped inputs, so empty.
+      return filled(['angle', 'taperLength', 'endThickness', 'faceLength', 'depthPerPass', 'fluteLength', 'cutterDiameter', 'partLength'], {
         ...inputs, shape: chamfer ? 'chamfer' : 'taper', endThickness: inputs['endThickness'] ?? inputs['removedAtEnd'], given,
       });
     }
