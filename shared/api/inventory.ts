@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DECIMAL_TEXT } from './setup';
+import { DECIMAL_TEXT, withLeadingZero } from './setup';
 
 /** The two kinds of block set a team keeps. */
 export const INVENTORY_TYPES = ['gauge-blocks', 'angle-blocks'] as const;
@@ -100,7 +100,7 @@ export const inventoryStackQuery = z.object({
     .string({ error: 'Give the target length.' })
     .trim()
     // ".5" as typed on the shop floor is 0.5.
-    .transform((v) => (/^\.\d/.test(v) ? `0${v}` : v))
+    .transform(withLeadingZero)
     .refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).'),
   grade: z.enum(['K', '0', '1', '2'], { error: 'Grade must be one of K, 0, 1, 2.' }).optional(),
   wear: z.enum(['yes', 'no'], { error: 'Wear must be yes or no.' }).optional(),

@@ -53,6 +53,11 @@ export interface SetupDto {
 /** Decimal text as typed on the shop floor: optional sign, up to 6 digits before and after the point. */
 export const DECIMAL_TEXT = /^-?\d{1,6}(\.\d{1,6})?$/;
 
+/** A decimal typed without its leading zero (".5", as on the shop floor) with it ("0.5"); other text as it is. */
+export function withLeadingZero(text: string): string {
+  return /^\.\d/.test(text) ? `0${text}` : text;
+}
+
 /** A decimal number sent as text or as a JSON number, kept as text. */
 export function decimalText(what: string, opts: { min0?: boolean } = {}) {
   return z

@@ -5,7 +5,8 @@ import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
 import type { CalcResult, Step } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
-import { savedForm } from '../forms/form-text';
+import { labelOf, savedForm } from '../forms/form-text';
+import { boxIdOf } from '../forms/gauge-blocks-form';
 import { findAngleBlockSet } from '../data/angle-block-sets';
 import { findGaugeSet } from '../data/gauge-sets';
 import { findMachineTaper } from '../data/machine-tapers';
@@ -62,14 +63,7 @@ const ENGINES: Readonly<Partial<Record<string, Engine>>> = {
 
 const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'blocks', 'lastDigit', 'tolerance', 'temperature', 'unit']);
 
-/** "depthToStop" → "Depth to stop". */
-export function labelOf(key: string): string {
-  const words = key
-    .replace(/Dms$/, ' (DMS)').replace(/Deg$/, ' (°)').replace(/ArcSec$/, ' (″)')
-    .replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/([a-z])(\d)/g, '$1 $2')
-    .toLowerCase().replace('(dms)', '(DMS)');
-  return words.charAt(0).toUpperCase() + words.slice(1);
-}
+export { labelOf };
 
 /**
  * A result figure with its unit: lengths in the set-up's unit; tapers as the workbench pages give
@@ -127,7 +121,7 @@ function holdingOf(kind: string, inputs: Record<string, unknown>, value: Record<
   if (kind !== 'taper' || typeof inputs['holding'] !== 'string' || inputs['holding'] === '') return null;
   const plan = planHolding(savedForm<HoldingValues>(inputs), value as unknown as TaperResult);
   if (plan.ok) return { ok: true, plan: plan.value };
-  const why = Object.entries(plan.fields).map(([field, message]) => `${field} ${message}`).join('; ');
+  const why = Object.entries(plan.fields).map(([field, message]) => `${labelOf(field)} ${message}`).join('; ');
   return { ok: false, error: `${plan.error}${why && !plan.error.includes(why) ? ` (${why})` : ''}` };
 }
 
@@ -163,8 +157,8 @@ export function inputRows(kind: string, saved: Record<string, unknown>, results:
 /** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
 function namedValue(kind: string, key: string, value: unknown): string {
   if (typeof value === 'string' && value !== '') {
-    const box = /^box:(\d+)$/.exec(value);
-    if (box) return `the team's own box (no. ${box[1]})`;
+    const box = boxIdOf(value);
+    if (box !== null) return `the team's own box (no. ${box})`;
     if (key === 'holding') return HOLDING_OPTIONS.find((o) => o.value === value)?.label ?? value;
     if (key === 'standard') return findMachineTaper(value)?.name ?? value;
     if (key === 'angleSet' || (key === 'set' && kind === 'angle-blocks')) return findAngleBlockSet(value)?.name ?? value;

@@ -1,5 +1,5 @@
 import { gaugeStackRequestSchema, parseRequest } from '../../../shared/api/calc';
-import { DECIMAL_TEXT } from '../../../shared/api/setup';
+import { DECIMAL_TEXT, withLeadingZero } from '../../../shared/api/setup';
 import { type GaugeStackResult, type StackAnswer, calculateGaugeStack } from '../../../shared/calc/gauge-stack';
 import { type CalcResult, invalid, succeed } from '../../../shared/calc/step';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
@@ -64,8 +64,7 @@ export function runGaugeBlocks(values: GaugeBlocksFormValues): CalcResult<GaugeO
   const checked = parseRequest('Gauge stack', boxFieldsSchema, { target: values.target, grade: values.grade || undefined });
   if (!checked.ok) return checked;
   // The inventory route reads plain decimals (no sign, at most 6 decimals); ".5" is sent as 0.5.
-  const typed = values.target.trim();
-  const target = /^\.\d/.test(typed) ? `0${typed}` : typed;
+  const target = withLeadingZero(values.target.trim());
   if (!DECIMAL_TEXT.test(target)) return invalid('Gauge stack', 'target', 'must be a plain decimal such as 0.2507 (at most 6 decimals)');
   const query: BoxStackQuery = { setId, target, wear: values.wearBlocks !== '', ...(values.grade ? { grade: values.grade } : {}) };
   return succeed({ source: 'box', query });

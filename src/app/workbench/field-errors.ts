@@ -2,6 +2,7 @@ import type { AbstractControl } from '@angular/forms';
 import type { z } from 'zod';
 
 import type { CalcFailure } from '../../../shared/calc/step';
+import { labelOf } from '../../../shared/forms/form-text';
 
 /** The error key a control carries when the shared schema or engine refused its value. */
 export const CALC_ERROR_KEY = 'calc';
@@ -21,12 +22,7 @@ export function sentence(message: string): string {
 
 /** An engine field path in words: "wearBlocks" → "Wear blocks", "missing.0" → "Missing 1". */
 export function fieldWords(path: string): string {
-  const words = path
-    .replace(/\.(\d+)/g, (_m, n: string) => ` ${Number(n) + 1}`)
-    .replace(/\./g, ' ')
-    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
-    .toLowerCase();
-  return sentence(words);
+  return labelOf(path.replace(/\.(\d+)/g, (_m, n: string) => ` ${Number(n) + 1}`).replace(/\./g, ' '));
 }
 
 /**
