@@ -29,6 +29,7 @@ let b: RunningServer | null = null;
 let m: Members;
 let archive: Buffer;
 let png: Buffer;
+let sourceBoxId: number;
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'slantwise-export-'));
 const uploadsA = path.join(work, 'uploads-a');
 const uploadsB = path.join(work, 'uploads-b');
@@ -111,7 +112,10 @@ async function comparable(sequelize: Sequelize, schema: string, uploads: string)
         const ref = fks.get(table)?.get(column);
         if (column === 'id') copy[column] = position(table, value);
         else if (ref) copy[column] = position(ref, value);
-        else if (table === 'attachments' && (column === 'storageKey' || column === 'thumbnailKey')) {
+        else if ((table === 'setups' && column === 'inputs') || (table === 'setup_revisions' && (column === 'snapshot' || column === 'changes'))) {
+          // Boxes named in inputs by their id, as the position of the box.
+          copy[column] = String(value).replace(/box:(\d+)/g, (_m, n: string) => `box:#${position('inventory_sets', Number(n))}`);
+        } else if (table === 'attachments' && (column === 'storageKey' || column === 'thumbnailKey')) {
           copy[column] = value === null ? null : sha(fs.readFileSync(path.join(uploads, ...String(value).split('/'))));
         } else if (value instanceof Date) copy[column] = value.toISOString();
         else copy[column] = value;
@@ -147,6 +151,12 @@ beforeAll(async () => {
   const gauge = await admin.post('/api/inventories/gauge-sets', { name: 'Inch set, tool crib', standardSet: 'inch-81', grade: '0', notes: 'Wring with care.' }).expect(201);
   await admin.patch(`/api/inventories/gauge-sets/${gauge.body.id}/blocks/${gauge.body.blocks[3].id}`, { missing: 1, note: 'lost 2026-11' }).expect(200);
   await admin.post('/api/inventories/angle-sets', { name: 'Angle blocks', standardSet: 'angle-13-npl' }).expect(201);
+  // A set-up naming the team's own box ("box:<id>"), first saved with a standard set: its inputs,
+  // its revision's snapshot and the revision's change of set all name the box.
+  const boxInputs = { mode: 'angle', unit: 'in', barLength: '5', angle: '12', set: 'inch-81' };
+  const boxed = await lead.post('/api/setups', { name: 'Sine bar on the crib box', kind: 'sine-bar', inputs: boxInputs }).expect(201);
+  await lead.put(`/api/setups/${boxed.body.id}`, { name: 'Sine bar on the crib box', kind: 'sine-bar', inputs: { ...boxInputs, set: `box:${gauge.body.id}` }, version: 1 }).expect(200);
+  sourceBoxId = gauge.body.id as number;
 
   const run = await machinist.post('/api/batches', { setupId: id, partCount: 3, label: 'KL-2291 lot 1' }).expect(201);
   await machinist.post(`/api/batches/${run.body.id}/parts`, { values: { 'end-thickness': '0.5856' }, touchOff: '0.1000', note: 'first part' }).expect(201);
@@ -256,6 +266,13 @@ describe('team export and import', () => {
   });
 
   it('imports into the empty instance with the command-line tool: same rows, same files', async () => {
+    // Boxes get ids here that they did not have at the source, so a box named by the old id would show.
+    const bump = createSequelize(target.config.db);
+    try {
+      await bump.query(`ALTER TABLE inventory_sets AUTO_INCREMENT = ${sourceBoxId + 500}`);
+    } finally {
+      await bump.close();
+    }
     const result = await importTool(archiveFile);
     expect(result.out).toMatch(/Imported team "Test shop export-/);
     expect(result.code).toBe(0);
@@ -295,7 +312,16 @@ describe('team export and import', () => {
     b = await startServer({ ...target.config, port: 0, uploads: { ...target.config.uploads, driver: 'disk', dir: uploadsB } });
     const lead = await signIn(b.url, m.lead.email);
     const list = await lead.agent.get('/api/setups?sort=name').expect(200);
-    expect(list.body.setups.map((s: { name: string }) => s.name)).toEqual(['Old fixture', 'Sine bar draft', 'Wedge, 7.5° face']);
+    expect(list.body.setups.map((s: { name: string }) => s.name)).toEqual(['Old fixture', 'Sine bar draft', 'Sine bar on the crib box', 'Wedge, 7.5° face']);
+    // The set-up names the imported box by its new id.
+    const boxes = await lead.agent.get('/api/inventories').expect(200);
+    const crib = boxes.body.gaugeSets.find((g: { name: string }) => g.name === 'Inch set, tool crib');
+    expect(crib.id).not.toBe(sourceBoxId);
+    const boxed = await lead.agent.get(`/api/setups/${list.body.setups.find((s: { name: string }) => s.name === 'Sine bar on the crib box').id}`).expect(200);
+    expect(boxed.body.inputs.set).toBe(`box:${crib.id}`);
+    const history = await lead.agent.get(`/api/setups/${boxed.body.id}/revisions`).expect(200);
+    expect(JSON.stringify(history.body.revisions)).not.toContain(`box:${sourceBoxId}"`);
+    expect(history.body.revisions[0].changes).toContainEqual(expect.objectContaining({ field: 'inputs.set', from: 'inch-81', to: `box:${crib.id}` }));
     const wedge = list.body.setups.find((s: { name: string }) => s.name.startsWith('Wedge'));
     expect(wedge).toMatchObject({ status: 'released', version: 3, job: 'KL-2291', ownerName: m.lead.name });
     const files = await lead.agent.get(`/api/setups/${wedge.id}/attachments`).expect(200);

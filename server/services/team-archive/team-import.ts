@@ -9,6 +9,7 @@ import type { ObjectStorage } from '../storage/object-storage';
 import type { ArchiveFile, TeamArchiveManifest, TeamRow } from './team-export';
 import { readTarGz, type TarEntry } from './tar-reader';
 import { TEAM_ARCHIVE_FORMAT, TEAM_TABLES } from './team-tables';
+import { remapInputsText, remapRevisionText } from './box-refs';
 
 /** The archive cannot be imported as it is (damaged, another format, inconsistent). */
 export class ImportInvalid extends Error {
@@ -164,6 +165,10 @@ export async function importTeamArchive(sequelize: Sequelize, storage: ObjectSto
             } else if (isRecord(value) || Array.isArray(value)) {
               throw new ImportInvalid(`${where}: ${column} holds an object; every stored value is text, a number or null.`);
             } else row[column] = value ?? null;
+          }
+          if (spec.table === 'setups') row['inputs'] = remapInputsText(row['inputs'], ids['inventory_sets']!);
+          if (spec.table === 'setup_revisions') {
+            for (const column of ['snapshot', 'changes'] as const) row[column] = remapRevisionText(column, row[column], ids['inventory_sets']!);
           }
           if (spec.table === 'attachments') {
             const oldKey = String(source['storageKey']);

@@ -24,11 +24,12 @@ export const TEAM_TABLES: readonly TeamTable[] = [
   { table: 'teams', where: 'id = :teamId', refs: {} },
   // Members keep their bcrypt password hashes, so they can sign in after a restore.
   { table: 'users', where: 'teamId = :teamId', refs: { teamId: 'teams' } },
+  // Block boxes before set-ups: a set-up's inputs may name a box ("box:<id>"), rewritten on import.
+  { table: 'inventory_sets', where: 'teamId = :teamId', refs: { teamId: 'teams' } },
+  { table: 'inventory_blocks', where: 'setId IN (SELECT id FROM inventory_sets WHERE teamId = :teamId)', refs: { setId: 'inventory_sets' } },
   { table: 'setups', where: 'teamId = :teamId', refs: { teamId: 'teams', ownerId: 'users', releasedById: 'users' } },
   { table: 'setup_revisions', where: `setupId IN (${TEAM_SETUPS})`, refs: { setupId: 'setups', userId: 'users' } },
   { table: 'attachments', where: 'teamId = :teamId', refs: { teamId: 'teams', setupId: 'setups', uploadedById: 'users' } },
-  { table: 'inventory_sets', where: 'teamId = :teamId', refs: { teamId: 'teams' } },
-  { table: 'inventory_blocks', where: 'setId IN (SELECT id FROM inventory_sets WHERE teamId = :teamId)', refs: { setId: 'inventory_sets' } },
   { table: 'batch_runs', where: 'teamId = :teamId', refs: { teamId: 'teams', setupId: 'setups', startedById: 'users', closedById: 'users' } },
   { table: 'batch_parts', where: 'runId IN (SELECT id FROM batch_runs WHERE teamId = :teamId)', refs: { runId: 'batch_runs', operatorId: 'users', correctedById: 'users' } },
   // Only the sha256 of an invitation's token is stored; even that stays out of the archive.

@@ -109,6 +109,24 @@ describe('SineBarPage with the team inventory', () => {
     expect(page.el.querySelector('input[formcontrolname="missing"]')).toBeNull();
   });
 
+  it('should say what to do when the box cannot make the stack for the angle', async () => {
+    // 5 in · sin 0.01° = 0.00087 in, rounded 0.0009 in (derived); no block in the box is that thin.
+    await create(true, '/sine-bar?mode=angle&angle=0.01&set=box:7');
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await page.settle();
+    http
+      .expectOne((r) => r.url === '/api/inventories/gauge-sets/7/stack' && r.params.get('target') === '0.0009')
+      .flush(
+        { error: 'Gauge stack: target cannot be made from the blocks in the box (0.0009 in wanted)', fields: { target: 'cannot be made from the blocks in the box (0.0009 in wanted)' }, excluded: [] },
+        { status: 422, statusText: 'Unprocessable Entity' },
+      );
+    await page.settle();
+    expect(page.el.querySelector('.warnings.problem')?.textContent).toContain(
+      'The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.',
+    );
+    expect(page.resultValue('Blocks')).toBe('none from the box');
+  });
+
   it('should list stacks without blocks for the box in the table, asking nothing per row', async () => {
     await create(true, '/sine-bar?mode=table&set=box:7');
     http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });

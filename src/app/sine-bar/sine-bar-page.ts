@@ -108,7 +108,7 @@ export default class SineBarPage {
     const gone = st.status === 'done' ? st.answer.excluded : st.status === 'failed' ? st.excluded : [];
     return {
       name: box.name,
-      problem: st.status === 'failed' ? st.message : null,
+      problem: st.status === 'failed' ? (st.field === 'target' ? unmakeableStack(st.query.target, this.unit(), this.mode() === 'angle') : st.message) : null,
       asking: st.status === 'loading',
       leftOut: excludedNote(gone, this.unit()),
     };
@@ -218,4 +218,13 @@ export default class SineBarPage {
   protected printSheet(): void {
     window.print();
   }
+}
+
+/**
+ * The box cannot give the stack: what to do instead, as the engine says it for a standard set
+ * (for a stack typed in, changing the angle is no answer).
+ */
+export function unmakeableStack(target: string, unit: string, forAngle: boolean): string {
+  const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
+  return `The box cannot make a ${target} ${unit} stack; ${fix}.`;
 }
