@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { ConnectionError, ConnectionRefusedError, ConnectionTimedOutError } from 'sequelize';
+import { ConnectionError, ConnectionRefusedError, ConnectionTimedOutError, UniqueConstraintError } from 'sequelize';
 import { HttpError } from './http-error';
 
 /** Unknown /api paths answer JSON, never the app's HTML. */
@@ -34,6 +34,11 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   }
   if (typeof status === 'number' && status >= 400 && status < 500) {
     res.status(status).json({ error: e.message || 'The request could not be processed.' });
+    return;
+  }
+  if (err instanceof UniqueConstraintError) {
+    // Two requests raced past a route's own check for a taken name: the database kept the first.
+    res.status(409).json({ error: 'Something of that name was saved just now; choose another name and try again.' });
     return;
   }
   if (isDatabaseDown(err)) {

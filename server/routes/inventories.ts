@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
-import type { Sequelize } from 'sequelize';
-import { inventoryAngleQuery, inventoryBlockPatch, inventoryCreateBody, inventoryStackQuery, inventoryUpdateBody, type InventoryListDto, type InventoryType } from '../../shared/api/inventory';
+import { Op, type Sequelize } from 'sequelize';
+import { blockSetDetailErrors, inventoryAngleQuery, inventoryBlockPatch, inventoryCreateBody, inventoryStackQuery, inventoryUpdateBody, type InventoryListDto, type InventoryType } from '../../shared/api/inventory';
 import { calculateAngleBlocks } from '../../shared/calc/angle-blocks';
 import { calculateGaugeStack } from '../../shared/calc/gauge-stack';
 import { currentUser } from '../middleware/auth';
@@ -10,6 +10,7 @@ import { InventoryBlock, InventorySet } from '../models/inventory';
 import type { User } from '../models/user';
 import { blockLabel, findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
 import { boxBlockAngles } from '../../shared/forms/angle-blocks-form';
+import { boxStackRequest } from '../../shared/library/team-boxes';
 
 /** Roles that manage the shop's inventories. */
 const MANAGERS = new Set(['admin', 'lead']);
@@ -76,6 +77,8 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       } else {
         throw new HttpError(400, 'Some fields are not valid.', { standardSet: 'Start from a standard set or list the blocks.' });
       }
+      const details = blockSetDetailErrors(type, unit, body);
+      if (Object.keys(details).length > 0) throw new HttpError(400, 'Some fields are not valid.', details);
       if (await InventorySet.findOne({ where: { teamId: user.teamId, type, name: body.name } })) {
         throw new HttpError(409, 'Your team already has a set with that name.', { name: 'Choose another name.' });
       }
@@ -102,6 +105,11 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       const set = await findSet(req, type);
       requireManager(user);
       const body = parseBody(inventoryUpdateBody, req.body);
+      const details = blockSetDetailErrors(type, set.unit, body);
+      if (Object.keys(details).length > 0) throw new HttpError(400, 'Some fields are not valid.', details);
+      if (await InventorySet.findOne({ where: { teamId: user.teamId, type, name: body.name, id: { [Op.ne]: set.id } } })) {
+        throw new HttpError(409, 'Your team already has a set with that name.', { name: 'Choose another name.' });
+      }
       const [count] = await InventorySet.update(
         {
           name: body.name,
@@ -154,11 +162,9 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
   router.get('/gauge-sets/:id/stack', async (req, res) => {
     const set = await findSet(req, 'gauge-blocks');
     const q = parseQuery(inventoryStackQuery, req.query);
-    const usable = (set.blocks ?? []).filter((b) => b.available > 0);
-    if (usable.length === 0) throw new HttpError(422, 'Every block of this set is marked missing or damaged.');
-    const grade = q.grade ?? (set.grade && ['K', '0', '1', '2'].includes(set.grade) ? set.grade : undefined);
-    const wear = q.wear !== 'no' && set.wearBlockSize && set.wearBlockCount >= 2 ? set.wearBlockSize : undefined;
-    const result = calculateGaugeStack({ target: q.target, unit: set.unit, blocks: usable.map((b) => ({ size: b.size, count: b.available })), grade, wearBlocks: wear });
+    const request = boxStackRequest({ ...set.get({ plain: true }), blocks: set.blocks ?? [] }, { target: q.target, grade: q.grade, wear: q.wear !== 'no' });
+    if (!request) throw new HttpError(422, 'Every block of this set is marked missing or damaged.');
+    const result = calculateGaugeStack(request);
     const excluded = (set.blocks ?? []).filter((b) => b.missing + b.damaged > 0).map((b) => ({ size: b.size, missing: b.missing, damaged: b.damaged }));
     if (!result.ok) {
       res.status(result.kind === 'invalid' ? 400 : 422).json({ error: result.error, fields: result.fields, excluded });

@@ -19,6 +19,7 @@ import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '
 import { listOwners, listSetupsJson, readVisibleSetupJson } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
+import { teamBoxesFor } from '../services/team-boxes';
 import { notifySetupReleased } from '../services/team-mail';
 import type { ObjectStorage } from '../services/storage/object-storage';
 import { createAttachmentsRouter } from './attachments';
@@ -150,7 +151,7 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     if (setup.status === to) throw new HttpError(409, `This set-up is already ${to}.`);
     if (to === 'released') {
       // A released set-up is run on parts: its numbers must come out of the engine.
-      const results = setupResults(setup.kind, setup.inputs);
+      const results = setupResults(setup.kind, setup.inputs, await teamBoxesFor(setup.teamId, setup.kind, setup.inputs));
       if (!results.ok && !results.pageOnly) {
         throw new HttpError(422, `This set-up does not compute, so it cannot be released: ${results.error}. Open it in its calculator, correct the inputs and save it again.`);
       }
@@ -202,7 +203,8 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     const user = currentUser(req);
     const setup = await findVisibleSetup(parseId(req.params['id']), user);
     const attachments = await Attachment.findAll({ where: { setupId: setup.id }, order: [['id', 'ASC']] });
-    const pdf = await renderSetupSheet({ setup, attachments, storage, link: `${config.publicUrl.replace(/\/$/, '')}/library/${setup.id}` });
+    const boxes = await teamBoxesFor(setup.teamId, setup.kind, setup.inputs);
+    const pdf = await renderSetupSheet({ setup, attachments, storage, boxes, link: `${config.publicUrl.replace(/\/$/, '')}/library/${setup.id}` });
     res.type('application/pdf').attachment(`setup-sheet-${setup.id}-v${setup.version}.pdf`).send(pdf);
   });
 

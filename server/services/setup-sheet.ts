@@ -5,6 +5,7 @@ import type { Setup } from '../models/setup';
 import { inputRows, setupResults, type SetupResults } from '../../shared/library/setup-results';
 import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape, type TaperSketchHolding } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
+import type { TeamBoxes } from '../../shared/library/team-boxes';
 
 /** What a set-up sheet is made from. */
 export interface SheetSource {
@@ -13,6 +14,8 @@ export interface SheetSource {
   storage: ObjectStorage;
   /** Address of the set-up in the app, printed and linked at the foot of the sheet. */
   link: string;
+  /** The team box the set-up names, loaded with what is in it now (none: answered on its page only). */
+  boxes?: TeamBoxes;
 }
 
 // The standard PDF fonts only cover Windows-1252; these stand in for the symbols derivations use.
@@ -241,9 +244,9 @@ function rows(doc: PDFKit.PDFDocument, pairs: ReadonlyArray<readonly [string, st
  * engine, check values, derivation, notes, attached drawings, cautions and a link back. Streams are
  * left uncompressed (the sheets are small), so the text stays searchable.
  */
-export async function renderSetupSheet({ setup, attachments, storage, link }: SheetSource): Promise<Buffer> {
+export async function renderSetupSheet({ setup, attachments, storage, link, boxes }: SheetSource): Promise<Buffer> {
   const inputs = setup.inputs;
-  const results = setupResults(setup.kind, inputs);
+  const results = setupResults(setup.kind, inputs, boxes);
   const metric = inputs['unit'] === 'mm';
   const doc = new PDFDocument({
     size: metric ? 'A4' : 'LETTER',
@@ -311,6 +314,9 @@ export async function renderSetupSheet({ setup, attachments, storage, link }: Sh
   if (results.ok && results.stack?.length) {
     heading(doc, 'Gauge-block stack (wringing order)');
     doc.text(pdfText(`${results.stack.join(' + ')}  (${results.stack.length} ${results.stack.length === 1 ? 'block' : 'blocks'})`));
+  }
+  if (results.ok && results.box) {
+    doc.moveDown(0.2).fillColor(MUTED).text(pdfText(`Blocks from our box "${results.box.name}", as the team's inventory stood when this sheet was printed (${new Date().toISOString().slice(0, 10)}); blocks marked missing or damaged are left out.`)).fillColor(INK);
   }
 
   if (setup.checks.length) {

@@ -73,6 +73,26 @@ export const inventoryCreateBody = z.object({
 });
 export type InventoryCreateBody = z.infer<typeof inventoryCreateBody>;
 
+/** Accuracy grades of gauge blocks (ISO 3650); the stack solver works with these. */
+export const GAUGE_GRADES = ['K', '0', '1', '2'] as const;
+
+/** Thickest wear block a gauge set may keep, per unit (common practice: 0.050 or 0.100 in, 1 or 2 mm). */
+const MAX_WEAR_BLOCK: Readonly<Record<string, number>> = { in: 0.25, mm: 6 };
+
+/**
+ * What is wrong with a gauge set's grade and wear blocks for its unit (field → message), or
+ * nothing. Angle-block grades are free text.
+ */
+export function blockSetDetailErrors(type: InventoryType, unit: string, d: { grade?: string | null | undefined; wearBlockSize?: string | null | undefined; wearBlockCount?: number | undefined }): Record<string, string> {
+  const errors: Record<string, string> = {};
+  if (type !== 'gauge-blocks') return errors;
+  if (d.grade && !(GAUGE_GRADES as readonly string[]).includes(d.grade)) errors['grade'] = `Grade must be one of ${GAUGE_GRADES.join(', ')} (ISO 3650), or left empty.`;
+  const most = MAX_WEAR_BLOCK[unit];
+  if (d.wearBlockSize && most !== undefined && Number(d.wearBlockSize) > most) errors['wearBlockSize'] = `A wear block is a thin end block: at most ${most} ${unit}.`;
+  if (d.wearBlockCount !== undefined && d.wearBlockCount > 2) errors['wearBlockCount'] = 'Wear blocks come as a pair: 0, 1 or 2.';
+  return errors;
+}
+
 /** PUT /api/inventories/{gauge,angle}-sets/:id: the set's own fields, with the version it was based on. */
 export const inventoryUpdateBody = z.object({
   name: inventoryCreateBody.shape.name,

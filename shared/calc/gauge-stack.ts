@@ -287,13 +287,16 @@ export function calculateGaugeStack(input: GaugeStackRequest | unknown): CalcRes
     let core = p.target;
     if (wear) {
       core = p.target.minus(wear.mul(2));
-      if (core.lte(0)) return impossible(AREA, 'wearBlocks', `make ${wear.mul(2).toString()} ${unit} together, which leaves nothing to build for the target`);
+      if (core.lte(0)) return impossible(AREA, 'wearBlocks', `make ${wear.mul(2).toString()} ${unit} together, which leaves nothing to build for the target; try without the wear blocks`);
       steps.push(step('Length to build between the wear blocks', 'L′ = L − 2·w', `L′ = ${p.target.toString()} − 2 · ${wear.toString()}`, formatStack(core, box), unit));
     }
     const blocker = stackBlocker(box, core);
     if (blocker) return impossible(AREA, 'target', blocker);
     const fewest = fewestBlocks(box, core);
-    if (!fewest) return impossible(AREA, 'target', `cannot be made from the blocks in the box (${formatStack(core, box)} ${unit} wanted)`);
+    if (!fewest) {
+      const between = wear ? ` between the two ${wear.toString()} ${unit} wear blocks; try without the wear blocks` : '';
+      return impossible(AREA, 'target', `cannot be made from the blocks in the box (${formatStack(core, box)} ${unit} wanted${between})`);
+    }
     // Show the work the way it is done by hand: smallest block first, each clearing digits.
     let remainder = core;
     for (const b of [...fewest].reverse()) {

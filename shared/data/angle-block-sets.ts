@@ -22,7 +22,7 @@ export interface AngleBlockSet {
 export const ANGLE_BLOCK_SETS: readonly AngleBlockSet[] = [
   {
     id: 'angle-13-carvill',
-    name: '13-piece set as printed by Carvill',
+    name: '13-piece set: 12 angle blocks and a square block (handbook listing)',
     blocks: ['1°', '3°', '9°', '27°', '41°', "1'", "3'", "9'", "27'", '3"', '9"', '27"'],
     extras: ['square block'],
     source: "REFERENCE.md §6: Carvill, Mechanical Engineer's Data Handbook p. 270 (OCR)",

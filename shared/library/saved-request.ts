@@ -1,11 +1,13 @@
-import { type CalcResult, fail, succeed } from '../calc/step';
+import { type CalcResult, fail, impossible, succeed } from '../calc/step';
+import { withLeadingZero } from '../api/setup';
 import { savedForm } from '../forms/form-text';
-import { type AngleBlocksForm, toAngleBlocksRequest } from '../forms/angle-blocks-form';
+import { type AngleBlocksForm, boxBlockAngles, toAngleBlocksRequest } from '../forms/angle-blocks-form';
 import { type GaugeBlocksFormValues, boxIdOf, toGaugeStackRequest } from '../forms/gauge-blocks-form';
 import { type LatheTapersForm, latheRequest } from '../forms/lathe-taper-form';
 import { overPinsRequestFromInputs } from '../forms/pins-rolls-form';
 import { type SineBarFormValues, toSineBarRequest } from '../forms/sine-bar-form';
 import { type TaperFormValues, toTaperRequest } from '../forms/taper-form';
+import { type TeamBox, boxStackRequest } from './team-boxes';
 
 /** A gauge-block form saved from its page: every field of it, as text (the engine takes a list of missing blocks). */
 function isGaugeForm(inputs: Record<string, unknown>): boolean {
@@ -26,7 +28,7 @@ function openOnPage(what: string): CalcResult<never> {
  * that choice uses, and so does this, through the same functions (shared/forms). Inputs already in
  * the engine's shape (saved or imported through the API) are used as they are.
  */
-export function savedRequest(kind: string, inputs: Record<string, unknown>): CalcResult<Record<string, unknown>> {
+export function savedRequest(kind: string, inputs: Record<string, unknown>, box: TeamBox | null = null): CalcResult<Record<string, unknown>> {
   const has = (key: string) => typeof inputs[key] === 'string';
   switch (kind) {
     case 'taper':
@@ -44,14 +46,29 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>): Cal
     case 'gauge-blocks': {
       if (!isGaugeForm(inputs)) return succeed(inputs);
       const form = savedForm<GaugeBlocksFormValues>(inputs);
-      if (boxIdOf(form.set) !== null) return openOnPage('A stack from one of the team\'s own gauge-block boxes');
+      if (boxIdOf(form.set) !== null) {
+        // The team's box at hand: the stack from what is in it, as the inventory route picks it.
+        if (!box) return openOnPage('A stack from one of the team\'s own gauge-block boxes');
+        const request = boxStackRequest(box, { target: withLeadingZero(form.target.trim()), grade: form.grade || undefined, wear: form.wearBlocks !== '' });
+        return request ? succeed({ ...request }) : impossible('Gauge stack', 'set', 'has every block marked missing or damaged in the team\'s inventory');
+      }
       return succeed({ ...toGaugeStackRequest(form) });
     }
     case 'lathe-taper':
       return has('define') ? succeed({ ...latheRequest(savedForm<LatheTapersForm>(inputs)) }) : succeed(inputs);
     case 'angle-blocks':
       if (!has('mode')) return succeed(inputs);
-      if (boxIdOf(savedForm<AngleBlocksForm>(inputs).set) !== null) return openOnPage('A combination from one of the team\'s own angle-block boxes');
+      if (boxIdOf(savedForm<AngleBlocksForm>(inputs).set) !== null) {
+        // The team's box at hand: its usable blocks, as the angle-block page solves with them.
+        if (!box) return openOnPage('A combination from one of the team\'s own angle-block boxes');
+        const form = savedForm<AngleBlocksForm>(inputs);
+        const request = toAngleBlocksRequest({ mode: form.mode, set: '', angle: form.angle, combination: form.combination });
+        if (!request.ok) return request;
+        const blocks = boxBlockAngles(box.blocks);
+        if (blocks.length === 0) return impossible('Angle blocks', 'set', 'has every block marked missing or damaged in the team\'s inventory');
+        const { set: _set, ...rest } = request.value;
+        return succeed({ ...rest, blocks });
+      }
       return toAngleBlocksRequest(savedForm<AngleBlocksForm>(inputs));
     case 'pins-rolls':
       return succeed(overPinsRequestFromInputs(inputs));

@@ -3,7 +3,7 @@ import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
-import type { CalcResult, Step } from '../calc/step';
+import { type CalcResult, type Step, step } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { labelOf, savedForm } from '../forms/form-text';
 import { boxIdOf } from '../forms/gauge-blocks-form';
@@ -12,6 +12,7 @@ import { findGaugeSet } from '../data/gauge-sets';
 import { findMachineTaper } from '../data/machine-tapers';
 import { HOLDING_OPTIONS, type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
+import { type TeamBox, type TeamBoxes, boxStackRequest, namedBox, unmakeableStack } from './team-boxes';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -45,6 +46,8 @@ export type SetupResults =
        * has none.
        */
       holding: SetupHolding | null;
+      /** The team's box the set-up was answered with (its blocks as they are now), or null. */
+      box: { id: number; name: string } | null;
     }
   /** `pageOnly`: the set-up is sound but answered on its calculator page only (a sine table, a team box…). */
   | { ok: false; error: string; pageOnly?: true };
@@ -77,16 +80,26 @@ function withUnit(key: string, v: string, unit: string): string {
   return `${v}${unit}`;
 }
 
-/** Runs the set-up's inputs through the shared engine and flattens the answer for the sheet. */
-export function setupResults(kind: string, inputs: Record<string, unknown>): SetupResults {
+/**
+ * Runs the set-up's inputs through the shared engine and flattens the answer for the sheet. A
+ * set-up naming one of the team's boxes is answered with that box when `boxes` holds it (what is
+ * in it now); without it, such a set-up is answered on its calculator page only.
+ */
+export function setupResults(kind: string, inputs: Record<string, unknown>, boxes?: TeamBoxes): SetupResults {
   const engine = ENGINES[kind];
   if (!engine) return { ok: false, error: `No calculation is wired for "${kind}" set-ups yet; open the set-up in its calculator.` };
-  const request = savedRequest(kind, inputs);
+  const named = namedBox(kind, inputs);
+  const found = named ? boxes?.get(named.id) : undefined;
+  const box = named && found && found.type === named.type ? found : null;
+  const request = savedRequest(kind, inputs, box);
   if (!request.ok) return request.fields['body'] === OPEN_ON_PAGE ? { ok: false, error: request.error, pageOnly: true } : { ok: false, error: request.error };
-  const input = request.value;
-  const result = engine(input);
+  const result = engine(request.value);
   if (!result.ok) return { ok: false, error: result.error };
-  const value = result.value as Record<string, unknown>;
+  let value = result.value as Record<string, unknown>;
+  if (box && kind === 'sine-bar') value = sineBarWithBox(value, box, inputs['mode'] !== 'stack');
+  // Listed as the page shows it: the box by its name, not the blocks in it.
+  const { blocks: _blocks, ...boxless } = request.value;
+  const input = box ? { ...boxless, set: `box:${box.id}` } : request.value;
   const unit = typeof value['unit'] === 'string' ? ` ${value['unit']}` : '';
   const lines: ResultLine[] = [];
   for (const [key, v] of Object.entries(value)) {
@@ -113,6 +126,27 @@ export function setupResults(kind: string, inputs: Record<string, unknown>): Set
   return {
     ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions'),
     holding: holdingOf(kind, inputs, value),
+    box: box ? { id: box.id, name: box.name } : null,
+  };
+}
+
+/** A sine bar's stack with its blocks picked from the team's box, as the sine-bar page asks the inventory for them. */
+function sineBarWithBox(value: Record<string, unknown>, box: TeamBox, forAngle: boolean): Record<string, unknown> {
+  const stack = String(value['stackHeight']);
+  const unit = String(value['unit']);
+  const warnings = Array.isArray(value['warnings']) ? (value['warnings'] as string[]) : [];
+  if (box.unit !== unit) return { ...value, warnings: [...warnings, `The team's box "${box.name}" holds ${box.unit} blocks; this set-up is in ${unit}, so no blocks are picked from it.`] };
+  if (Number(stack) === 0) return { ...value, blocks: [], blockCount: 0 };
+  const request = boxStackRequest(box, { target: stack, wear: false });
+  const found = request ? calculateGaugeStack(request) : null;
+  if (!found?.ok) return { ...value, warnings: [...warnings, unmakeableStack(stack, unit, forAngle)] };
+  const blocks = found.value.blocks;
+  const steps = Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [];
+  return {
+    ...value,
+    blocks,
+    blockCount: blocks.length,
+    steps: [...steps, step('Fewest blocks', 'Σ blocks = H', blocks.join(' + '), String(blocks.length), blocks.length === 1 ? 'block' : 'blocks')],
   };
 }
 
@@ -151,14 +185,15 @@ export function listedInputs(kind: string, saved: Record<string, unknown>, resul
  * length") and the value as text, with set, taper and holding ids by their names.
  */
 export function inputRows(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<{ label: string; value: string }> {
-  return listedInputs(kind, saved, results).map(([key, value]) => ({ label: labelOf(key), value: namedValue(kind, key, value) }));
+  const box = results.ok ? results.box : null;
+  return listedInputs(kind, saved, results).map(([key, value]) => ({ label: labelOf(key), value: namedValue(kind, key, value, box) }));
 }
 
 /** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
-function namedValue(kind: string, key: string, value: unknown): string {
+function namedValue(kind: string, key: string, value: unknown, known: { id: number; name: string } | null): string {
   if (typeof value === 'string' && value !== '') {
     const box = boxIdOf(value);
-    if (box !== null) return `the team's own box (no. ${box})`;
+    if (box !== null) return known?.id === box ? `Our box: ${known.name}` : `the team's own box (no. ${box})`;
     if (key === 'holding') return HOLDING_OPTIONS.find((o) => o.value === value)?.label ?? value;
     if (key === 'standard') return findMachineTaper(value)?.name ?? value;
     if (key === 'angleSet' || (key === 'set' && kind === 'angle-blocks')) return findAngleBlockSet(value)?.name ?? value;

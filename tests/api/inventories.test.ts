@@ -116,6 +116,26 @@ describe('/api/inventories', () => {
       expect(stale.body.version).toBe(fresh.version + 1);
     });
 
+    it('should refuse a name another set of the team has, on a rename too (409, never a 500)', async () => {
+      const fresh = (await c.admin.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(200)).body;
+      const other = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: `Second box ${Date.now()}`, standardSet: 'inch-36' }).expect(201);
+      const taken = await send(c.lead, 'put', `/api/inventories/gauge-sets/${other.body.id}`, { name: fresh.name, version: other.body.version }).expect(409);
+      expect(taken.body).toEqual({ error: 'Your team already has a set with that name.', fields: { name: 'Choose another name.' } });
+      // Keeping its own name is no clash.
+      await send(c.lead, 'put', `/api/inventories/gauge-sets/${other.body.id}`, { name: other.body.name, version: other.body.version }).expect(200);
+    });
+
+    it('should refuse a gauge set grade outside ISO 3650 and wear blocks that are not thin end blocks', async () => {
+      const fresh = (await c.admin.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(200)).body;
+      const bad = await send(c.lead, 'put', `/api/inventories/gauge-sets/${set.id}`, { name: fresh.name, grade: 'Z9', wearBlockSize: '100', wearBlockCount: 3, version: fresh.version }).expect(400);
+      expect(Object.keys(bad.body.fields).sort()).toEqual(['grade', 'wearBlockCount', 'wearBlockSize']);
+      expect(bad.body.fields.grade).toBe('Grade must be one of K, 0, 1, 2 (ISO 3650), or left empty.');
+      expect((await c.admin.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(200)).body.version).toBe(fresh.version);
+      await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Graded oddly', standardSet: 'inch-36', grade: 'AA' }).expect(400);
+      // Angle-block grades are free text.
+      await send(c.admin, 'post', '/api/inventories/angle-sets', { name: `Angle box ${Date.now()}`, standardSet: 'angle-16', grade: 'Lab grade' }).expect(201);
+    });
+
     it('should hide other teams\' sets', async () => {
       await c.foreign.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(404);
       await c.foreign.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=1`).expect(404);

@@ -375,6 +375,36 @@ describe('set-up library', () => {
       expect(text).not.toContain('?');
     });
 
+    it('should print the stack from the team\'s own box, by the box\'s name, and only a box of the team', async () => {
+      const box = await post(c.admin, '/api/inventories/gauge-sets', { name: 'Inch set, sheet crib', standardSet: 'inch-81', grade: '0' }).expect(201);
+      const block = (box.body.blocks as Array<{ id: number; size: string }>).find((b) => b.size === '0.1007')!;
+      await c.admin.agent.patch(`/api/inventories/gauge-sets/${box.body.id}/blocks/${block.id}`).set('X-CSRF-Token', c.admin.token).send({ missing: 1 }).expect(200);
+      const form = { unit: 'in', target: '0.2507', set: `box:${box.body.id}`, missing: '', wearBlocks: '', grade: '', temperature: '' };
+      const s = await create(c.machinist, { name: 'Stack from the crib box', kind: 'gauge-blocks', inputs: form }).expect(201);
+      const text = pdfText((await sheet(c.machinist, s.body.id)).body as Buffer);
+      // 0.2507 in from an 81-piece set is 0.1007 + 0.150; without the 0.1007 it takes another combination (derived by hand).
+      const stack = /Gauge-block stack \(wringing order\)\s+([\d. +]+?)\s+\((\d+) blocks?\)/.exec(text);
+      expect(stack).not.toBeNull();
+      const blocks = stack![1]!.trim().split(' + ');
+      expect(blocks.reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0)).toBe(2_507);
+      expect(blocks).not.toContain('0.1007');
+      expect(text).toContain('Blocks from our box "Inch set, sheet crib"');
+      expect(text).toContain('Our box: Inch set, sheet crib');
+      expect(text).not.toContain('open the set-up in its calculator');
+      // Another team's box of that number is never read: the set-up is then answered on its page only.
+      const theirs = await post(c.foreign, '/api/setups', { name: 'Their stack', kind: 'gauge-blocks', inputs: form }).expect(201);
+      const foreignText = pdfText((await sheet(c.foreign, theirs.body.id)).body as Buffer);
+      expect(foreignText).not.toContain('sheet crib');
+      expect(foreignText).toContain('open the set-up in its calculator');
+      // A box with every block out of use cannot make it: the set-up is not released.
+      const empty = await post(c.admin, '/api/inventories/gauge-sets', { name: 'Empty crib', blocks: [{ size: '0.1', count: 1 }], unit: 'in' }).expect(201);
+      await c.admin.agent.patch(`/api/inventories/gauge-sets/${empty.body.id}/blocks/${empty.body.blocks[0].id}`).set('X-CSRF-Token', c.admin.token).send({ damaged: 1 }).expect(200);
+      const hopeless = await create(c.machinist, { name: 'From the empty crib', kind: 'gauge-blocks', inputs: { ...form, set: `box:${empty.body.id}` } }).expect(201);
+      const refused = await post(c.lead, `/api/setups/${hopeless.body.id}/release`).expect(422);
+      expect(refused.body.error).toMatch(/does not compute.*every block marked missing or damaged/);
+      await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+    });
+
     it('should follow the set-up\'s access rules', async () => {
       const s = await create(c.machinist, { name: 'Private sheet' }).expect(201);
       await c.other.agent.get(`/api/setups/${s.body.id}/sheet.pdf`).expect(404);

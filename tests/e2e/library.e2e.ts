@@ -197,4 +197,26 @@ describe('set-up library, end to end', () => {
     await screenshot(page, 'library-detail-768');
     expect(machinist.problems).toEqual([]);
   });
+
+  it('should answer a set-up saved with the team\'s own box from what is in the box', async () => {
+    const inventory = (await (await machinist.context.request.get('/api/inventories')).json()) as { gaugeSets: Array<{ id: number; name: string; unit: string }> };
+    const box = inventory.gaugeSets.find((g) => g.unit === 'in')!;
+    const res = await machinist.context.request.post('/api/setups', {
+      headers: { 'X-CSRF-Token': await csrf(machinist.context) },
+      data: { name: `${NAME} box`, kind: 'sine-bar', inputs: { mode: 'stack', unit: 'in', barLength: '5', angle: '', stackHeight: '0.2507', set: `box:${box.id}`, missing: '' } },
+    });
+    expect(res.status()).toBe(201);
+    const page = machinist.page;
+    await page.setViewportSize(DESKTOP);
+    await page.goto(`/library/${((await res.json()) as { id: number }).id}`);
+    const stack = page.getByText(/^Gauge-block stack:/);
+    await stack.waitFor();
+    const blocks = ((await stack.textContent()) ?? '').replace('Gauge-block stack:', '').trim().split(' + ');
+    // The blocks add up to the stack (from the box as it is, whatever the demo marked missing).
+    expect(blocks.reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0)).toBe(2_507);
+    await page.getByText(`Blocks from our box "${box.name}"`).waitFor();
+    await page.getByText(`Our box: ${box.name}`).waitFor();
+    await expect(page.getByText('open the set-up in its calculator').count()).resolves.toBe(0);
+    expect(machinist.problems).toEqual([]);
+  });
 });

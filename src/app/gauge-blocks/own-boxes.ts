@@ -100,7 +100,7 @@ export type BoxStackState =
     };
 
 /** Readable names of the route's query fields, for its messages. */
-const FIELD_NAMES: Readonly<Record<string, string>> = { target: 'Stack length', wearBlocks: 'Wear blocks', grade: 'Grade' };
+const FIELD_NAMES: Readonly<Record<string, string>> = { target: 'Stack length', wearBlocks: 'Wear blocks', grade: 'Grade', angle: 'Angle', blocks: 'Blocks' };
 
 /** A failed stack request as one sentence naming the field (the route answers 400/422 with `fields`). */
 export function boxFailureMessage(err: unknown): string {

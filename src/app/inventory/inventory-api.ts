@@ -40,8 +40,9 @@ export class InventoryApi {
     return this.http.get<{ sets: StandardSetDto[] }>('/api/inventories/standard-sets');
   }
 
-  get(type: InventoryType, id: number): Observable<InventorySetDto> {
-    return this.http.get<InventorySetDto>(`/api/inventories/${PATHS[type]}/${id}`);
+  /** One set with its blocks; `quiet`: a failure is the caller's to show (no notice). */
+  get(type: InventoryType, id: number, quiet = false): Observable<InventorySetDto> {
+    return this.http.get<InventorySetDto>(`/api/inventories/${PATHS[type]}/${id}`, quiet ? { context: quietErrors() } : {});
   }
 
   create(type: InventoryType, body: InventoryCreateBody): Observable<InventorySetDto> {
@@ -53,8 +54,9 @@ export class InventoryApi {
   }
 
   /** Fewest-block stack (gauge sets) or combination (angle sets) from what is in the box. */
-  answer(type: InventoryType, setId: number, wanted: string): Observable<InventoryAnswer> {
-    const params = type === 'gauge-blocks' ? new HttpParams().set('target', wanted) : new HttpParams().set('angle', wanted);
+  /** A stack (between the wear blocks when `wear`) or a combination from what is in the box. */
+  answer(type: InventoryType, setId: number, wanted: string, wear = false): Observable<InventoryAnswer> {
+    const params = type === 'gauge-blocks' ? new HttpParams().set('target', wanted).set('wear', wear ? 'yes' : 'no') : new HttpParams().set('angle', wanted);
     const path = type === 'gauge-blocks' ? 'stack' : 'combination';
     return this.http.get<InventoryAnswer>(`/api/inventories/${PATHS[type]}/${setId}/${path}`, { params, context: quietErrors() });
   }

@@ -67,4 +67,69 @@ describe('InventoryPage', () => {
     await fixture.whenStable();
     expect(el().querySelector('.result')?.textContent).toContain('0.2000 in');
   });
+
+  it('should say why marking a block was refused and show the set as it is now', async () => {
+    await open('lead');
+    (el().querySelector('button[aria-label="Mark a 0.200 in block damaged"]') as HTMLButtonElement).click();
+    http
+      .expectOne('/api/inventories/gauge-sets/4/blocks/11')
+      .flush({ error: 'Missing and damaged together cannot exceed the 1 block(s) of this size in the set.' }, { status: 400, statusText: 'Bad Request' });
+    // Someone else marked it missing meanwhile: the page reloads the set.
+    const now = { ...SET, blocks: [SET.blocks![0]!, { ...SET.blocks![1]!, missing: 1, available: 0 }] };
+    http.expectOne('/api/inventories/gauge-sets/4').flush(now);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('[role="alert"]')?.textContent).toContain('0.200 in: Missing and damaged together cannot exceed the 1 block(s)');
+    expect(Array.from(el().querySelectorAll('tbody tr')).map((r) => r.classList.contains('short'))).toEqual([true, true]);
+  });
+
+  it('should clear an old answer and ask for a height when the field is emptied', async () => {
+    await open('machinist');
+    const input = el().querySelector('form.answer input') as HTMLInputElement;
+    input.value = '0.2000';
+    input.dispatchEvent(new Event('input'));
+    (el().querySelector('form.answer button') as HTMLButtonElement).click();
+    http.expectOne((r) => r.url === '/api/inventories/gauge-sets/4/stack').flush({ blocks: ['0.200'], count: 1, total: '0.2000', excluded: [] });
+    fixture.detectChanges();
+    input.value = '  ';
+    input.dispatchEvent(new Event('input'));
+    (el().querySelector('form.answer button') as HTMLButtonElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('.result')).toBeNull();
+    expect(el().querySelector('[role="alert"]')?.textContent).toContain('Type the stack height, e.g. 1.2505 (in).');
+  });
+
+  it('should build between the wear blocks only when asked, and name the field in words when refused', async () => {
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal({ id: 1, email: 'x@example.test', name: 'X', role: 'machinist' }) } }],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(InventoryPage);
+    fixture.detectChanges();
+    const worn = { ...SET, wearBlockSize: '0.050', wearBlockCount: 2 };
+    http.expectOne('/api/inventories/standard-sets').flush({ sets: [] });
+    http.expectOne('/api/inventories').flush({ gaugeSets: [{ ...worn, blocks: undefined }], angleSets: [] });
+    http.expectOne('/api/inventories/gauge-sets/4').flush(worn);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const input = el().querySelector('form.answer input[name="wanted"]') as HTMLInputElement;
+    input.value = '0.2000';
+    input.dispatchEvent(new Event('input'));
+    const ask = () => (el().querySelector('form.answer button[type="submit"]') as HTMLButtonElement).click();
+    ask();
+    expect(http.expectOne((r) => r.url.endsWith('/stack')).request.params.get('wear')).toBe('no');
+    (el().querySelector('mat-checkbox input') as HTMLInputElement).click();
+    fixture.detectChanges();
+    ask();
+    const req = http.expectOne((r) => r.url.endsWith('/stack'));
+    expect(req.request.params.get('wear')).toBe('yes');
+    req.flush(
+      { error: 'Gauge stack: wearBlocks make 0.1 in together, which leaves nothing to build for the target; try without the wear blocks', fields: { wearBlocks: 'make 0.1 in together, which leaves nothing to build for the target; try without the wear blocks' } },
+      { status: 422, statusText: 'Unprocessable Entity' },
+    );
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('[role="alert"]')?.textContent?.trim()).toBe('Wear blocks make 0.1 in together, which leaves nothing to build for the target; try without the wear blocks.');
+  });
 });

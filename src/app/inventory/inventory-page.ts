@@ -3,6 +3,7 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -12,12 +13,13 @@ import { catchError, map, of } from 'rxjs';
 import type { InventoryBlockDto, InventoryListDto, InventorySetDto, InventoryType } from '../../../shared/api/inventory';
 import { apiErrorDetail } from '../core/api-error';
 import { Auth } from '../core/auth';
+import { boxFailureMessage } from '../gauge-blocks/own-boxes';
 import { InventoryApi, type InventoryAnswer } from './inventory-api';
 
 /** The shop's gauge-block and angle-block sets: what is in each box, missing and damaged blocks, and stacks from it. */
 @Component({
   selector: 'app-inventory-page',
-  imports: [FormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
+  imports: [FormsModule, MatButtonModule, MatButtonToggleModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './inventory-page.html',
   styleUrl: './inventory-page.scss',
@@ -31,6 +33,10 @@ export default class InventoryPage {
   protected readonly wanted = signal('');
   protected readonly answer = signal<InventoryAnswer | null>(null);
   protected readonly answerError = signal<string | null>(null);
+  /** Whether a gauge stack is built between the box's wear-block pair. */
+  protected readonly useWear = signal(false);
+  /** Why marking a block was refused (someone changed the set meanwhile, no right, offline). */
+  protected readonly markError = signal<string | null>(null);
   protected readonly newName = signal('');
   protected readonly newStandard = signal('');
   protected readonly createError = signal<string | null>(null);
@@ -53,6 +59,7 @@ export default class InventoryPage {
   protected open(set: InventorySetDto): void {
     this.answer.set(null);
     this.answerError.set(null);
+    this.markError.set(null);
     this.api.get(set.type, set.id).subscribe((full) => this.selected.set(full));
   }
 
@@ -60,25 +67,38 @@ export default class InventoryPage {
     const set = this.selected();
     if (!set) return;
     const next = Math.max(0, block[field] + delta);
-    this.api.patchBlock(set.type, set.id, block.id, { [field]: next }).subscribe((fresh) => {
-      this.selected.set(fresh);
-      this.list.update((l) => ({
-        gaugeSets: l.gaugeSets.map((s) => (s.id === fresh.id ? { ...fresh, blocks: undefined } : s)),
-        angleSets: l.angleSets.map((s) => (s.id === fresh.id ? { ...fresh, blocks: undefined } : s)),
-      }));
+    this.markError.set(null);
+    this.api.patchBlock(set.type, set.id, block.id, { [field]: next }).subscribe({
+      next: (fresh) => this.showFresh(fresh),
+      error: (err: unknown) => {
+        // Say why, and show the set as it is now (someone may have marked the block meanwhile).
+        this.markError.set(`${block.label}: ${apiErrorDetail(err)} The set is shown as it is now.`);
+        this.api.get(set.type, set.id).subscribe((fresh) => this.showFresh(fresh));
+      },
     });
+  }
+
+  private showFresh(fresh: InventorySetDto): void {
+    this.selected.set(fresh);
+    this.list.update((l) => ({
+      gaugeSets: l.gaugeSets.map((s) => (s.id === fresh.id ? { ...fresh, blocks: undefined } : s)),
+      angleSets: l.angleSets.map((s) => (s.id === fresh.id ? { ...fresh, blocks: undefined } : s)),
+    }));
   }
 
   protected findAnswer(): void {
     const set = this.selected();
-    if (!set || !this.wanted().trim()) return;
+    if (!set) return;
+    this.answer.set(null);
     this.answerError.set(null);
-    this.api.answer(set.type, set.id, this.wanted().trim()).subscribe({
+    if (!this.wanted().trim()) {
+      this.answerError.set(set.type === 'gauge-blocks' ? `Type the stack height, e.g. 1.2505 (${set.unit}).` : "Type the angle, e.g. 17°35'.");
+      return;
+    }
+    const wear = set.type === 'gauge-blocks' && !!set.wearBlockSize && this.useWear();
+    this.api.answer(set.type, set.id, this.wanted().trim(), wear).subscribe({
       next: (a) => this.answer.set(a),
-      error: (err: unknown) => {
-        this.answer.set(null);
-        this.answerError.set(apiErrorDetail(err));
-      },
+      error: (err: unknown) => this.answerError.set(boxFailureMessage(err)),
     });
   }
 

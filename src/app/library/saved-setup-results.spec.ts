@@ -9,6 +9,23 @@ import { runTaper } from '../taper/taper-page';
 import { PINS_DEFAULTS, pinsCalc } from '../pins-rolls/pins-calc';
 import { pickControlValues } from '../workbench/query-state';
 import { savedFormFields } from '../../../shared/library/saved-request';
+import { type TeamBox, type TeamBoxes } from '../../../shared/library/team-boxes';
+import { boxBlockAngles } from '../../../shared/forms/angle-blocks-form';
+import { findGaugeSet } from '../../../shared/data/gauge-sets';
+import { inputRows } from '../../../shared/library/setup-results';
+
+/** The standard inch 81-piece set as a team box with one 0.1007 missing and the 0.137 damaged (the demo box). */
+function gaugeBox(id: number): TeamBox {
+  const set = findGaugeSet('inch-81')!;
+  const gone = new Set(['0.1007', '0.137']);
+  return {
+    id, type: 'gauge-blocks', name: 'Inch 81-piece set, cabinet 2', unit: 'in', grade: '0', wearBlockSize: '0.050', wearBlockCount: 2,
+    blocks: set.blocks.map((b) => ({ size: b.size, available: gone.has(b.size) ? b.count - 1 : b.count })),
+  };
+}
+const boxes = (...list: TeamBox[]): TeamBoxes => new Map(list.map((b) => [b.id, b]));
+/** Sum of block sizes in ten-thousandths of an inch. */
+const tenThousandths = (blocks: unknown) => (blocks as string[]).reduce((sum, b) => sum + Math.round(Number(b) * 10_000), 0);
 
 /**
  * Every calculator page saves its whole form as the set-up's inputs (each field, the mode, what is
@@ -71,6 +88,30 @@ describe('a set-up saved from its calculator page', () => {
       if (!page.ok || page.value.mode !== 'angle') return;
       expect(value(saved('sine-bar', form))).toEqual(page.value.single);
     });
+    it('should pick the blocks of the stack from the team\'s box when the box is at hand', () => {
+      const form = { ...SINE_BAR_DEFAULTS, mode: 'stack', stackHeight: '0.2507', set: 'box:7' };
+      const r = setupResults('sine-bar', form, boxes(gaugeBox(7)));
+      const v = value(r)!;
+      // 0.2507 from the standard set is 0.1007 + 0.150; the box has no 0.1007 (derived by hand).
+      expect(v['stackHeight']).toBe('0.2507');
+      expect(tenThousandths(v['blocks'])).toBe(2_507);
+      expect(v['blocks']).not.toContain('0.1007');
+      expect(r.ok && r.stack).toEqual(v['blocks']);
+      expect(r.ok && r.box).toEqual({ id: 7, name: 'Inch 81-piece set, cabinet 2' });
+      expect(inputRows('sine-bar', form, r)).toContainEqual({ label: 'Set', value: 'Our box: Inch 81-piece set, cabinet 2' });
+    });
+    it('should say what to do when the team\'s box cannot make the stack', () => {
+      // 5 in · sin 0.01° = 0.00087 in, rounded 0.0009 in (derived): no block that thin.
+      const r = setupResults('sine-bar', { ...SINE_BAR_DEFAULTS, angle: '0.01', set: 'box:7' }, boxes(gaugeBox(7)));
+      expect(r.ok && r.warnings).toContain('The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.');
+      expect(r.ok && r.stack).toBeNull();
+    });
+    it('should not pick blocks from a box of another kind or not named', () => {
+      const angleBox: TeamBox = { ...gaugeBox(7), type: 'angle-blocks' };
+      const r = setupResults('sine-bar', { ...SINE_BAR_DEFAULTS, set: 'box:7' }, boxes(angleBox, gaugeBox(8)));
+      expect(r.ok && r.box).toBeNull();
+      expect(r.ok && r.stack).toBeNull();
+    });
     it.each([['table'], ['compound']])('should send a %s set-up to its page rather than answer something else', (mode) => {
       const r = saved('sine-bar', { ...SINE_BAR_DEFAULTS, mode });
       expect(r.ok).toBe(false);
@@ -89,6 +130,22 @@ describe('a set-up saved from its calculator page', () => {
       expect(page.ok && page.value.source === 'engine').toBe(true);
       if (!page.ok || page.value.source !== 'engine') return;
       expect(value(saved('gauge-blocks', form))).toEqual(page.value.result);
+    });
+    it('should give the stack from the team\'s box when the box is at hand, without its missing blocks', () => {
+      const form = { ...GAUGE_BLOCKS_DEFAULTS, target: '0.2507', set: 'box:4', grade: '' };
+      const r = setupResults('gauge-blocks', form, boxes(gaugeBox(4)));
+      const v = value(r)!;
+      expect(tenThousandths(v['blocks'])).toBe(2_507);
+      expect(v['blocks']).not.toContain('0.1007');
+      // The box's own grade (0) when the form leaves it blank, as the inventory route does.
+      expect(r.ok && listedInputs('gauge-blocks', form, r)).toEqual(expect.arrayContaining([['set', 'box:4'], ['grade', '0']]));
+      expect(r.ok && Object.keys(r.input)).not.toContain('blocks');
+    });
+    it('should refuse a stack from a box whose blocks are all marked out of use', () => {
+      const empty = { ...gaugeBox(4), blocks: gaugeBox(4).blocks.map((b) => ({ ...b, available: 0 })) };
+      const r = setupResults('gauge-blocks', { ...GAUGE_BLOCKS_DEFAULTS, set: 'box:4' }, boxes(empty));
+      expect(r.ok ? '' : r.error).toMatch(/every block marked missing or damaged/);
+      expect(r.ok || r.pageOnly).toBeUndefined();
     });
     it('should send a stack from one of the team\'s boxes to its page', () => {
       const r = saved('gauge-blocks', { ...GAUGE_BLOCKS_DEFAULTS, set: 'box:4' });
@@ -121,6 +178,19 @@ describe('a set-up saved from its calculator page', () => {
       expect(page.ok).toBe(true);
       if (!page.ok) return;
       expect(value(saved('angle-blocks', form))).toEqual(page.value);
+    });
+    it.each(forms)('should give the page\'s answer from the team\'s box for %s', (_what, form) => {
+      // A 13-block box in seconds of arc (1°, 3°, 9°, 27°, 41°; 1′, 3′, 9′, 27′; 3″, 6″, 18″, 30″) with its
+      // 3° block marked missing; the page solves with the blocks the box holds.
+      const sizes = [3_600, 10_800, 32_400, 97_200, 147_600, 60, 180, 540, 1_620, 3, 6, 18, 30];
+      const blocks = sizes.map((size) => ({ size: String(size), available: size === 10_800 ? 0 : 1 }));
+      const box: TeamBox = { id: 2, type: 'angle-blocks', name: 'Angle blocks, bench 3', unit: 'arcsec', grade: null, wearBlockSize: null, wearBlockCount: 0, blocks };
+      const boxed = { ...form, set: 'box:2' };
+      const page = angleBlocksRequest(boxed, new Map([[2, boxBlockAngles(blocks)]]));
+      const r = setupResults('angle-blocks', boxed, boxes(box));
+      expect(r.ok && r.box?.name).toBe('Angle blocks, bench 3');
+      if (page.ok) expect(value(r)).toEqual(page.value);
+      else expect(r.ok ? '' : r.error).toBe(page.error);
     });
     it('should send a combination from one of the team\'s boxes to its page', () => {
       const r = saved('angle-blocks', { ...ANGLE_BLOCKS_DEFAULTS, set: 'box:2' });

@@ -16,6 +16,8 @@ import { forkJoin } from 'rxjs';
 import type { BatchRunDto } from '../../../shared/api/batch';
 import { CHECK_UNITS, type AttachmentDto, type RevisionDto, type SetupCheck, type SetupDto } from '../../../shared/api/setup';
 import { inputRows, setupResults, type ResultLine } from '../../../shared/library/setup-results';
+import { type TeamBoxes, namedBox, teamBoxOf } from '../../../shared/library/team-boxes';
+import { InventoryApi } from '../inventory/inventory-api';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
@@ -37,6 +39,7 @@ const MAX_UPLOAD_MB = 20;
 export default class SetupDetailPage {
   private readonly api = inject(LibraryApi);
   private readonly batches = inject(BatchesApi);
+  private readonly inventory = inject(InventoryApi);
   private readonly auth = inject(Auth);
   private readonly notice = inject(ErrorNotice);
   private readonly router = inject(Router);
@@ -72,9 +75,13 @@ export default class SetupDetailPage {
   protected readonly thumbnailUrl = thumbnailUrl;
 
   protected readonly area = computed(() => KIND_AREAS[this.setup()?.kind ?? ''] ?? null);
+  /** The team box the set-up names, with what is in it now (empty: none named, not loaded or gone). */
+  protected readonly boxes = signal<TeamBoxes>(new Map());
+  /** Whether that box is being asked for. */
+  protected readonly boxLoading = signal(false);
   protected readonly results = computed(() => {
     const s = this.setup();
-    return s ? setupResults(s.kind, s.inputs) : null;
+    return s ? setupResults(s.kind, s.inputs, this.boxes()) : null;
   });
   /** The figures the calculation used and the set-up's own fields, as the set-up sheet lists them. */
   protected readonly inputs = computed(() => {
@@ -102,6 +109,7 @@ export default class SetupDetailPage {
     forkJoin({ setup: this.api.get(id), revisions: this.api.revisions(id), attachments: this.api.attachments(id), runs: this.batches.list({ setupId: id }) }).subscribe({
       next: (r) => {
         this.setup.set(r.setup);
+        this.loadBox(r.setup);
         this.revisions.set(r.revisions);
         this.attachments.set(r.attachments);
         this.runs.set(r.runs);
@@ -109,6 +117,30 @@ export default class SetupDetailPage {
       error: (err: unknown) => this.loadError.set(apiErrorMessage(err)),
     });
   }
+  /**
+   * Loads the team box the set-up names, so its results are answered with what is in the box now,
+   * as its calculator page answers them; a box that is gone leaves them to the page.
+   */
+  private loadBox(setup: SetupDto): void {
+    const named = namedBox(setup.kind, setup.inputs);
+    if (!named) {
+      this.boxes.set(new Map());
+      return;
+    }
+    if (this.boxes().has(named.id)) return;
+    this.boxLoading.set(true);
+    this.inventory.get(named.type, named.id, true).subscribe({
+      next: (set) => {
+        this.boxes.set(new Map([[set.id, teamBoxOf(set)]]));
+        this.boxLoading.set(false);
+      },
+      error: () => {
+        this.boxes.set(new Map());
+        this.boxLoading.set(false);
+      },
+    });
+  }
+
 
   private refreshHistory(id: number): void {
     this.api.revisions(id).subscribe((r) => this.revisions.set(r));

@@ -23,6 +23,7 @@ import { SaveSetup } from '../workbench/save-setup';
 import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { SineBarDrawing } from './sine-bar-drawing';
+import { unmakeableStack } from '../../../shared/library/team-boxes';
 import {
   BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, defaultSet, setsInUnit, sineBarSceneInput, toSineBarRequest,
 } from './sine-bar-form';
@@ -220,11 +221,3 @@ export default class SineBarPage {
   }
 }
 
-/**
- * The box cannot give the stack: what to do instead, as the engine says it for a standard set
- * (for a stack typed in, changing the angle is no answer).
- */
-export function unmakeableStack(target: string, unit: string, forAngle: boolean): string {
-  const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
-  return `The box cannot make a ${target} ${unit} stack; ${fix}.`;
-}

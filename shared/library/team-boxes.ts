@@ -1,0 +1,81 @@
+/**
+ * A team's own block boxes (the inventory's gauge-block and angle-block sets) as saved set-ups are
+ * answered with them. A set-up saved with one names it as `box:<id>` in its set; the library page,
+ * the set-up sheet and the release check load that box and solve with what is in it now — the
+ * same blocks the calculator page and the inventory route use.
+ */
+import type { GaugeStackRequest } from '../api/calc';
+import type { InventorySetDto } from '../api/inventory';
+import { boxIdOf } from '../forms/gauge-blocks-form';
+
+/** A team box: its name and the blocks in it, with how many of each may be used. */
+export interface TeamBox {
+  readonly id: number;
+  readonly type: 'gauge-blocks' | 'angle-blocks';
+  readonly name: string;
+  readonly unit: string;
+  readonly grade: string | null;
+  readonly wearBlockSize: string | null;
+  readonly wearBlockCount: number;
+  /** Each size with how many are usable (count less missing and damaged). */
+  readonly blocks: ReadonlyArray<{ readonly size: string; readonly available: number }>;
+}
+
+/** A set as the inventory route gives it (with its blocks), as a box to answer set-ups with. */
+export function teamBoxOf(set: InventorySetDto): TeamBox {
+  return {
+    id: set.id,
+    type: set.type,
+    name: set.name,
+    unit: set.unit,
+    grade: set.grade,
+    wearBlockSize: set.wearBlockSize,
+    wearBlockCount: set.wearBlockCount,
+    blocks: (set.blocks ?? []).map((b) => ({ size: b.size, available: b.available })),
+  };
+}
+
+/** The boxes at hand, by id. */
+export type TeamBoxes = ReadonlyMap<number, TeamBox>;
+
+/** The team box a set-up of this kind names, with the type of box it must be; or null. */
+export function namedBox(kind: string, inputs: Record<string, unknown>): { id: number; type: TeamBox['type'] } | null {
+  const set = inputs['set'];
+  if (typeof set !== 'string') return null;
+  const id = boxIdOf(set);
+  if (id === null) return null;
+  if (kind === 'gauge-blocks' || kind === 'sine-bar') return { id, type: 'gauge-blocks' };
+  if (kind === 'angle-blocks') return { id, type: 'angle-blocks' };
+  return null;
+}
+
+/** Grades the gauge-stack engine knows (ISO 3650). */
+const GRADES = ['K', '0', '1', '2'];
+
+/**
+ * The gauge-stack request for a stack from a box, as the inventory route makes it: the usable
+ * blocks, the grade asked for or else the box's own, the box's wear-block pair when wanted and the
+ * box has two. Null when every block is marked missing or damaged.
+ */
+export function boxStackRequest(box: Omit<TeamBox, 'id' | 'type' | 'name'>, q: { target: string; grade?: string | undefined; wear: boolean }): GaugeStackRequest | null {
+  const usable = box.blocks.filter((b) => b.available > 0);
+  if (usable.length === 0) return null;
+  const grade = q.grade ?? (box.grade && GRADES.includes(box.grade) ? box.grade : undefined);
+  const wearBlocks = q.wear && box.wearBlockSize && box.wearBlockCount >= 2 ? box.wearBlockSize : undefined;
+  return {
+    target: q.target,
+    unit: box.unit as GaugeStackRequest['unit'],
+    blocks: usable.map((b) => ({ size: b.size, count: b.available })),
+    grade: grade as GaugeStackRequest['grade'],
+    wearBlocks,
+  };
+}
+
+/**
+ * The box cannot give a sine bar's stack: what to do instead, as the engine says it for a standard
+ * set (for a stack typed in, changing the angle is no answer).
+ */
+export function unmakeableStack(target: string, unit: string, forAngle: boolean): string {
+  const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
+  return `The box cannot make a ${target} ${unit} stack; ${fix}.`;
+}
