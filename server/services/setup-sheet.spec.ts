@@ -5,7 +5,7 @@ import { calculateOverPins } from '../../shared/calc/over-pins';
 import { calculateSineBar } from '../../shared/calc/sine-bar';
 import type { CalcResult, Step } from '../../shared/calc/step';
 import { calculateTaper } from '../../shared/calc/taper';
-import { pdfText } from './setup-sheet';
+import { pdfText, sheetCautions } from './setup-sheet';
 
 describe('pdfText (what the sheet\'s standard PDF fonts can print)', () => {
   it('should spell out the symbols derivations use', () => {
@@ -46,5 +46,22 @@ describe('pdfText (what the sheet\'s standard PDF fonts can print)', () => {
         expect({ text, printed: pdfText(text).includes('?') }).toEqual({ text, printed: text.includes('?') });
       }
     }
+  });
+});
+
+describe('sheetCautions', () => {
+  const taper = calculateTaper({ unit: 'in', thickness: '0.750', angle: "7°30'", taperLength: '1.250' });
+  const own = taper.ok ? taper.value.cautions : [];
+
+  it('should not repeat a general caution whose topic the calculation\'s own cautions cover', () => {
+    // The taper's own cautions speak of clamping and of eye protection already.
+    expect(own.some((c) => /^Clamp the work/.test(c)) && own.some((c) => /eye protection/.test(c))).toBe(true);
+    expect(sheetCautions('taper', own)).toEqual([...own, "Your shop rules, local regulations and the machine maker's instructions come first; this sheet does not replace them."]);
+  });
+
+  it('should give a stack of gauge blocks no cutting cautions of its own', () => {
+    const list = sheetCautions('gauge-blocks', ['Wring blocks clean and dry; never leave them wrung.']);
+    expect(list).toEqual(['Wring blocks clean and dry; never leave them wrung.', "Your shop rules, local regulations and the machine maker's instructions come first; this sheet does not replace them."]);
+    expect(sheetCautions('taper', []).some((c) => /^Clamp the work/.test(c))).toBe(true);
   });
 });

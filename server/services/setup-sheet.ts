@@ -6,6 +6,7 @@ import { inputRows, setupResults, type SetupResults } from '../../shared/library
 import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vGrooveSketch, gaugeStackSketch, latheTaperSketch, sineBarSketch, taperBallsSketch, taperDiscsSketch, taperSketch, taperTwoHeightsSketch, type Sketch, type SketchShape, type TaperSketchHolding } from './sheet-drawing';
 import type { ObjectStorage } from './storage/object-storage';
 import type { TeamBoxes } from '../../shared/library/team-boxes';
+import { kindLabel } from '../../shared/api/setup';
 
 /** What a set-up sheet is made from. */
 export interface SheetSource {
@@ -52,11 +53,24 @@ export function pdfText(text: string): string {
 }
 
 /** General cautions printed on every sheet (common practice; defer to shop rules). */
-const SHEET_CAUTIONS = [
-  'Clamp the work and any angle block, sine plate or vise securely before cutting; measure only with the spindle stopped.',
-  'Wear eye protection and keep guards in place; deburr sharp edges after the cut.',
-  'Your shop rules, local regulations and the machine maker\'s instructions come first; this sheet does not replace them.',
+const SHEET_CAUTIONS: ReadonlyArray<{ text: string; topic: RegExp; cutting?: true }> = [
+  { text: 'Clamp the work and any angle block, sine plate or vise securely before cutting; measure only with the spindle stopped.', topic: /\bclamp/i, cutting: true },
+  { text: 'Wear eye protection and keep guards in place; deburr sharp edges after the cut.', topic: /eye protection|safety glasses/i, cutting: true },
+  // Always printed: the sheet's own word that it does not replace them.
+  { text: 'Your shop rules, local regulations and the machine maker\'s instructions come first; this sheet does not replace them.', topic: /$^/ },
 ];
+
+/** Set-ups that only measure or build a stack: the cutting cautions are not theirs. */
+const MEASURING_KINDS = new Set(['gauge-blocks']);
+
+/**
+ * The sheet's cautions: the calculation's own, then each general one whose topic they do not
+ * already cover (the cutting ones only for set-ups that cut).
+ */
+export function sheetCautions(kind: string, own: readonly string[]): string[] {
+  const general = SHEET_CAUTIONS.filter((c) => !(c.cutting && MEASURING_KINDS.has(kind)) && !own.some((o) => c.topic.test(o)));
+  return [...own, ...general.map((c) => c.text)];
+}
 
 const INK = '#1d2a33';
 const MUTED = '#5b6b75';
@@ -252,7 +266,9 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
     size: metric ? 'A4' : 'LETTER',
     margin: 48,
     compress: false,
-    info: { Title: pdfText(`Set-up sheet: ${setup.name}`), Author: 'Slantwise', Subject: pdfText(`${setup.kind} set-up, version ${setup.version}`) },
+    // Kept until the end, so each page after the first can be headed with the set-up and page count.
+    bufferPages: true,
+    info: { Title: pdfText(`Set-up sheet: ${setup.name}`), Author: 'Slantwise', Subject: pdfText(`${kindLabel(setup.kind)} set-up, version ${setup.version}`) },
   });
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
@@ -267,7 +283,7 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
   doc.fillColor(INK).font('Helvetica-Bold').fontSize(18).text(pdfText(setup.name));
   const released = setup.releasedAt ? `released ${setup.releasedAt.toISOString().slice(0, 10)}${setup.releasedBy ? ` by ${setup.releasedBy.name}` : ''}` : 'not released';
   doc.font('Helvetica').fontSize(9.5).fillColor(MUTED)
-    .text(pdfText(`${setup.kind} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`));
+    .text(pdfText(`${kindLabel(setup.kind)} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`));
   if (setup.status !== 'released') {
     doc.moveDown(0.3).fillColor('#b3261e').font('Helvetica-Bold').text('NOT RELEASED: check with a lead before running this set-up.').font('Helvetica');
   }
@@ -355,11 +371,18 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
   }
 
   heading(doc, 'Cautions');
-  const cautions = [...(results.ok ? results.cautions : []), ...SHEET_CAUTIONS];
+  const cautions = sheetCautions(setup.kind, results.ok ? results.cautions : []);
   for (const c of cautions) doc.text(pdfText(`• ${c}`), { paragraphGap: 2 });
 
   doc.moveDown(0.8).fillColor(MUTED).fontSize(8.5).text('Open this set-up in Slantwise: ', { continued: true }).fillColor(ACCENT).text(link, { link, underline: true });
   doc.fillColor(MUTED).text(`Printed ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC`);
+  // A sheet that runs on: each further page says whose it is.
+  const pages = doc.bufferedPageRange();
+  for (let i = 1; i < pages.count; i += 1) {
+    doc.switchToPage(pages.start + i);
+    doc.fillColor(MUTED).font('Helvetica').fontSize(8.5)
+      .text(pdfText(`${setup.name} · version ${setup.version} · page ${i + 1} of ${pages.count}`), left, doc.page.margins.top - 24, { width, lineBreak: false });
+  }
   doc.end();
   return done;
 }

@@ -3,6 +3,17 @@ import { z } from 'zod';
 /** Calculation areas a set-up can belong to (the `kind` of a set-up). */
 export const SETUP_KINDS = ['taper', 'sine-bar', 'gauge-blocks', 'angle-blocks', 'lathe-taper', 'pins-rolls'] as const;
 export type SetupKind = (typeof SETUP_KINDS)[number];
+/** Names of the set-up kinds (the calculation areas) as the app's pages and sheets show them. */
+export const SETUP_KIND_LABELS: Readonly<Record<SetupKind, string>> = {
+  taper: 'Taper planner',
+  'sine-bar': 'Sine bar & plate',
+  'gauge-blocks': 'Gauge blocks',
+  'angle-blocks': 'Angle blocks',
+  'lathe-taper': 'Lathe tapers',
+  'pins-rolls': 'Pins & rolls',
+};
+/** A kind's name, or the kind itself when unknown. */
+export const kindLabel = (kind: string): string => SETUP_KIND_LABELS[kind as SetupKind] ?? kind;
 
 export const SETUP_STATUSES = ['draft', 'released', 'archived'] as const;
 export type SetupStatus = (typeof SETUP_STATUSES)[number];

@@ -144,6 +144,9 @@ describe('GaugeBlocksPage with the team inventory', () => {
     await page.type('target', 'abc');
     http.expectNone((r) => r.url.endsWith('/stack'));
     expect(page.fieldErrors()).toContain('Must be a decimal number such as 0.750, got "abc"');
+    // Nothing asked, so nothing left out yet: the note still says the box has blocks out of use.
+    expect(page.el.querySelector('.box-note .left-out')?.textContent).toContain('79 of 81 blocks usable (1 missing, 1 damaged)');
+    expect(page.el.querySelector('.box-note')?.textContent).not.toContain('Every block of the box is usable');
   });
 
   it('should keep a set named in the URL and use the box\'s wear-block pair when chosen', async () => {

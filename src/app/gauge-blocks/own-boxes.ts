@@ -41,6 +41,8 @@ export interface OwnBox {
   readonly wearBlockSize: string | null;
   /** "79 of 81 blocks usable (1 missing, 1 damaged)". */
   readonly notes: string;
+  /** Whether no block of the box is marked missing or damaged. */
+  readonly allUsable: boolean;
 }
 
 /** A team's gauge-block set (list summary) → picker entry; null for a set not in inch or mm. */
@@ -58,6 +60,7 @@ export function toOwnBox(s: InventorySetDto): OwnBox | null {
     grade: s.grade,
     wearBlockSize: s.wearBlockSize && s.wearBlockCount >= 2 ? s.wearBlockSize : null,
     notes: `${t.available} of ${t.blocks} blocks usable${out ? ` (${out})` : ''}`,
+    allUsable: t.missing + t.damaged === 0,
   };
 }
 

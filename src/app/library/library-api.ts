@@ -6,6 +6,7 @@ import type {
   AttachmentDto, RevisionDto, SetupCheck, SetupDto, SetupExportDto, SetupOwnerDto, SetupPageDto, SetupSort, SetupStatus,
 } from '../../../shared/api/setup';
 import { quietErrors } from '../core/api-error';
+import { SETUP_KIND_LABELS } from '../../../shared/api/setup';
 
 /** Filters, sort and page of the library list. */
 export interface LibraryQuery {
@@ -117,7 +118,7 @@ export class LibraryApi {
   }
 
   removeAttachment(setupId: number, attachmentId: number): Observable<void> {
-    return this.http.delete<void>(`/api/setups/${setupId}/attachments/${attachmentId}`);
+    return this.http.delete<void>(`/api/setups/${setupId}/attachments/${attachmentId}`, { context: quietErrors() });
   }
 
   /** Imports an exported set-up into the signed-in user's team as a draft. */
@@ -137,12 +138,12 @@ export const thumbnailUrl = (setupId: number, attachmentId: number) => `/api/set
 
 /** Display names of the set-up kinds (the calculation areas) and the page each opens in. */
 export const KIND_AREAS: Readonly<Partial<Record<string, { label: string; path: string }>>> = {
-  taper: { label: 'Taper planner', path: '/taper' },
-  'sine-bar': { label: 'Sine bar & plate', path: '/sine-bar' },
-  'gauge-blocks': { label: 'Gauge blocks', path: '/gauge-blocks' },
-  'angle-blocks': { label: 'Angle blocks', path: '/angle-blocks' },
-  'lathe-taper': { label: 'Lathe tapers', path: '/lathe-tapers' },
-  'pins-rolls': { label: 'Pins & rolls', path: '/pins-rolls' },
+  taper: { label: SETUP_KIND_LABELS.taper, path: '/taper' },
+  'sine-bar': { label: SETUP_KIND_LABELS['sine-bar'], path: '/sine-bar' },
+  'gauge-blocks': { label: SETUP_KIND_LABELS['gauge-blocks'], path: '/gauge-blocks' },
+  'angle-blocks': { label: SETUP_KIND_LABELS['angle-blocks'], path: '/angle-blocks' },
+  'lathe-taper': { label: SETUP_KIND_LABELS['lathe-taper'], path: '/lathe-tapers' },
+  'pins-rolls': { label: SETUP_KIND_LABELS['pins-rolls'], path: '/pins-rolls' },
 };
 
 /** Display names of the statuses. */

@@ -255,10 +255,22 @@ export default class SetupDetailPage {
     });
   }
 
+  /** A file's size as people read it: bytes under 1 KB, else KB or MB. */
+  protected sizeText(bytes: number): string {
+    if (bytes < 1024) return `${bytes} ${bytes === 1 ? 'byte' : 'bytes'}`;
+    if (bytes < 1024 * 1024) return `${Math.round(bytes / 1024)} KB`;
+    return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+  }
+
   protected removeAttachment(a: AttachmentDto): void {
-    this.api.removeAttachment(a.setupId, a.id).subscribe(() => {
-      this.attachments.update((list) => list.filter((x) => x.id !== a.id));
-      this.refreshHistory(a.setupId);
+    if (!confirm(`Remove "${a.fileName}" from this set-up? The stored file is deleted and cannot be brought back.`)) return;
+    this.uploadError.set(null);
+    this.api.removeAttachment(a.setupId, a.id).subscribe({
+      next: () => {
+        this.attachments.update((list) => list.filter((x) => x.id !== a.id));
+        this.refreshHistory(a.setupId);
+      },
+      error: (err: unknown) => this.uploadError.set(`"${a.fileName}" was not removed: ${apiErrorMessage(err)}`),
     });
   }
 

@@ -78,6 +78,8 @@ describe('TeamPage', () => {
     const link = el.querySelector<HTMLAnchorElement>('a[href="/api/team/export"]');
     expect(link?.textContent).toContain('Download all team data');
     expect(link?.hasAttribute('download')).toBe(true);
+    // The archive carries password hashes: the admin is told to keep it private.
+    expect(el.querySelector('.team-export')?.textContent).toContain('password hash');
 
     TestBed.resetTestingModule();
     await open(LEAD);
