@@ -209,7 +209,7 @@ describe('set-up library, end to end', () => {
     const page = machinist.page;
     await page.setViewportSize(DESKTOP);
     await page.goto(`/library/${((await res.json()) as { id: number }).id}`);
-    const stack = page.getByText(/^Gauge-block stack:/);
+    const stack = page.locator('p').filter({ hasText: /^Gauge-block stack:/ });
     await stack.waitFor();
     const blocks = ((await stack.textContent()) ?? '').replace('Gauge-block stack:', '').trim().split(' + ');
     // The blocks add up to the stack (from the box as it is, whatever the demo marked missing).
