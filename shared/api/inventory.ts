@@ -102,6 +102,7 @@ export const inventoryUpdateBody = z.object({
   notes: inventoryCreateBody.shape.notes,
   version: z.number({ error: 'Send the version your edit is based on.' }).int().positive(),
 });
+export type InventoryUpdateBody = z.input<typeof inventoryUpdateBody>;
 
 /** PATCH …/blocks/:blockId: mark blocks missing or damaged, or change the count. */
 export const inventoryBlockPatch = z

@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 
-import type { InventoryBlockPatch, InventoryCreateBody, InventoryListDto, InventorySetDto, InventoryType } from '../../../shared/api/inventory';
+import type { InventoryBlockPatch, InventoryCreateBody, InventoryListDto, InventorySetDto, InventoryType, InventoryUpdateBody } from '../../../shared/api/inventory';
 import { quietErrors } from '../core/api-error';
 
 /** A standard composition a set can start from. */
@@ -50,10 +50,19 @@ export class InventoryApi {
   }
 
   patchBlock(type: InventoryType, setId: number, blockId: number, patch: InventoryBlockPatch): Observable<InventorySetDto> {
-    return this.http.patch<InventorySetDto>(`/api/inventories/${PATHS[type]}/${setId}/blocks/${blockId}`, patch);
+    return this.http.patch<InventorySetDto>(`/api/inventories/${PATHS[type]}/${setId}/blocks/${blockId}`, patch, { context: quietErrors() });
   }
 
-  /** Fewest-block stack (gauge sets) or combination (angle sets) from what is in the box. */
+  /** The set's own details (name, grade, wear blocks, notes), against the version they were read at. */
+  update(type: InventoryType, setId: number, body: InventoryUpdateBody): Observable<InventorySetDto> {
+    return this.http.put<InventorySetDto>(`/api/inventories/${PATHS[type]}/${setId}`, body, { context: quietErrors() });
+  }
+
+  /** Deletes a set (admins only). */
+  remove(type: InventoryType, setId: number): Observable<void> {
+    return this.http.delete<void>(`/api/inventories/${PATHS[type]}/${setId}`, { context: quietErrors() });
+  }
+
   /** A stack (between the wear blocks when `wear`) or a combination from what is in the box. */
   answer(type: InventoryType, setId: number, wanted: string, wear = false): Observable<InventoryAnswer> {
     const params = type === 'gauge-blocks' ? new HttpParams().set('target', wanted).set('wear', wear ? 'yes' : 'no') : new HttpParams().set('angle', wanted);

@@ -132,4 +132,61 @@ describe('InventoryPage', () => {
     await fixture.whenStable();
     expect(el().querySelector('[role="alert"]')?.textContent?.trim()).toBe('Wear blocks make 0.1 in together, which leaves nothing to build for the target; try without the wear blocks.');
   });
+
+  it('should let a lead edit the set\'s details against the version shown, and say a name that is taken', async () => {
+    await open('lead');
+    expect(el().querySelector('.danger')).toBeNull();
+    (Array.from(el().querySelectorAll('button')).find((b) => b.textContent?.includes('Edit details')) as HTMLButtonElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const name = el().querySelector('input[name="setName"]') as HTMLInputElement;
+    expect(name.value).toBe('Inch 81, cabinet 2');
+    name.value = 'Inch 81, cabinet 3';
+    name.dispatchEvent(new Event('input'));
+    const wear = el().querySelector('input[name="wearBlockSize"]') as HTMLInputElement;
+    wear.value = '0.050';
+    wear.dispatchEvent(new Event('input'));
+    const count = el().querySelector('input[name="wearBlockCount"]') as HTMLInputElement;
+    count.value = '2';
+    count.dispatchEvent(new Event('input'));
+    fixture.detectChanges();
+    (el().querySelector('form.details button[type="submit"]') as HTMLButtonElement).click();
+    const taken = http.expectOne((r) => r.method === 'PUT' && r.url === '/api/inventories/gauge-sets/4');
+    expect(taken.request.body).toEqual({ name: 'Inch 81, cabinet 3', grade: '0', wearBlockSize: '0.050', wearBlockCount: 2, notes: '', version: 1 });
+    taken.flush({ error: 'Your team already has a set with that name.', fields: { name: 'Choose another name.' } }, { status: 409, statusText: 'Conflict' });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('form.details')?.textContent).toContain('Choose another name.');
+    expect(el().querySelector('[role="alert"]')?.textContent).toContain('Your team already has a set with that name.');
+
+    name.value = 'Inch 81, bench drawer';
+    name.dispatchEvent(new Event('input'));
+    fixture.detectChanges();
+    (el().querySelector('form.details button[type="submit"]') as HTMLButtonElement).click();
+    const saved = { ...SET, name: 'Inch 81, bench drawer', wearBlockSize: '0.050', wearBlockCount: 2, version: 2 };
+    http.expectOne((r) => r.method === 'PUT').flush(saved);
+    http.expectOne('/api/inventories/gauge-sets/4').flush(saved);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('form.details')).toBeNull();
+    expect(el().querySelector('.set-head h2')?.textContent).toBe('Inch 81, bench drawer');
+    expect(el().querySelector('.set strong')?.textContent).toBe('Inch 81, bench drawer');
+    expect(el().textContent).toContain('2 wear blocks of 0.050 in');
+  });
+
+  it('should let an admin delete a set after asking', async () => {
+    await open('admin');
+    const ask = jest.spyOn(window, 'confirm').mockReturnValueOnce(false).mockReturnValueOnce(true);
+    const del = () => (el().querySelector('button.danger') as HTMLButtonElement).click();
+    del();
+    http.expectNone((r) => r.method === 'DELETE');
+    del();
+    expect(ask.mock.calls[1]![0]).toMatch(/^Delete the set "Inch 81, cabinet 2"/);
+    http.expectOne((r) => r.method === 'DELETE' && r.url === '/api/inventories/gauge-sets/4').flush(null, { status: 204, statusText: 'No Content' });
+    http.expectOne('/api/inventories').flush({ gaugeSets: [], angleSets: [] });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().textContent).toContain('No sets yet.');
+    ask.mockRestore();
+  });
 });

@@ -1,3 +1,4 @@
+import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -10,8 +11,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of } from 'rxjs';
 
-import type { InventoryBlockDto, InventoryListDto, InventorySetDto, InventoryType } from '../../../shared/api/inventory';
-import { apiErrorDetail } from '../core/api-error';
+import { GAUGE_GRADES, type InventoryBlockDto, type InventoryListDto, type InventorySetDto, type InventoryType } from '../../../shared/api/inventory';
+import { apiErrorDetail, apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { boxFailureMessage } from '../gauge-blocks/own-boxes';
 import { InventoryApi, type InventoryAnswer } from './inventory-api';
@@ -41,6 +42,14 @@ export default class InventoryPage {
   protected readonly newStandard = signal('');
   protected readonly createError = signal<string | null>(null);
   protected readonly mayManage = computed(() => this.auth.user()?.role === 'admin' || this.auth.user()?.role === 'lead');
+  protected readonly isAdmin = computed(() => this.auth.user()?.role === 'admin');
+  /** The details being edited (null: not editing), all as typed. */
+  protected readonly draft = signal<{ name: string; grade: string; wearBlockSize: string; wearBlockCount: string; notes: string } | null>(null);
+  protected readonly editErrors = signal<Readonly<Record<string, string>>>({});
+  protected readonly editError = signal<string | null>(null);
+  protected readonly gaugeGrades = GAUGE_GRADES;
+  /** The standard composition's name for a set's id. */
+  protected readonly standardName = (id: string | null) => (id === null ? 'custom set' : (this.standards().find((s) => s.id === id)?.name ?? id));
   protected readonly standards = toSignal(this.api.standardSets().pipe(map((r) => r.sets), catchError(() => of([]))), { initialValue: [] });
   protected readonly sets = computed(() => [...this.list().gaugeSets, ...this.list().angleSets]);
 
@@ -57,6 +66,7 @@ export default class InventoryPage {
   }
 
   protected open(set: InventorySetDto): void {
+    this.draft.set(null);
     this.answer.set(null);
     this.answerError.set(null);
     this.markError.set(null);
@@ -105,6 +115,70 @@ export default class InventoryPage {
   /** Text of one block of an answer. */
   protected blockText(b: InventoryAnswer['blocks'][number]): string {
     return typeof b === 'string' ? b : `${b.direction === 'reverse' ? '−' : '+'}${b.angle}`;
+  }
+
+  /** Starts editing the chosen set's details. */
+  protected edit(): void {
+    const set = this.selected();
+    if (!set) return;
+    this.editErrors.set({});
+    this.editError.set(null);
+    this.draft.set({ name: set.name, grade: set.grade ?? '', wearBlockSize: set.wearBlockSize ?? '', wearBlockCount: String(set.wearBlockCount), notes: set.notes });
+  }
+
+  protected patchDraft(field: 'name' | 'grade' | 'wearBlockSize' | 'wearBlockCount' | 'notes', value: string): void {
+    this.draft.update((d) => (d ? { ...d, [field]: value } : d));
+  }
+
+  /** Saves the details against the version shown; a change made meanwhile is reloaded and said. */
+  protected saveDetails(): void {
+    const set = this.selected();
+    const d = this.draft();
+    if (!set || !d) return;
+    const gauge = set.type === 'gauge-blocks';
+    const count = d.wearBlockCount.trim() === '' ? 0 : Number(d.wearBlockCount);
+    if (gauge && (!Number.isInteger(count) || count < 0)) {
+      this.editErrors.set({ wearBlockCount: 'Type a whole number of wear blocks: 0, 1 or 2.' });
+      return;
+    }
+    this.editErrors.set({});
+    this.editError.set(null);
+    const body = {
+      name: d.name,
+      grade: d.grade.trim() === '' ? null : d.grade.trim(),
+      ...(gauge ? { wearBlockSize: d.wearBlockSize.trim() === '' ? null : d.wearBlockSize.trim(), wearBlockCount: d.wearBlockSize.trim() === '' ? 0 : count } : {}),
+      notes: d.notes,
+      version: set.version,
+    };
+    this.api.update(set.type, set.id, body).subscribe({
+      next: (fresh) => {
+        this.draft.set(null);
+        this.api.get(fresh.type, fresh.id).subscribe((full) => this.showFresh(full));
+      },
+      error: (err: unknown) => {
+        this.editErrors.set(apiFieldErrors(err));
+        this.editError.set(apiErrorMessage(err));
+        if (err instanceof HttpErrorResponse && err.status === 409 && !apiFieldErrors(err)['name']) {
+          // Changed by someone else meanwhile: show the set as it is now; the edit stays to apply again.
+          this.api.get(set.type, set.id).subscribe((full) => this.showFresh(full));
+        }
+      },
+    });
+  }
+
+  /** Deletes the chosen set after asking (admins). Set-ups that used it are then answered on their pages only. */
+  protected deleteSet(): void {
+    const set = this.selected();
+    if (!set) return;
+    if (!confirm(`Delete the set "${set.name}" and its record of missing and damaged blocks? Set-ups saved with it keep their figures but no longer list blocks from it.`)) return;
+    this.editError.set(null);
+    this.api.remove(set.type, set.id).subscribe({
+      next: () => {
+        this.selected.set(null);
+        this.reload();
+      },
+      error: (err: unknown) => this.editError.set(`The set was not deleted: ${apiErrorMessage(err)}`),
+    });
   }
 
   protected create(): void {
