@@ -30,6 +30,25 @@ export function displayName(original: string | undefined, fallback: string): str
   return clean || fallback;
 }
 
+/** The endings each kind of file is known by; the first is the one added. */
+const TYPE_ENDINGS: Readonly<Record<string, readonly string[]>> = {
+  'image/png': ['.png'],
+  'image/jpeg': ['.jpg', '.jpeg', '.jpe'],
+  'application/pdf': ['.pdf'],
+};
+
+/**
+ * The name with an ending that says what the file is: "x.exe" holding a PDF is kept as
+ * "x.exe.pdf", so a download opens in the program for its content, never as what the name claimed.
+ */
+export function withTypeEnding(name: string, contentType: string): string {
+  const endings = TYPE_ENDINGS[contentType];
+  if (!endings || endings.some((e) => name.toLowerCase().endsWith(e))) return name;
+  const ending = endings[0]!;
+  // Like the name itself (its last 200 characters), the end is kept: the ending it claimed stays readable.
+  return `${name.slice(-(200 - ending.length))}${ending}`;
+}
+
 /** multer reads part headers as Latin-1; browsers send UTF-8 file names. */
 function utf8Name(name: string): string {
   const bytes = Buffer.from(name, 'latin1');
@@ -78,7 +97,7 @@ export function createAttachmentsRouter({ sequelize, storage, maxBytes }: Attach
     const thumbKey = checked.thumbnail ? `${key}-thumb` : null;
     await storage.put(key, file.buffer, checked.contentType);
     if (thumbKey && checked.thumbnail) await storage.put(thumbKey, checked.thumbnail, 'image/jpeg');
-    const fileName = displayName(utf8Name(file.originalname), `upload.${checked.contentType.split('/')[1]}`);
+    const fileName = withTypeEnding(displayName(utf8Name(file.originalname), `upload.${checked.contentType.split('/')[1]}`), checked.contentType);
     let id: number;
     try {
       id = await sequelize.transaction(async (transaction) => {

@@ -106,6 +106,20 @@ describe('set-up attachments (disk storage)', () => {
     await upload(c.machinist, id, png, 'really-a-png.jpg', 'image/jpeg').expect(201).then((r) => expect(r.body.contentType).toBe('image/png'));
   });
 
+  it('should give a file whose name hides its content the ending of what it is', async () => {
+    const id = await newSetup(c.machinist);
+    const exe = await upload(c.machinist, id, pdf, 'x.exe', 'application/octet-stream').expect(201);
+    expect(exe.body).toMatchObject({ fileName: 'x.exe.pdf', contentType: 'application/pdf' });
+    const dl = await binary(c.machinist.agent.get(`/api/setups/${id}/attachments/${exe.body.id}`)).expect(200);
+    expect(dl.headers['content-disposition']).toMatch(/filename="?x\.exe\.pdf"?/);
+    await upload(c.machinist, id, png, 'really-a-png.jpg', 'image/jpeg').expect(201).then((r) => expect(r.body.fileName).toBe('really-a-png.jpg.png'));
+    // A right ending in any case is kept as it is, and a long name stays within 200 characters.
+    await upload(c.machinist, id, pdf, 'Drawing.PDF', 'application/pdf').expect(201).then((r) => expect(r.body.fileName).toBe('Drawing.PDF'));
+    const long = await upload(c.machinist, id, png, `${'N'.repeat(300)}.gif`, 'image/gif').expect(201);
+    expect(long.body.fileName).toHaveLength(200);
+    expect(long.body.fileName).toMatch(/N\.gif\.png$/);
+  });
+
   it('should refuse a file over the size limit with 413 and a clear message', async () => {
     const id = await newSetup(c.machinist);
     const big = Buffer.concat([pdf.subarray(0, 9), Buffer.alloc(LIMIT + 10, 0x20), Buffer.from('%%EOF')]);
