@@ -49,28 +49,41 @@ export type CheckResult =
 
 const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
 
-/** Reads typed text as a number of the answer's kind (angles also as DMS, e.g. 7°30'). */
-export function readAnswer(kind: AnswerKind, text: string): { ok: true; value: Dec } | { ok: false; error: string } {
+/** The units an answer may be typed with, by the problem's unit. */
+const UNIT_NAMES: Readonly<Record<string, readonly string[]>> = { in: ['in', 'inch', 'inches', '"'], mm: ['mm'], blocks: ['block', 'blocks'] };
+const TYPED_UNIT = /^(.*?)\s*(in|inch(?:es)?|mm|blocks?|")$/i;
+
+/**
+ * Reads typed text as a number of the answer's kind (angles also as DMS, e.g. 7°30'). A unit typed
+ * after a length or count must be the problem's own (`unit`): "0.2993 mm" is no answer to a
+ * problem in inches, and costs no attempt. `number` is the answer without its unit.
+ */
+export function readAnswer(kind: AnswerKind, text: string, unit = ''): { ok: true; value: Dec; number: string } | { ok: false; error: string } {
   const trimmed = text.trim().replace(/,/g, '.');
   if (trimmed === '') return { ok: false, error: 'Type your answer.' };
   if (kind === 'angle') {
     const parsed = parseAngle(trimmed);
-    return parsed.ok ? { ok: true, value: parsed.degrees } : { ok: false, error: `The angle ${parsed.error}.` };
+    return parsed.ok ? { ok: true, value: parsed.degrees, number: text.trim() } : { ok: false, error: `The angle ${parsed.error}.` };
   }
-  const number = trimmed.replace(/\s*(in|mm|blocks?|")$/i, '');
+  const typed = TYPED_UNIT.exec(trimmed);
+  const number = typed && typed[1] !== '' ? typed[1]! : trimmed;
+  if (typed && typed[1] !== '' && unit !== '' && !(UNIT_NAMES[unit] ?? [unit]).includes(typed[2]!.toLowerCase())) {
+    return { ok: false, error: `This problem is in ${unit}: type the answer in ${unit}, or as a plain number.` };
+  }
   if (!DECIMAL.test(number)) return { ok: false, error: `Type a number such as ${kind === 'count' ? '4' : '0.2615'}.` };
-  return { ok: true, value: new Dec(number) };
+  return { ok: true, value: new Dec(number), number };
 }
 
 /**
  * Checks an answer: correct when it lies within the stated tolerance of the exact answer.
- * Unreadable text is not an answer at all (ok: false), so it never costs an attempt.
+ * Unreadable text — or a unit other than the problem's — is not an answer at all (ok: false),
+ * so it never costs an attempt. `given` is the answer as typed, without its unit.
  */
 export function checkAnswer(exercise: Exercise, text: string): CheckResult {
-  const read = readAnswer(exercise.answerKind, text);
+  const read = readAnswer(exercise.answerKind, text, exercise.unit);
   if (!read.ok) return read;
   const difference = read.value.minus(new Dec(exercise.exact)).abs();
-  return { ok: true, correct: difference.lte(new Dec(exercise.tolerance)), given: text.trim(), difference: difference.toSignificantDigits(6).toString() };
+  return { ok: true, correct: difference.lte(new Dec(exercise.tolerance)), given: read.number, difference: difference.toSignificantDigits(6).toString() };
 }
 
 /**

@@ -207,6 +207,25 @@ describe('readAnswer', () => {
     expect(a.ok && a.value.toString()).toBe('7.5');
   });
 
+  it('should take a unit only when it is the problem\'s own, and give the number without it', () => {
+    expect(readAnswer('length', '0.2993 mm', 'in')).toEqual({ ok: false, error: 'This problem is in in: type the answer in in, or as a plain number.' });
+    expect(readAnswer('length', '21.9048 in', 'mm')).toMatchObject({ ok: false });
+    expect(readAnswer('count', '5 mm', 'blocks')).toMatchObject({ ok: false });
+    expect(readAnswer('length', '0.2993 in', 'in')).toMatchObject({ ok: true, number: '0.2993' });
+    expect(readAnswer('length', '0.2993 inch', 'in')).toMatchObject({ ok: true, number: '0.2993' });
+    expect(readAnswer('length', '0.2993"', 'in')).toMatchObject({ ok: true, number: '0.2993' });
+    expect(readAnswer('length', '36.161mm', 'mm')).toMatchObject({ ok: true, number: '36.161' });
+    expect(readAnswer('count', '5 blocks', 'blocks')).toMatchObject({ ok: true, number: '5' });
+    expect(readAnswer('count', '1 block', 'blocks')).toMatchObject({ ok: true, number: '1' });
+  });
+
+  it('should never count an answer in the wrong unit as right, nor spend a try on it', () => {
+    const e = generateExercise('sine-stack', SEEDS[3]!);
+    const other = e.unit === 'in' ? 'mm' : 'in';
+    expect(checkAnswer(e, `${e.exact} ${other}`)).toMatchObject({ ok: false, error: expect.stringContaining(`This problem is in ${e.unit}`) });
+    expect(checkAnswer(e, `${e.answer} ${e.unit}`)).toMatchObject({ ok: true, correct: true, given: e.answer });
+  });
+
   it('should refuse empty and non-numeric text with a message', () => {
     expect(readAnswer('length', '  ')).toMatchObject({ ok: false, error: expect.stringMatching(/Type/) });
     expect(readAnswer('length', 'about half')).toMatchObject({ ok: false });

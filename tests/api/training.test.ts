@@ -136,6 +136,11 @@ describe('/api/training', () => {
     it('refuses an unreadable answer with 400 without using an attempt', async () => {
       const res = await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: 'about half' }).expect(400);
       expect(res.body.fields.answer).toBeDefined();
+      // The right number in another unit is no answer either.
+      const problem2 = (await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200)).body.problems[1];
+      const other = problem2.unit === 'in' ? 'mm' : 'in';
+      const wrongUnit = await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: `1.2345 ${other}` }).expect(400);
+      expect(wrongUnit.body.fields.answer).toBe(`This problem is in ${problem2.unit}: type the answer in ${problem2.unit}, or as a plain number.`);
       const work = await AssignmentWork.findOne({ where: { assignmentId: id, userId: m.apprentice.id } });
       const problem = await TrainingProblem.findOne({ where: { workId: work!.id, position: 2 } });
       expect(await TrainingAttempt.count({ where: { problemId: problem!.id } })).toBe(0);

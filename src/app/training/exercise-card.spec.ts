@@ -74,6 +74,24 @@ describe('ExerciseCard', () => {
       expect(el.querySelector('.solution')!.textContent).toContain('The answer is 0.2615');
       expect(el.querySelector('.steps')!.textContent).toContain('h = L · sin α');
     });
+
+    it('should print an angle answer with its degree sign once and a count as blocks, checked exactly', async () => {
+      fixture.componentInstance.problem.set({
+        ...OPEN, unit: '°', tolerance: '0.01', closed: true, correct: false, attemptsLeft: 0,
+        attempts: [{ answer: '19.5', correct: false }],
+        solution: { answer: '19.4600° (19°27\'36")', steps: [] },
+      });
+      await fixture.whenStable();
+      expect(el.querySelector('.verdict')!.textContent!.replace(/\s+/g, ' ')).toContain('The answer is 19.4600° (19°27\'36").');
+      expect(el.querySelector('.verdict')!.textContent).not.toContain(') °');
+      expect(el.querySelector('.attempts .wrong')!.textContent).toContain('19.5° — not within ±0.01°');
+
+      fixture.componentInstance.problem.set({ ...OPEN, unit: 'blocks', tolerance: '0', attempts: [{ answer: '6', correct: false }] });
+      await fixture.whenStable();
+      expect(el.textContent).toContain('Counted exactly · 2 tries left');
+      expect(el.querySelector('.attempts .wrong')!.textContent).toContain('6 blocks — not the number wanted');
+      expect(el.textContent).not.toContain('±0 blocks');
+    });
   });
 });
 

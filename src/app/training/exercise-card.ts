@@ -64,7 +64,7 @@ export interface ProblemView {
             @for (a of problem().attempts; track $index) {
               <li [class.right]="a.correct" [class.wrong]="!a.correct">
                 <mat-icon aria-hidden="true">{{ a.correct ? 'check_circle' : 'cancel' }}</mat-icon>
-                {{ a.answer }} — {{ a.correct ? 'correct' : 'not within ±' + problem().tolerance + ' ' + problem().unit }}
+                {{ answerText(a.answer) }} — {{ a.correct ? 'correct' : wrongText() }}
               </li>
             }
           </ul>
@@ -76,7 +76,7 @@ export interface ProblemView {
               <mat-label>{{ problem().answerLabel }}</mat-label>
               <input matInput name="answer" [ngModel]="draft()" (ngModelChange)="draft.set($event)" autocomplete="off" [disabled]="busy()">
               <span matTextSuffix>{{ problem().unit }}</span>
-              <mat-hint>Checked to ±{{ problem().tolerance }} {{ problem().unit }}{{ attemptsText() }}</mat-hint>
+              <mat-hint>{{ checkedText() }}{{ attemptsText() }}</mat-hint>
             </mat-form-field>
             @if (error()) { <p class="error" role="alert">{{ error() }}</p> }
             <div class="actions">
@@ -90,7 +90,7 @@ export interface ProblemView {
           <section class="solution" [class.right]="problem().correct" aria-label="Worked solution">
             <p class="verdict">
               <mat-icon aria-hidden="true">{{ problem().correct ? 'verified' : 'menu_book' }}</mat-icon>
-              {{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ solution.answer }}</strong> {{ problem().unit }}.
+              {{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.
             </p>
             <h4>Worked solution</h4>
             <ol class="steps">
@@ -147,6 +147,24 @@ export class ExerciseCard {
   /** The answer being typed. */
   protected readonly draft = signal('');
   /** The attempts-left note of the hint line. */
+  /** A value with the problem's unit: "0.2993 in", "19.4600° (19°27'36")" (a degree sign only once), "5 blocks". */
+  protected answerText(value: string): string {
+    const unit = this.problem().unit;
+    if (!unit || /[a-z°"]\s*$/i.test(value) || (unit === '°' && value.includes('°'))) return value;
+    if (unit === '°') return `${value}°`;
+    if (unit === 'blocks' && value.trim() === '1') return '1 block';
+    return `${value} ${unit}`;
+  }
+
+  /** What a wrong answer missed by: the tolerance, or for a count the exact number. */
+  protected readonly wrongText = computed(() => (Number(this.problem().tolerance) === 0 ? 'not the number wanted' : `not within ${this.toleranceText()}`));
+  /** How the answer is checked. */
+  protected readonly checkedText = computed(() => (Number(this.problem().tolerance) === 0 ? 'Counted exactly' : `Checked to ${this.toleranceText()}`));
+  private readonly toleranceText = computed(() => {
+    const { tolerance, unit } = this.problem();
+    return unit === '°' ? `±${tolerance}°` : `±${tolerance} ${unit}`;
+  });
+
   protected readonly attemptsText = computed(() => {
     const left = this.problem().attemptsLeft;
     return left === null ? '' : ` · ${left} ${left === 1 ? 'try' : 'tries'} left`;

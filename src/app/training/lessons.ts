@@ -64,7 +64,7 @@ export const LESSONS: readonly Lesson[] = [
     title: 'Why the sine bar works',
     summary: 'A bar, two rolls and a stack of blocks make any angle you can compute.',
     drawing: 'sine-bar',
-    tryIt: 'Drag the handle on the raised roll (or move the angle slider): the stack under the right-hand roll grows as L · sin θ. Watch how little it changes near 0° and how much near 60°.',
+    tryIt: 'Drag the handle on the raised roll (or move the angle slider): the stack under the right-hand roll grows as L · sin θ. Watch how much it changes for each degree near 0° and how little near 60°: at steep angles a small error in the stack moves the angle more (Δθ = ΔH / (L · cos θ)), which is why steep angles are better set from the other side, at 90° − θ.',
     sections: [
       {
         heading: 'The bar is a hypotenuse you can trust',
