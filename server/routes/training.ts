@@ -91,7 +91,7 @@ export function createTrainingRouter(): Router {
       return created;
     });
     const total = body.items.reduce((n, i) => n + i.count, 0);
-    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id))));
+    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, assignment.instructions))));
     const fresh = await teamAssignment(assignment.id, lead);
     const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
     res.status(201).location(`/api/training/assignments/${assignment.id}`).json({ ...assignmentDto(fresh, work), mailSent: sent.filter(Boolean).length });

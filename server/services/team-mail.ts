@@ -22,9 +22,10 @@ function compose(to: string, subject: string, body: Body): OutgoingMail {
   const html = [
     '<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5; color: #1b1f24">',
     `<p>${escapeHtml(body.greeting)}</p>`,
-    ...body.paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`),
+    // A paragraph keeps its own line breaks (a lead's instructions).
+    ...body.paragraphs.map((p) => `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`),
     `<p><a href="${escapeHtml(body.link.url)}">${escapeHtml(body.link.label)}</a></p>`,
-    `<p style="font-size: 0.9em; color: #555">${escapeHtml(body.footer ?? '')}</p>`,
+    ...(body.footer ? [`<p style="font-size: 0.9em; color: #555">${escapeHtml(body.footer)}</p>`] : []),
     '<p>— Slantwise</p></body></html>',
   ].join('\n');
   return { to, subject, text, html };
@@ -57,11 +58,12 @@ export function resetMail(to: string, name: string, token: string, expiresAt: Da
 }
 
 /** The notice of a new assignment to one apprentice. */
-export function assignmentMail(to: string, name: string, title: string, problems: number, dueAt: Date, lead: string, assignmentId: number): OutgoingMail {
+export function assignmentMail(to: string, name: string, title: string, problems: number, dueAt: Date, lead: string, assignmentId: number, instructions = ''): OutgoingMail {
   return compose(to, `New training assignment: ${title}`, {
     greeting: `Hello ${name},`,
     paragraphs: [
       `${lead} has given you a training assignment, "${title}", with ${problems} problem${problems === 1 ? '' : 's'} of your own.`,
+      ...(instructions.trim() ? [`${lead}'s instructions:\n${instructions.trim()}`] : []),
       `It is due ${dueAt.toUTCString()}.`,
     ],
     link: { label: 'Open the assignment', url: appLink(`/training/assignments/${assignmentId}`) },

@@ -1,6 +1,6 @@
 import { EXERCISE_TYPES, type ExerciseType } from './exercise-types';
 import { checkAnswer, hintsOf, readAnswer } from './exercise';
-import { buildExercise, drawInputs, generateExercise } from './generators';
+import { article, buildExercise, drawInputs, generateExercise } from './generators';
 
 const SEEDS = Array.from({ length: 40 }, (_, i) => (i * 2_654_435_761) >>> 0);
 const rad = (deg: number) => (deg * Math.PI) / 180;
@@ -230,5 +230,15 @@ describe('readAnswer', () => {
     expect(readAnswer('length', '  ')).toMatchObject({ ok: false, error: expect.stringMatching(/Type/) });
     expect(readAnswer('length', 'about half')).toMatchObject({ ok: false });
     expect(readAnswer('angle', 'steep')).toMatchObject({ ok: false });
+  });
+});
+
+describe('article (a or an before a number read aloud; common English usage)', () => {
+  it.each([['8', 'an'], ['18°', 'an'], ['11.5', 'an'], ['80', 'an'], ['800', 'an'], ['5', 'a'], ['1.5', 'a'], ['110', 'a'], ['0.8', 'a'], ['27°30\'', 'a']])('%s takes "%s"', (text, word) => {
+    expect(article(text)).toBe(word);
+  });
+
+  it('should never write "a 8" or "a 18" in a prompt', () => {
+    for (const type of EXERCISE_TYPES) for (const seed of SEEDS) expect(generateExercise(type, seed).prompt).not.toMatch(/\b[Aa] (8|11\b|18\b)/);
   });
 });

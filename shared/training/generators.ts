@@ -46,6 +46,13 @@ interface Recipe<K extends ExerciseType> {
 
 const unitOf = (random: Random): LengthUnit => (random() < 0.7 ? 'in' : 'mm');
 /** A drawing dimension as printed: three places in inches, as few as needed in millimetres. */
+/** "a" or "an" before a number as it is read aloud: an 8, an 18°, an 80 mm; a 5, a 1.5. */
+export function article(numberText: string): 'a' | 'an' {
+  const whole = /^\d+/.exec(numberText)?.[0] ?? '';
+  return whole.startsWith('8') || whole === '11' || whole === '18' ? 'an' : 'a';
+}
+const capital = (word: string) => word[0]!.toUpperCase() + word.slice(1);
+
 const show = (value: string, unit: LengthUnit) => (unit === 'in' ? new Dec(value).toFixed(3) : new Dec(value).toString());
 /** An angle as a drawing gives it: whole degrees plainly, others in DMS with the decimal beside. */
 const angleText = (value: string) => (new Dec(value).isInteger() ? `${value}°` : `${formatDms(new Dec(value))} (${new Dec(value).toString()}°)`);
@@ -79,7 +86,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
     build(i) {
       const r = engineValue('taper-depth', calculateTaper(i));
       return {
-        prompt: `A part ${show(i.thickness, i.unit)} ${i.unit} thick is tilted on a ${angleText(i.angle)} angle block so the taper face lies level. The taper starts ${show(i.taperLength, i.unit)} ${i.unit} from the end. You touch off on the highest corner. How far down do you feed to finish the face?`,
+        prompt: `A part ${show(i.thickness, i.unit)} ${i.unit} thick is tilted on ${article(angleText(i.angle))} ${angleText(i.angle)} angle block so the taper face lies level. The taper starts ${show(i.taperLength, i.unit)} ${i.unit} from the end. You touch off on the highest corner. How far down do you feed to finish the face?`,
         givens: taperGivens(i),
         answerLabel: 'Depth to stop h',
         answerKind: 'length',
@@ -97,7 +104,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
     build(i) {
       const r = engineValue('taper-end-thickness', calculateTaper(i));
       return {
-        prompt: `A ${angleText(i.angle)} taper is milled on a part ${show(i.thickness, i.unit)} ${i.unit} thick, starting ${show(i.taperLength, i.unit)} ${i.unit} from the end. What should the micrometer read across the end when the taper is done?`,
+        prompt: `${capital(article(angleText(i.angle)))} ${angleText(i.angle)} taper is milled on a part ${show(i.thickness, i.unit)} ${i.unit} thick, starting ${show(i.taperLength, i.unit)} ${i.unit} from the end. What should the micrometer read across the end when the taper is done?`,
         givens: taperGivens(i),
         answerLabel: 'End thickness t',
         answerKind: 'length',
@@ -150,7 +157,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
     build(i) {
       const r = engineValue('sine-stack', calculateSineBar(i));
       return {
-        prompt: `Set a ${i.barLength} ${i.unit} sine bar to ${i.angle}. What gauge-block stack goes under the raised roll?`,
+        prompt: `Set ${article(i.barLength)} ${i.barLength} ${i.unit} sine bar to ${i.angle}. What gauge-block stack goes under the raised roll?`,
         givens: [
           { label: 'Bar length L (roll centres)', value: i.barLength, unit: i.unit },
           { label: 'Angle θ', value: i.angle, unit: '' },
@@ -179,7 +186,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
     build(i) {
       const r = engineValue('sine-angle', calculateSineBar(i));
       return {
-        prompt: `A ${i.barLength} ${i.unit} sine bar stands on a ${i.stackHeight} ${i.unit} gauge-block stack. What angle does its top face make with the surface plate?`,
+        prompt: `${capital(article(i.barLength))} ${i.barLength} ${i.unit} sine bar stands on ${article(i.stackHeight)} ${i.stackHeight} ${i.unit} gauge-block stack. What angle does its top face make with the surface plate?`,
         givens: [
           { label: 'Bar length L (roll centres)', value: i.barLength, unit: i.unit },
           { label: 'Stack height H', value: i.stackHeight, unit: i.unit },
@@ -201,7 +208,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
     build(i) {
       const r = engineValue('gauge-fewest', calculateGaugeStack({ target: i.target, unit: 'in', set: 'inch-81' }));
       return {
-        prompt: `Build a ${i.target} in stack from the 81-piece inch set. What is the fewest number of blocks that makes it exactly?`,
+        prompt: `Build ${article(i.target)} ${i.target} in stack from the 81-piece inch set. What is the fewest number of blocks that makes it exactly?`,
         givens: [
           { label: 'Stack length', value: i.target, unit: 'in' },
           { label: 'Set', value: '81-piece inch set', unit: '' },

@@ -91,6 +91,10 @@ describe('/api/training', () => {
       const mail = await waitForMail(m.apprentice.email, 'Tapers on the mill');
       expect(mail.text).toContain(`/training/assignments/${res.body.id}`);
       expect(mail.html).toContain('Open the assignment');
+      // The lead's instructions travel with the notice; no empty paragraph is left where a footer would be.
+      expect(mail.text).toContain('Work each problem by hand first.');
+      expect(mail.html).toContain('Work each problem by hand first.');
+      expect(mail.html).not.toMatch(/<p[^>]*>\s*<\/p>/);
     });
   });
 

@@ -46,7 +46,7 @@ import { STATUS_LABELS } from './work-status';
   `,
   styles: `
     .meta, .note { color: var(--mat-sys-on-surface-variant); }
-    .instructions { max-width: 70ch; }
+    .instructions { max-width: 70ch; white-space: pre-line; }
     .problems { display: grid; gap: 16px; }
   `,
 })
