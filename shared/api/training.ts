@@ -127,7 +127,7 @@ const itemSchema = z.object({
   count: z
     .number({ error: 'Count must be a whole number.' })
     .int('Count must be a whole number.')
-    .min(1, 'Count must be at least 1.')
+    .min(1, `Count must be from 1 to ${MAX_PER_TYPE} (a type left at 0 is not set).`)
     .max(MAX_PER_TYPE, `Count must be at most ${MAX_PER_TYPE}.`),
 });
 

@@ -30,6 +30,7 @@ import { TeamApi } from './team-api';
                 <mat-label>Your name</mat-label>
                 <input matInput formControlName="name" autocomplete="name">
                 @if (form.controls.name.hasError('required')) { <mat-error>Enter your name.</mat-error> }
+                @if (form.controls.name.hasError('maxlength')) { <mat-error>Keep the name under 120 characters.</mat-error> }
                 @if (form.controls.name.hasError('server')) { <mat-error>{{ form.controls.name.getError('server') }}</mat-error> }
               </mat-form-field>
               <mat-form-field appearance="outline">

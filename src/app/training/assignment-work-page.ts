@@ -107,6 +107,11 @@ export default class AssignmentWorkPage {
   }
 
   private async load(id: number): Promise<void> {
+    // An address such as /training/assignments/abc names no assignment: say so without asking.
+    if (!Number.isSafeInteger(id) || id < 1) {
+      this.failed.set('There is no such assignment: check the address, or open it from Training.');
+      return;
+    }
     try {
       this.view.set(await firstValueFrom(this.api.work(id)));
     } catch (err) {

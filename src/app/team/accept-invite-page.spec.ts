@@ -1,0 +1,39 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+
+import AcceptInvitePage from './accept-invite-page';
+
+describe('AcceptInvitePage', () => {
+  let fixture: ComponentFixture<AcceptInvitePage>;
+  let http: HttpTestingController;
+  let el: HTMLElement;
+
+  afterEach(() => http.verify());
+
+  async function settle(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+  }
+
+  it('should say why a name over 120 characters is not taken, and send nothing', async () => {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(AcceptInvitePage);
+    fixture.componentRef.setInput('token', 'a'.repeat(43));
+    el = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    http.expectOne(`/api/access/invitations/${'a'.repeat(43)}`).flush({ email: 'new@example.test', role: 'apprentice', teamName: 'Test shop', expiresAt: '2030-01-01T00:00:00Z' });
+    await settle();
+    const [name, password] = Array.from(el.querySelectorAll('input'));
+    name!.value = 'W'.repeat(121);
+    name!.dispatchEvent(new Event('input'));
+    password!.value = 'long enough password';
+    password!.dispatchEvent(new Event('input'));
+    (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
+    await settle();
+    http.expectNone((r) => r.method === 'POST');
+    expect(el.querySelector('mat-error')?.textContent).toContain('Keep the name under 120 characters.');
+  });
+});
