@@ -82,8 +82,23 @@ export function readAnswer(kind: AnswerKind, text: string, unit = ''): { ok: tru
 export function checkAnswer(exercise: Exercise, text: string): CheckResult {
   const read = readAnswer(exercise.answerKind, text, exercise.unit);
   if (!read.ok) return read;
-  const difference = read.value.minus(new Dec(exercise.exact)).abs();
-  return { ok: true, correct: difference.lte(new Dec(exercise.tolerance)), given: read.number, difference: difference.toSignificantDigits(6).toString() };
+  const exact = new Dec(exercise.exact);
+  const difference = read.value.minus(exact).abs();
+  const correct = difference.lte(new Dec(exercise.tolerance));
+  if (!correct && exercise.answerKind !== 'angle') {
+    // Slips a patient teacher points out rather than marks: a minus sign on a size, or the right
+    // answer rounded too soon.
+    if (read.value.isNegative() && !exact.isNegative()) return { ok: false, error: `A ${exercise.answerKind === 'count' ? 'count' : 'length'} is never negative: type it without the minus sign.` };
+    const typedPlaces = (read.number.split('.')[1] ?? '').length;
+    const answerPlaces = (exercise.answer.split('.')[1] ?? '').length;
+    if (exercise.answerKind === 'length' && typedPlaces >= 1 && typedPlaces < answerPlaces && exact.toDecimalPlaces(typedPlaces).eq(read.value)) {
+      return {
+        ok: false,
+        error: `Close: that is the answer rounded to ${typedPlaces} decimal${typedPlaces === 1 ? '' : 's'}. Carry it to ${answerPlaces} decimals; it is checked to ±${exercise.tolerance} ${exercise.unit}.`,
+      };
+    }
+  }
+  return { ok: true, correct, given: read.number, difference: difference.toSignificantDigits(6).toString() };
 }
 
 /**

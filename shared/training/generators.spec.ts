@@ -226,6 +226,19 @@ describe('readAnswer', () => {
     expect(checkAnswer(e, `${e.answer} ${e.unit}`)).toMatchObject({ ok: true, correct: true, given: e.answer });
   });
 
+  it('should point out a minus sign or an answer rounded too soon without marking it wrong', () => {
+    const e = generateExercise('sine-stack', SEEDS[5]!);
+    const places = (e.answer.split('.')[1] ?? '').length;
+    expect(places).toBeGreaterThan(2);
+    const rounded = Number(e.exact).toFixed(2);
+    // The two-decimal figure lies outside the tolerance (3.21 against 3.2084 in): "close", not wrong.
+    expect(Math.abs(Number(rounded) - Number(e.exact))).toBeGreaterThan(Number(e.tolerance));
+    expect(checkAnswer(e, rounded)).toEqual({ ok: false, error: `Close: that is the answer rounded to 2 decimals. Carry it to ${places} decimals; it is checked to ±${e.tolerance} ${e.unit}.` });
+    expect(checkAnswer(e, `-${e.answer}`)).toEqual({ ok: false, error: 'A length is never negative: type it without the minus sign.' });
+    // A plainly wrong answer is still wrong.
+    expect(checkAnswer(e, String(Number(e.exact) + 1))).toMatchObject({ ok: true, correct: false });
+  });
+
   it('should refuse empty and non-numeric text with a message', () => {
     expect(readAnswer('length', '  ')).toMatchObject({ ok: false, error: expect.stringMatching(/Type/) });
     expect(readAnswer('length', 'about half')).toMatchObject({ ok: false });
