@@ -192,7 +192,8 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
     .note { font: 13px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-on-surface-variant); }
     .block-label { font: 12px 'IBM Plex Sans', sans-serif; text-anchor: middle; fill: var(--mat-sys-on-surface); }
     .slider-row { display: grid; gap: 4px; }
-    mat-slider { width: 100%; max-width: 520px; }
+    // The slider keeps 8px of margin each side for its thumb: its width leaves room for it, so it never runs past the panel.
+    mat-slider { width: calc(100% - 16px); max-width: 520px; }
     .readouts { display: flex; flex-wrap: wrap; gap: 8px 24px; margin: 0; }
     .readouts div { display: grid; }
     dt { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }

@@ -31,7 +31,7 @@ import { PracticeSession } from './practice-session';
             <sw-lesson-drawing [kind]="l.drawing" />
           </div>
         </div>
-        @if (l.cautions.length) { <sw-cautions [items]="l.cautions" /> }
+        @if (l.cautions.length) { <sw-cautions [items]="l.cautions" [heading]="l.cautionHeading ?? 'Before you clamp and cut'" /> }
         <h2>Practice</h2>
         <p class="note">New numbers every time. Answers are checked to the tolerance shown; the worked solution opens once you answer.</p>
         <div class="practice">
@@ -59,6 +59,7 @@ import { PracticeSession } from './practice-session';
     h2 { font: var(--mat-sys-title-large); margin: 20px 0 8px; }
     .text p { max-width: 68ch; line-height: 1.55; }
     .try { display: flex; gap: 8px; align-items: flex-start; color: var(--mat-sys-on-surface-variant); }
+    .try mat-icon { flex: none; }
     .practice { display: grid; gap: 16px; margin-bottom: 24px; }
     .again { margin-top: 8px; }
     .note { color: var(--mat-sys-on-surface-variant); }

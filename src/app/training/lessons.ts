@@ -17,6 +17,8 @@ export interface Lesson {
   practice: readonly ExerciseType[];
   /** Safety notes where the lesson's work can hurt someone (with their sources). */
   cautions: readonly string[];
+  /** Heading of the notes for a lesson that measures rather than cuts (else "Before you clamp and cut"). */
+  cautionHeading?: string;
 }
 
 const CLAMP_AND_STOP =
@@ -83,6 +85,7 @@ export const LESSONS: readonly Lesson[] = [
     ],
     practice: ['sine-stack', 'sine-angle'],
     cautions: ['Sine bar, blocks and plate must be clean: one chip under a roll or between blocks tilts the whole set-up (Sparber; US Army OD1642).', CLEAN_BLOCKS],
+    cautionHeading: 'Care of the bar and blocks',
   },
   {
     slug: 'gauge-stack',
@@ -108,6 +111,7 @@ export const LESSONS: readonly Lesson[] = [
     ],
     practice: ['gauge-fewest', 'sine-stack'],
     cautions: [CLEAN_BLOCKS, 'Let blocks settle to room temperature after handling; lengths are defined at 20 °C (ISO 1).'],
+    cautionHeading: 'Care of the blocks',
   },
   {
     slug: 'taper-per-foot',
@@ -158,6 +162,7 @@ export const LESSONS: readonly Lesson[] = [
     ],
     practice: ['dovetail-pins'],
     cautions: ['Deburr the dovetail before measuring and keep fingers clear of the sharp edges; measure only with the machine stopped (US Army TM 1-1500-204-23-8).'],
+    cautionHeading: 'Before you measure',
   },
 ];
 
