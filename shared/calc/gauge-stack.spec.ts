@@ -175,3 +175,22 @@ describe('calculateGaugeStack', () => {
     });
   });
 });
+
+describe('the worked stack, as it is built by hand', () => {
+  it('should take the block that clears the last decimal first and count the blocks in words', () => {
+    // 5.3338 in from the 81-piece inch set: 0.1008 clears the fourth decimal, 0.133 the third
+    // (common practice: "last digit first"); five blocks in all, derived by hand.
+    const r = calculateGaugeStack({ target: '5.3338', set: 'inch-81' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const takes = r.value.steps.filter((st) => st.label.startsWith('Take the')).map((st) => st.label);
+    expect(takes[0]).toBe('Take the 0.1008 block');
+    expect(takes[1]).toBe('Take the 0.133 block');
+    const last = r.value.steps.find((st) => st.label === 'Fewest blocks')!;
+    expect(last.substituted).toBe(`n = count of (${r.value.blocks.join(' + ')})`);
+    expect([last.value, last.unit]).toEqual(['5', 'blocks']);
+    // Each remainder really is the one before less the block taken.
+    const remainders = r.value.steps.filter((st) => st.label.startsWith('Take the')).map((st) => Number(st.value));
+    expect(remainders[remainders.length - 1]).toBe(0);
+  });
+});

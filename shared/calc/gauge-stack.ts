@@ -297,15 +297,18 @@ export function calculateGaugeStack(input: GaugeStackRequest | unknown): CalcRes
       const between = wear ? ` between the two ${wear.toString()} ${unit} wear blocks; try without the wear blocks` : '';
       return impossible(AREA, 'target', `cannot be made from the blocks in the box (${formatStack(core, box)} ${unit} wanted${between})`);
     }
-    // Show the work the way it is done by hand: smallest block first, each clearing digits.
+    // Show the work the way it is done by hand: the block that clears the last decimal first, then
+    // the next decimal, the whole sizes last (smaller first among equals).
+    const places = (b: Dec) => Math.max(0, b.decimalPlaces());
+    const byHand = [...fewest].sort((a, b) => places(b) - places(a) || a.cmp(b));
     let remainder = core;
-    for (const b of [...fewest].reverse()) {
+    for (const b of byHand) {
       const next = remainder.minus(b);
       steps.push(step(`Take the ${formatBlock(b, box)} block`, 'remainder = remainder − block', `${formatStack(remainder, box)} − ${formatBlock(b, box)}`, formatStack(next, box), unit));
       remainder = next;
     }
     const fewestAnswer = answer(fewest, box, wear);
-    steps.push(step('Fewest blocks', 'n = count of blocks', fewestAnswer.blocks.join(' + '), String(fewestAnswer.count), fewestAnswer.count === 1 ? 'block' : 'blocks'));
+    steps.push(step('Fewest blocks', 'n = number of blocks in the stack', `n = count of (${fewestAnswer.blocks.join(' + ')})`, String(fewestAnswer.count), fewestAnswer.count === 1 ? 'block' : 'blocks'));
     const lastDigit = lastDigitBlocks(box, core);
     const lastDigitAnswer = lastDigit ? answer(lastDigit, box, wear) : null;
     const warnings: string[] = [];
