@@ -189,12 +189,20 @@ export function createTrainingRouter(): Router {
       include: [{ model: AssignmentWork, as: 'work', include: workInclude }],
       order: [['dueAt', 'ASC'], ['id', 'ASC']],
     });
-    const apprentices = await User.findAll({ where: { teamId: lead.teamId, role: 'apprentice' }, order: [['name', 'ASC'], ['id', 'ASC']] });
+    // Today's apprentices, and anyone with work on an assignment who has since changed role or
+    // been deactivated: their work stays in sight, marked.
+    const withWork = [...new Set(assignments.flatMap((a) => (a.work ?? []).map((w) => w.userId)))];
+    const apprentices = await User.findAll({
+      where: { teamId: lead.teamId, [Op.or]: [{ role: 'apprentice' }, ...(withWork.length ? [{ id: withWork }] : [])] },
+      order: [['name', 'ASC'], ['id', 'ASC']],
+    });
     const table: ScoreTableDto = {
       assignments: assignments.map((a) => ({ id: a.id, title: a.title, dueAt: a.dueAt.toISOString() })),
       rows: apprentices.map((u) => ({
         userId: u.id,
         name: u.name,
+        role: u.role,
+        active: u.active,
         cells: assignments.map((a) => {
           const work = (a.work ?? []).find((w) => w.userId === u.id);
           return { assignmentId: a.id, assigned: !!work, summary: work ? workSummary(work, a.dueAt, now) : null };

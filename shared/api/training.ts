@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { EXERCISE_TYPES, type ExerciseType } from '../training/exercise-types';
+import type { Role } from './auth';
 
 export { EXERCISE_TYPES, type ExerciseType };
 
@@ -107,6 +108,10 @@ export interface AssignmentDto {
 export interface ScoreRowDto {
   userId: number;
   name: string;
+  /** The member's role now (work stays listed after a role change). */
+  role: Role;
+  /** False for a deactivated member. */
+  active: boolean;
   cells: Array<{ assignmentId: number; assigned: boolean; summary: WorkSummaryDto | null }>;
 }
 

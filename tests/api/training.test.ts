@@ -192,8 +192,27 @@ describe('/api/training', () => {
       expect(row(second.id).cells[col].summary).toMatchObject({ status: 'missing', score: 0 });
       expect(row(m.apprentice.id).cells[graded].summary).toMatchObject({ status: 'done', score: 67 });
       expect(res.body.rows.map((r: { userId: number }) => r.userId)).not.toContain(m.machinist.id);
+      expect(row(m.apprentice.id)).toMatchObject({ role: 'apprentice', active: true });
       const foreignScores = await c.foreign.agent.get('/api/training/scores').expect(200);
       expect(foreignScores.body.assignments.map((a: { id: number }) => a.id)).not.toContain(id);
+    });
+  });
+
+  describe('the score table after a member changes', () => {
+    it('keeps the work of a member made machinist or deactivated in sight, marked', async () => {
+      const team = await makeTeam('scores-change');
+      const lead = await client(t.app, team.lead);
+      const admin = await client(t.app, team.admin);
+      const moved = await User.create({ teamId: team.team.id, email: `moved.${team.team.id}@example.test`, name: 'Moved On', role: 'apprentice', passwordHash: await bcrypt.hash(PASSWORD, BCRYPT_COST) });
+      await post(lead, '/api/training/assignments', body([team.apprentice.id, moved.id], { title: 'Before the change' })).expect(201);
+      await admin.agent.patch(`/api/team/members/${moved.id}`).set('X-CSRF-Token', admin.token).send({ role: 'machinist' }).expect(200);
+      await admin.agent.patch(`/api/team/members/${team.apprentice.id}`).set('X-CSRF-Token', admin.token).send({ active: false }).expect(200);
+      const res = await lead.agent.get('/api/training/scores').expect(200);
+      const rows = res.body.rows as Array<{ userId: number; role: string; active: boolean; cells: Array<{ assigned: boolean }> }>;
+      expect(rows.find((r) => r.userId === moved.id)).toMatchObject({ role: 'machinist', active: true, cells: [{ assigned: true }] });
+      expect(rows.find((r) => r.userId === team.apprentice.id)).toMatchObject({ role: 'apprentice', active: false });
+      // A machinist who never had work is still not listed.
+      expect(rows.map((r) => r.userId)).not.toContain(team.machinist.id);
     });
   });
 

@@ -13,7 +13,7 @@ import type { MemberDto } from '../../../shared/api/team-admin';
 import { MAX_PER_TYPE, type AssignmentDto, type ScoreTableDto, type WorkStatus } from '../../../shared/api/training';
 import { EXERCISE_INFO, EXERCISE_TYPES, type ExerciseType } from '../../../shared/training/exercise-types';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
-import { Auth } from '../core/auth';
+import { Auth, ROLE_LABELS } from '../core/auth';
 import { TeamApi } from '../team/team-api';
 import { TrainingApi } from './training-api';
 import { STATUS_ICONS, STATUS_LABELS } from './work-status';
@@ -58,6 +58,7 @@ export default class AssignmentsPage {
   protected readonly due = signal(defaultDue());
   protected readonly counts = signal<Partial<Record<ExerciseType, number>>>({ 'taper-depth': 2 });
   protected readonly chosen = signal<ReadonlySet<number>>(new Set());
+  protected readonly roleLabels = ROLE_LABELS;
   protected readonly formErrors = signal<Record<string, string>>({});
   protected readonly formMessage = signal<string | null>(null);
   protected readonly saving = signal(false);
