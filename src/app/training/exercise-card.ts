@@ -90,7 +90,7 @@ export interface ProblemView {
           <section class="solution" [class.right]="problem().correct" aria-label="Worked solution">
             <p class="verdict">
               <mat-icon aria-hidden="true">{{ problem().correct ? 'verified' : 'menu_book' }}</mat-icon>
-              {{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.
+              <span>{{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.</span>
             </p>
             <h4>Worked solution</h4>
             <ol class="steps">
