@@ -65,6 +65,32 @@ describe('latheTaperScene', () => {
     expect(b.drawnHalfAngle).toBeGreaterThan(a.drawnHalfAngle);
     expect(latheTaperScene(0).drawnHalfAngle).toBe(0);
   });
+
+  it('should keep growing steeper up to 3 in/ft, saying how much steeper than true it is drawn', () => {
+    // True half angle = atan(TPF / 24) (Machinery's Handbook, tapers): 1 in/ft 2.3859°, 3 in/ft 7.1250°.
+    const scenes = [0.5, 1, 1.5, 2, 2.5, 3].map((tpf) => latheTaperScene(tpf));
+    for (let i = 1; i < scenes.length; i++) expect(scenes[i]!.drawnHalfAngle).toBeGreaterThan(scenes[i - 1]!.drawnHalfAngle);
+    for (const [tpf, s] of [[0.5, scenes[0]!], [3, scenes[5]!]] as const) {
+      const trueHalf = (Math.atan(tpf / 24) * 180) / Math.PI;
+      expect(s.exaggeration).toBeGreaterThan(1);
+      // The factor said is the drawn angle over the true one, to a tenth.
+      expect(Math.abs(s.drawnHalfAngle / trueHalf - s.exaggeration)).toBeLessThanOrEqual(0.06);
+    }
+    expect(scenes[0]!.exaggeration).toBeGreaterThan(3.5);
+    expect(scenes[5]!.exaggeration).toBeLessThan(2);
+  });
+
+  it('should draw the α/2 arc at the large end between the top line and the flank', () => {
+    const s = latheTaperScene(2);
+    const [, , x, y] = /^M([\d.-]+),([\d.-]+) A[\d.]+,[\d.]+ 0 0 1 ([\d.-]+),([\d.-]+)$/.exec(s.arc)!.slice(1).map(Number) as [number, number, number, number];
+    const start = /^M([\d.-]+),([\d.-]+)/.exec(s.arc)!.slice(1).map(Number) as [number, number];
+    // It starts on the top line (right of the corner) and ends on the flank, below the top line.
+    expect(start[1]).toBeCloseTo(s.outline[0]!.y, 5);
+    expect(start[0]).toBeGreaterThan(s.outline[0]!.x);
+    const slope = (s.outline[1]!.y - s.outline[0]!.y) / (s.outline[1]!.x - s.outline[0]!.x);
+    expect(y - s.outline[0]!.y).toBeCloseTo(slope * (x - s.outline[0]!.x), 1);
+    expect(y).toBeGreaterThan(s.outline[0]!.y);
+  });
 });
 
 describe('dovetailScene', () => {

@@ -175,20 +175,35 @@ export interface LatheTaperScene {
   axis: [Pt, Pt];
   /** The line of the compound's travel along the top flank. */
   flank: [Pt, Pt];
-  /** The half angle, degrees, as drawn (exaggerated by `exaggerate`). */
+  /** The half angle, degrees, as drawn (`exaggeration` times the true one). */
   drawnHalfAngle: number;
+  /** How many times steeper than true the angle is drawn (1: to scale). */
+  exaggeration: number;
+  /** The α/2 arc at the large end, between the line parallel to the axis and the flank. */
   arc: string;
+  /** Where the α/2 label goes, beside the arc. */
+  label: Pt;
 }
+
+/** The steepest half angle the drawing holds: the flank meets the axis side 8 units short of the centre. */
+const LATHE_LENGTH = 360;
+const LATHE_D = 140;
+const MAX_DRAWN_HALF = Math.atan((LATHE_D / 2 - 8) / LATHE_LENGTH);
 
 /**
  * A taper of `taperPerFoot` (in/ft on the diameter) over one foot, drawn 360 units long with a
- * 120-unit large diameter; the angle is drawn `exaggerate` times steeper so small tapers show.
+ * 140-unit large diameter. Small tapers are drawn steeper so they show — about `exaggerate` times,
+ * less as the taper grows; the factor (to a tenth) is returned for the drawing to say.
  */
 export function latheTaperScene(taperPerFoot: number, exaggerate = 4): LatheTaperScene {
-  const length = 360;
-  const D = 140;
-  const half = Math.atan(Math.max(taperPerFoot, 0) / 24) * exaggerate;
-  const drop = Math.min(length * Math.tan(half), D / 2 - 8);
+  const length = LATHE_LENGTH;
+  const D = LATHE_D;
+  const trueHalf = Math.atan(Math.max(taperPerFoot, 0) / 24);
+  // `exaggerate` times steeper for small tapers, easing off smoothly toward the steepest angle the
+  // part holds: a steeper taper is always drawn steeper, never flattened at a limit.
+  const half = MAX_DRAWN_HALF * Math.tanh((exaggerate * trueHalf) / MAX_DRAWN_HALF);
+  const factor = trueHalf > 0 ? Math.round((half / trueHalf) * 10) / 10 : exaggerate;
+  const drop = length * Math.tan(half);
   const cy = 150;
   const x0 = 60;
   const outline = [pt(x0, cy - D / 2), pt(x0 + length, cy - D / 2 + drop), pt(x0 + length, cy + D / 2 - drop), pt(x0, cy + D / 2)];
@@ -198,7 +213,10 @@ export function latheTaperScene(taperPerFoot: number, exaggerate = 4): LatheTape
     axis: [pt(x0 - 30, cy), pt(x0 + length + 30, cy)],
     flank: [outline[0]!, outline[1]!],
     drawnHalfAngle: r2(drawn),
-    arc: arcPath(outline[1]!, 60, 180, 180 + drawn),
+    exaggeration: factor,
+    // At the large end the flank leaves the line parallel to the axis (drawn along the top) downwards.
+    arc: arcPath(outline[0]!, 90, 0, -drawn),
+    label: pt(x0 + 100, cy - D / 2 - 8),
   };
 }
 

@@ -117,8 +117,8 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
             <polygon [attr.points]="points(l.outline)" class="part" />
             <line [attr.x1]="l.outline[0].x" [attr.y1]="l.outline[0].y" [attr.x2]="l.outline[1].x" [attr.y2]="l.outline[0].y" class="cut-line" />
             <path [attr.d]="l.arc" class="arc" />
-            <text [attr.x]="l.outline[1].x - 90" [attr.y]="l.outline[0].y - 8" class="tag">α/2</text>
-            <text x="240" y="290" class="note" text-anchor="middle">angle drawn 4× steeper</text>
+            <text [attr.x]="l.label.x" [attr.y]="l.label.y" class="tag">α/2</text>
+            <text x="240" y="290" class="note" text-anchor="middle">{{ l.exaggeration === 1 ? 'angle drawn to scale' : 'angle drawn ' + l.exaggeration + '× steeper' }}</text>
           }
           @case ('over-pins') {
             @let p = pins();
