@@ -155,15 +155,25 @@ export interface StackBlock {
 }
 
 /**
- * Gauge blocks stacked from the plate at y = 280 up, each drawn `scale` view units per unit of
- * length, but never thinner than `minHeight` so every block stays readable.
+ * Gauge blocks stacked from the plate at y = 280 up, the whole stack drawn `scale` view units per
+ * unit of length — so two stacks of one length stand equally high. A block thinner than
+ * `minHeight` is drawn that thick to stay readable, the height it gains taken from the thicker
+ * blocks in proportion (or, when they cannot spare it, every block drawn alike).
  */
 export function stackBlocks(sizes: readonly string[], scale: number, x = 0, width = 120, minHeight = 18): StackBlock[] {
+  const true_ = sizes.map((label) => Number(label) * scale);
+  const total = true_.reduce((a, b) => a + b, 0);
+  const gain = true_.reduce((a, h) => a + Math.max(0, minHeight - h), 0);
+  const thick = true_.filter((h) => h >= minHeight);
+  const thickTotal = thick.reduce((a, b) => a + b, 0);
+  const canSpare = thickTotal - gain >= minHeight * thick.length;
+  const heights = true_.map((h) => (!canSpare ? total / sizes.length : h < minHeight ? minHeight : h - (gain * h) / thickTotal));
   let y = 280;
-  return sizes.map((label) => {
-    const height = Math.max(minHeight, Number(label) * scale);
-    y -= height;
-    return { x, y: r2(y), width, height: r2(height), label };
+  return sizes.map((label, i) => {
+    // Rounded once, so each block sits exactly on the one below.
+    const height = r2(heights[i]!);
+    y = r2(y - height);
+    return { x, y, width, height, label };
   });
 }
 
