@@ -105,23 +105,23 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
       if (D && d && l) return invalid(AREA, 'length', 'leave one of the large diameter, small diameter and taper length empty when the taper is given');
       if (definer === 'taperPerFoot') {
         k = (p.taperPerFoot as Dec).div(12);
-        steps.push(step('Taper per inch', 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), ''));
+        steps.push(step('Taper per inch', 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'taperPerInch') {
         k = p.taperPerInch as Dec;
       } else if (definer === 'ratio') {
         k = new Dec(1).div(p.ratio as Dec);
-        steps.push(step('Taper per inch', 'k = 1 / x (ratio 1:x)', `k = 1 / ${(p.ratio as Dec).toString()}`, fixedText(k, 6), ''));
+        steps.push(step('Taper per inch', 'k = 1 / x (ratio 1:x)', `k = 1 / ${(p.ratio as Dec).toString()}`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'includedAngle') {
         k = tanDeg((p.includedAngle as Dec).div(2)).mul(2);
-        steps.push(step('Taper per inch', 'k = 2 · tan(α / 2)', `k = 2 · tan(${formatDms(p.includedAngle as Dec)} / 2)`, fixedText(k, 6), ''));
+        steps.push(step('Taper per inch', 'k = 2 · tan(α / 2)', `k = 2 · tan(${formatDms(p.includedAngle as Dec)} / 2)`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'halfAngle') {
         k = tanDeg(p.halfAngle as Dec).mul(2);
-        steps.push(step('Taper per inch', 'k = 2 · tan(α/2)', `k = 2 · tan ${formatDms(p.halfAngle as Dec)}`, fixedText(k, 6), ''));
+        steps.push(step('Taper per inch', 'k = 2 · tan(α/2)', `k = 2 · tan ${formatDms(p.halfAngle as Dec)}`, fixedText(k, 6), `${unit}/${unit}`));
       } else {
         standard = findMachineTaper(p.standard as string) ?? null;
         if (!standard) return invalid(AREA, 'standard', `unknown taper "${p.standard}"; see GET /api/calc/machine-tapers`);
         k = new Dec(standard.taperPerFoot).div(12);
-        steps.push(step(`Taper per inch (${standard.name})`, 'k = TPF / 12', `k = ${standard.taperPerFoot} / 12`, fixedText(k, 6), ''));
+        steps.push(step(`Taper per inch (${standard.name})`, 'k = TPF / 12', `k = ${standard.taperPerFoot} / 12`, fixedText(k, 6), `${unit}/${unit}`));
         if (!D && !d && !l) {
           const from = (x: string | null) => (x === null ? undefined : convertLength(new Dec(x), standard!.unit, unit));
           D = from(standard.largeDiameter);
@@ -146,9 +146,10 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
     const tpf = k.mul(12);
     const half = atanDeg(k.div(2));
     const included = half.mul(2);
-    steps.push(step('Taper per foot', 'TPF = 12 · k', `TPF = 12 · ${fixedText(k, 6)}`, fixedText(tpf, 5), 'in/ft'));
+    // A taper given by its taper per foot (or a standard's) needs no step back to it.
+    if (definer !== 'taperPerFoot' && definer !== 'standard') steps.push(step('Taper per foot', 'TPF = 12 · k', `TPF = 12 · ${fixedText(k, 6)}`, fixedText(tpf, 5), 'in/ft'));
     steps.push(step('Half angle (compound setting)', 'α/2 = atan(TPF / 24)', `α/2 = atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(half), '°'));
-    steps.push(step('Included angle', 'α = 2 · atan(TPF / 24)', `α = 2 · ${formatDegrees(half)}°`, formatDegrees(included), '°'));
+    steps.push(step('Included angle', 'α = 2 · atan(TPF / 24)', `α = 2 · atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(included), '°'));
     let offset: Dec | null = null;
     const warnings: string[] = [];
     if (p.workLength) {

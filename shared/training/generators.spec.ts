@@ -255,3 +255,21 @@ describe('article (a or an before a number read aloud; common English usage)', (
     for (const type of EXERCISE_TYPES) for (const seed of SEEDS) expect(generateExercise(type, seed).prompt).not.toMatch(/\b[Aa] (8|11\b|18\b)/);
   });
 });
+
+describe('worked steps an apprentice checks by hand', () => {
+  it('should give the tail-stock offset from the taper per inch only, and both diameters to four places', () => {
+    for (const seed of SEEDS.slice(0, 10)) {
+      const e = generateExercise('lathe-offset', seed);
+      expect(e.steps.map((st) => st.label)).not.toContain('Included angle');
+      expect(e.steps.some((st) => st.label.startsWith('Half angle'))).toBe(false);
+      expect(e.steps[e.steps.length - 1]!.label).toBe('Tail-stock offset');
+      const [D, d] = e.givens.map((g) => g.value);
+      expect([D!.split('.')[1]!.length, d!.split('.')[1]!.length]).toEqual([4, 4]);
+    }
+  });
+
+  it('should not go round in a circle from a given taper per foot', () => {
+    const e = generateExercise('lathe-half-angle', SEEDS[2]!);
+    expect(e.steps.map((st) => st.formula)).not.toContain('TPF = 12 · k');
+  });
+});

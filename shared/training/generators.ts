@@ -249,7 +249,8 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
       const l = randomStep(random, '2.0', '6.0', '0.5');
       const k = randomStep(random, '0.005', '0.050', '0.005');
       const work = l.plus(randomStep(random, '1.0', '8.0', '0.5'));
-      return { largeDiameter: D.toFixed(3), smallDiameter: D.minus(k.mul(l)).toFixed(4), length: l.toFixed(3), workLength: work.toFixed(3) };
+      // Both diameters to the same four places, as a drawing would give them.
+      return { largeDiameter: D.toFixed(4), smallDiameter: D.minus(k.mul(l)).toFixed(4), length: l.toFixed(3), workLength: work.toFixed(3) };
     },
     build(i) {
       const r = engineValue('lathe-offset', calculateLatheTaper({ unit: 'in', ...i }));
@@ -267,7 +268,8 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
         answer: r.tailstockOffset ?? '',
         exact: r.exact.tailstockOffset ?? '',
         tolerance: LENGTH_TOLERANCE.in,
-        steps: stepsUpTo('lathe-offset', r.steps, 'Tail-stock offset'),
+        // The offset method needs the taper per inch, not the compound's angles.
+        steps: stepsUpTo('lathe-offset', r.steps, 'Tail-stock offset').filter((st) => !/^(Half angle|Included angle)/.test(st.label)),
         cautions: [...LATHE_TAPER_CAUTIONS],
       };
     },
