@@ -33,7 +33,7 @@ import { PracticeSession } from './practice-session';
         </div>
         @if (l.cautions.length) { <sw-cautions [items]="l.cautions" [heading]="l.cautionHeading ?? 'Before you clamp and cut'" /> }
         <h2>Practice</h2>
-        <p class="note">New numbers every time. Answers are checked to the tolerance shown; the worked solution opens once you answer.</p>
+        <p class="note">New numbers every time. Answers are checked to the tolerance shown; the worked solution opens once you answer. Nothing here is graded or kept: a lead gives graded work as an assignment.</p>
         <div class="practice">
           @for (s of sessions(); track s.type; let i = $index) {
             <div>
