@@ -92,7 +92,9 @@ describe('TaperPage', () => {
 
   it('should ask for the newly shown size under its own box when "Defined by" changes', async () => {
     await page.open('/taper?given=angle-end');
-    expect(page.fieldErrors()).toMatch(/required: type the end thickness/i);
+    // Not typed in yet: not marked red, but the results say what to type.
+    expect(page.fieldErrors()).not.toMatch(/required/i);
+    expect(page.el.querySelector('.no-results')?.textContent).toContain('Type the end thickness to see the results.');
     expect(page.fieldErrors()).not.toMatch(/exactly two/);
     await page.type('endThickness', '0.5');
     // t = T − L·tan α → L = (0.750 − 0.5)/tan 7.5° = 1.8989 (derived); h = L·sin α = 0.2479 in.
@@ -101,7 +103,12 @@ describe('TaperPage', () => {
 
   it('should name the chamfer\'s leg when it is missing', async () => {
     await page.open('/taper?shape=chamfer&given=angle-end');
+    expect(page.el.querySelector('.no-results')?.textContent).toMatch(/type the leg on the end face to see the results/i);
+    // Once typed in and emptied again, the box itself says it.
+    await page.type('endThickness', '0.1');
+    await page.type('endThickness', '');
     expect(page.fieldErrors()).toMatch(/required: type the leg on the end face/i);
+    expect(page.el.querySelector('.no-results')?.textContent).toContain('Fix the highlighted inputs to see the results.');
   });
 
   it('should name a bad part length under its box', async () => {

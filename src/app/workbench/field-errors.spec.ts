@@ -2,7 +2,29 @@ import { FormControl, FormGroup } from '@angular/forms';
 import { z } from 'zod';
 
 import { fail } from '../../../shared/calc/step';
-import { applyControlErrors, controlMessage, failureMessages, fieldWords, sentence, sortFieldMessages, zodFieldMessages } from './field-errors';
+import { applyControlErrors, controlMessage, failureMessages, fieldWords, sentence, sortFieldMessages, waitingText, zodFieldMessages } from './field-errors';
+
+describe('a field only empty, not typed in yet', () => {
+  it('should not be marked red, and the results should say what to type', () => {
+    const controls = { stackHeight: new FormControl(''), barLength: new FormControl('5') };
+    const messages = { controls: { stackHeight: 'Is required: type the stack height' }, general: [] };
+    applyControlErrors(controls, messages.controls);
+    expect(controls.stackHeight.touched).toBe(false);
+    expect(controlMessage(controls.stackHeight)).toBe('Is required: type the stack height');
+    expect(waitingText(messages, controls)).toBe('Type the stack height to see the results.');
+  });
+
+  it('should be marked once typed in, and any wrong input makes it a matter of fixing', () => {
+    const controls = { stackHeight: new FormControl(''), barLength: new FormControl('x') };
+    controls.stackHeight.markAsDirty();
+    applyControlErrors(controls, { stackHeight: 'Is required: type the stack height' });
+    expect(controls.stackHeight.touched).toBe(true);
+    expect(waitingText({ controls: { stackHeight: 'Is required: type the stack height' }, general: [] }, controls)).toBeNull();
+    const fresh = { stackHeight: new FormControl(''), barLength: new FormControl('x') };
+    expect(waitingText({ controls: { stackHeight: 'Is required: type the stack height', barLength: 'Must be a decimal number' }, general: [] }, fresh)).toBeNull();
+    expect(waitingText({ controls: {}, general: ['Something else'] }, fresh)).toBeNull();
+  });
+});
 
 describe('field errors', () => {
   describe('sentence', () => {

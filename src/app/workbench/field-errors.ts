@@ -70,9 +70,29 @@ export function failureMessages(
   return sorted;
 }
 
+/** Whether a control message only says the field is still empty ("Is required: type …"). */
+export function isEmptyFieldMessage(message: string): boolean {
+  return /^Is required\b/.test(message);
+}
+
+/**
+ * The line the results show while the only thing missing is a field not typed in yet (one a
+ * mode switch has just shown): what to type, not a red mark. Null when an input is wrong.
+ */
+export function waitingText(messages: SortedMessages, controls: Readonly<Record<string, AbstractControl>>): string | null {
+  const entries = Object.entries(messages.controls);
+  if (messages.general.length > 0 || entries.length === 0) return null;
+  if (!entries.every(([name, message]) => isEmptyFieldMessage(message) && controls[name]?.pristine)) return null;
+  const [, first] = entries[0]!;
+  const what = /^Is required: (type .+)$/.exec(first)?.[1];
+  return what ? `${sentence(what)} to see the results.` : 'Fill in the empty inputs to see the results.';
+}
+
 /**
  * Puts each message on its control as the `calc` error (so `<mat-error>` shows it) and clears
- * the `calc` error of every other control. Status changes only: no value change is emitted.
+ * the `calc` error of every other control. Status changes only: no value change is emitted. A
+ * field only empty and never typed in is not marked touched, so it is not shown red before the
+ * machinist has had a chance to fill it.
  */
 export function applyControlErrors(
   controls: Readonly<Record<string, AbstractControl>>,
@@ -84,7 +104,7 @@ export function applyControlErrors(
     delete others[CALC_ERROR_KEY];
     const next = message ? { ...others, [CALC_ERROR_KEY]: message } : others;
     control.setErrors(Object.keys(next).length ? next : null);
-    if (message) control.markAsTouched();
+    if (message && !(isEmptyFieldMessage(message) && control.pristine)) control.markAsTouched();
   }
 }
 

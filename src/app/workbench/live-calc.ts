@@ -4,7 +4,7 @@ import type { FormGroup, ValidatorFn } from '@angular/forms';
 import { debounceTime, map } from 'rxjs';
 
 import type { CalcResult } from '../../../shared/calc/step';
-import { CALC_ERROR_KEY, type SortedMessages, applyControlErrors, failureMessages } from './field-errors';
+import { CALC_ERROR_KEY, type SortedMessages, applyControlErrors, failureMessages, waitingText } from './field-errors';
 
 /** How long typing must pause before the page recomputes, in milliseconds. */
 export const RECOMPUTE_DEBOUNCE_MS = 100;
@@ -19,7 +19,12 @@ export interface LiveCalc<T, V = Record<string, unknown>> {
   readonly messages: Signal<SortedMessages>;
   /** The form values the latest result was worked from. */
   readonly values: Signal<V>;
+  /** What the results panel says while there is no answer: what to type, or to fix the marked inputs. */
+  readonly emptyText: Signal<string>;
 }
+
+/** The results panel's line while an input is wrong. */
+export const FIX_INPUTS_TEXT = 'Fix the highlighted inputs to see the results.';
 
 /** Options of {@link liveCalc}. */
 export interface LiveCalcOptions {
@@ -69,6 +74,7 @@ export function liveCalc<V, T>(form: FormGroup, run: (values: V) => CalcResult<T
     }),
     messages: computed(() => outcome().messages),
     values: computed(() => outcome().values),
+    emptyText: computed(() => waitingText(outcome().messages, form.controls) ?? FIX_INPUTS_TEXT),
   };
 }
 
