@@ -4,7 +4,7 @@ import { GRADE_STATUS, LENGTH_TOLERANCES, REFERENCE_TEMPERATURE_C, STEEL_EXPANSI
 import { MM_PER_INCH, type LengthUnit } from '../units/length-unit';
 import { Dec, fixedText, sqrt } from './decimal-math';
 import { MAX_TARGET, StackSolver } from './stack-solver';
-import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
+import { blockCountStep, guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
 
 /** Most decimals a block size may have (0.0001 in / 0.0001 mm). */
 export const MAX_BLOCK_DECIMALS = 4;
@@ -308,7 +308,7 @@ export function calculateGaugeStack(input: GaugeStackRequest | unknown): CalcRes
       remainder = next;
     }
     const fewestAnswer = answer(fewest, box, wear);
-    steps.push(step('Fewest blocks', 'n = number of blocks in the stack', `n = count of (${fewestAnswer.blocks.join(' + ')})`, String(fewestAnswer.count), fewestAnswer.count === 1 ? 'block' : 'blocks'));
+    steps.push(blockCountStep(fewestAnswer.blocks, fewestAnswer.count));
     const lastDigit = lastDigitBlocks(box, core);
     const lastDigitAnswer = lastDigit ? answer(lastDigit, box, wear) : null;
     const warnings: string[] = [];

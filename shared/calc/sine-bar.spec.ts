@@ -88,6 +88,9 @@ describe('calculateSineBar', () => {
       const r = bar({ unit: 'in', barLength: 5, angle: "23°41'", set: 'inch-81' });
       expect(r.blockCount).toBe(4);
       expect((r.blocks as string[]).reduce((a, b) => a.plus(b), new Dec(0)).toString()).toBe('2.0084');
+      // The work counts the blocks; it does not write their sum as "= 4".
+      const count = r.steps.find((st) => st.label === 'Fewest blocks')!;
+      expect([count.substituted, count.value, count.unit]).toEqual([`n = count of (${(r.blocks as string[]).join(' + ')})`, '4', 'blocks']);
     });
   });
 

@@ -11,7 +11,7 @@ import {
 import { formatLength, roundToStep, unitResolution, type LengthUnit } from '../units/length-unit';
 import { Dec, acosDeg, asinDeg, cosDeg, exactText, fixedText, sinDeg, toRadians } from './decimal-math';
 import { fewestBlocks, formatBlock, formatStack, resolveBox, type GaugeBox } from './gauge-stack';
-import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
+import { blockCountStep, guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
 
 /**
  * Sine bar and sine plate: H = L·sin θ and θ = asin(H / L), with L the roll centre distance and H
@@ -182,7 +182,7 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
         const found = fewestBlocks(box, setting.stack);
         if (found) {
           blocks = found.map((b) => formatBlock(b, box));
-          steps.push(step('Fewest blocks', 'Σ blocks = H', `${blocks.join(' + ')}`, String(blocks.length), blocks.length === 1 ? 'block' : 'blocks'));
+          steps.push(blockCountStep(blocks));
         } else {
           warnings.push(`The box cannot make a ${res(setting.stack)} ${unit} stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.`);
         }

@@ -90,3 +90,8 @@ export function guarded<T>(area: string, run: () => CalcResult<T>): CalcResult<T
     return impossible(area, 'body', `could not be calculated for these values (${reason})`);
   }
 }
+
+/** The step that counts a stack's blocks ("n = count of (0.850 + 0.132 + 0.1002)" = 3 blocks): a count, not a sum. */
+export function blockCountStep(blocks: readonly string[], count = blocks.length): Step {
+  return step('Fewest blocks', 'n = number of blocks in the stack', `n = count of (${blocks.join(' + ')})`, String(count), count === 1 ? 'block' : 'blocks');
+}

@@ -3,7 +3,7 @@ import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar } from '../calc/sine-bar';
-import { type CalcResult, type Step, step } from '../calc/step';
+import { type CalcResult, type Step, blockCountStep } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { labelOf, savedForm } from '../forms/form-text';
 import { boxIdOf } from '../forms/gauge-blocks-form';
@@ -146,7 +146,7 @@ function sineBarWithBox(value: Record<string, unknown>, box: TeamBox, forAngle: 
     ...value,
     blocks,
     blockCount: blocks.length,
-    steps: [...steps, step('Fewest blocks', 'Σ blocks = H', blocks.join(' + '), String(blocks.length), blocks.length === 1 ? 'block' : 'blocks')],
+    steps: [...steps, blockCountStep(blocks)],
   };
 }
 
