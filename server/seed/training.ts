@@ -29,7 +29,9 @@ export async function seedTraining(teamId: number, training: DemoTraining, byEma
     if (await Assignment.findOne({ where: { teamId, title: a.title } })) continue;
     const now = Date.now();
     const dueAt = new Date(now + a.dueInDays * DAY_MS);
-    const assignment = await Assignment.create({ teamId, createdById: lead.id, title: a.title, instructions: a.instructions, items: a.items, dueAt });
+    // Given a week before it is due (or now, if that is later), so it is never made after its own work.
+    const createdAt = new Date(Math.min(now, dueAt.getTime() - 7 * DAY_MS));
+    const assignment = await Assignment.create({ teamId, createdById: lead.id, title: a.title, instructions: a.instructions, items: a.items, dueAt, createdAt });
     created++;
     for (const apprentice of apprentices) {
       const work = await AssignmentWork.create({ assignmentId: assignment.id, userId: apprentice.id, seed: newSeed() });

@@ -50,6 +50,9 @@ describe('demo training seed', () => {
         include: [{ model: User, as: 'user' }, { model: TrainingProblem, as: 'problems', include: ['attempts'] }],
       });
       statuses[a.state] = workSummary(work!, assignment!.dueAt);
+      // Given before it was due and before any of its work was done.
+      expect(assignment!.createdAt.getTime()).toBeLessThan(assignment!.dueAt.getTime());
+      if (work!.completedAt) expect(assignment!.createdAt.getTime()).toBeLessThan(work!.completedAt.getTime());
     }
     expect(statuses['done']).toMatchObject({ status: 'done', score: 67 });
     expect(statuses['open']).toMatchObject({ status: 'not-started' });
