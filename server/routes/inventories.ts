@@ -10,7 +10,7 @@ import { InventoryBlock, InventorySet } from '../models/inventory';
 import type { User } from '../models/user';
 import { blockLabel, findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
 import { boxBlockAngles } from '../../shared/forms/angle-blocks-form';
-import { boxStackRequest } from '../../shared/library/team-boxes';
+import { boxStackRequest, teamBoxOf } from '../../shared/library/team-boxes';
 
 /** Roles that manage the shop's inventories. */
 const MANAGERS = new Set(['admin', 'lead']);
@@ -162,7 +162,7 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
   router.get('/gauge-sets/:id/stack', async (req, res) => {
     const set = await findSet(req, 'gauge-blocks');
     const q = parseQuery(inventoryStackQuery, req.query);
-    const request = boxStackRequest({ ...set.get({ plain: true }), blocks: set.blocks ?? [] }, { target: q.target, grade: q.grade, wear: q.wear !== 'no' });
+    const request = boxStackRequest(teamBoxOf(set), { target: q.target, grade: q.grade, wear: q.wear !== 'no' });
     if (!request) throw new HttpError(422, 'Every block of this set is marked missing or damaged.');
     const result = calculateGaugeStack(request);
     const excluded = (set.blocks ?? []).filter((b) => b.missing + b.damaged > 0).map((b) => ({ size: b.size, missing: b.missing, damaged: b.damaged }));

@@ -1,4 +1,4 @@
-import { type TeamBox, type TeamBoxes, namedBox } from '../../shared/library/team-boxes';
+import { type TeamBoxes, namedBox, teamBoxOf } from '../../shared/library/team-boxes';
 import { InventoryBlock, InventorySet } from '../models/inventory';
 
 /**
@@ -11,15 +11,6 @@ export async function teamBoxesFor(teamId: number, kind: string, inputs: Record<
   if (!named) return new Map();
   const set = await InventorySet.findOne({ where: { id: named.id, teamId, type: named.type }, include: [{ model: InventoryBlock, as: 'blocks' }] });
   if (!set) return new Map();
-  const box: TeamBox = {
-    id: set.id,
-    type: named.type,
-    name: set.name,
-    unit: set.unit,
-    grade: set.grade ?? null,
-    wearBlockSize: set.wearBlockSize ?? null,
-    wearBlockCount: set.wearBlockCount,
-    blocks: (set.blocks ?? []).map((b) => ({ size: b.size, available: b.available })),
-  };
+  const box = teamBoxOf(set);
   return new Map([[box.id, box]]);
 }

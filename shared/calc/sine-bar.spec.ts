@@ -92,6 +92,14 @@ describe('calculateSineBar', () => {
       const count = r.steps.find((st) => st.label === 'Fewest blocks')!;
       expect([count.substituted, count.value, count.unit]).toEqual([`n = count of (${(r.blocks as string[]).join(' + ')})`, '4', 'blocks']);
     });
+
+    it('should say what to do with a stack the set cannot make: change the angle only when an angle was asked', () => {
+      // 5 in · sin 0.01° = 0.00087 in → 0.0009 in (derived); the 81-piece set's thinnest block is 0.050 in.
+      const forAngle = bar({ unit: 'in', barLength: 5, angle: 0.01, set: 'inch-81' });
+      expect(forAngle.warnings).toContain('The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.');
+      const forStack = bar({ unit: 'in', barLength: 5, stackHeight: '0.0009', set: 'inch-81' });
+      expect(forStack.warnings).toContain('The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference.');
+    });
   });
 
   it('should show the unrounded stack in the work to three places past the resolution, not thirty digits', () => {

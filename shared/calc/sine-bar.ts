@@ -184,7 +184,7 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
           blocks = found.map((b) => formatBlock(b, box));
           steps.push(blockCountStep(blocks));
         } else {
-          warnings.push(`The box cannot make a ${res(setting.stack)} ${unit} stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.`);
+          warnings.push(unmakeableStack(res(setting.stack), unit, p.angle !== undefined));
         }
       }
     }
@@ -393,4 +393,14 @@ export function calculateCompoundSinePlate(input: CompoundSineRequest | unknown)
       steps,
     });
   });
+}
+
+/**
+ * The box cannot give a sine bar's stack: what to do instead (for a stack typed in, changing the
+ * angle is no answer). Said by the engine for a standard set, and for a team's box by its page
+ * and the set-up's results.
+ */
+export function unmakeableStack(stack: string, unit: string, forAngle: boolean): string {
+  const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
+  return `The box cannot make a ${stack} ${unit} stack; ${fix}.`;
 }

@@ -2,7 +2,7 @@ import { calculateAngleBlocks } from '../calc/angle-blocks';
 import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
-import { calculateSineBar } from '../calc/sine-bar';
+import { calculateSineBar, unmakeableStack } from '../calc/sine-bar';
 import { type CalcResult, type Step, blockCountStep } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { labelOf, savedForm } from '../forms/form-text';
@@ -12,7 +12,7 @@ import { findGaugeSet } from '../data/gauge-sets';
 import { findMachineTaper } from '../data/machine-tapers';
 import { HOLDING_OPTIONS, type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
-import { type TeamBox, type TeamBoxes, boxStackRequest, namedBox, unmakeableStack } from './team-boxes';
+import { type TeamBox, type TeamBoxes, boxStackRequest, namedBox } from './team-boxes';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {

@@ -5,7 +5,7 @@
  * same blocks the calculator page and the inventory route use.
  */
 import type { GaugeStackRequest } from '../api/calc';
-import type { InventorySetDto } from '../api/inventory';
+import { GAUGE_GRADES, type InventorySetDto } from '../api/inventory';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 
 /** A team box: its name and the blocks in it, with how many of each may be used. */
@@ -21,15 +21,15 @@ export interface TeamBox {
   readonly blocks: ReadonlyArray<{ readonly size: string; readonly available: number }>;
 }
 
-/** A set as the inventory route gives it (with its blocks), as a box to answer set-ups with. */
-export function teamBoxOf(set: InventorySetDto): TeamBox {
+/** A set as the inventory keeps it (its DTO, or the server's row with its blocks), as a box to answer set-ups with. */
+export function teamBoxOf(set: Pick<InventorySetDto, 'id' | 'type' | 'name' | 'unit' | 'grade' | 'wearBlockSize' | 'wearBlockCount'> & { blocks?: ReadonlyArray<{ size: string; available: number }> | undefined }): TeamBox {
   return {
     id: set.id,
     type: set.type,
     name: set.name,
     unit: set.unit,
-    grade: set.grade,
-    wearBlockSize: set.wearBlockSize,
+    grade: set.grade ?? null,
+    wearBlockSize: set.wearBlockSize ?? null,
     wearBlockCount: set.wearBlockCount,
     blocks: (set.blocks ?? []).map((b) => ({ size: b.size, available: b.available })),
   };
@@ -49,9 +49,6 @@ export function namedBox(kind: string, inputs: Record<string, unknown>): { id: n
   return null;
 }
 
-/** Grades the gauge-stack engine knows (ISO 3650). */
-const GRADES = ['K', '0', '1', '2'];
-
 /**
  * The gauge-stack request for a stack from a box, as the inventory route makes it: the usable
  * blocks, the grade asked for or else the box's own, the box's wear-block pair when wanted and the
@@ -60,7 +57,7 @@ const GRADES = ['K', '0', '1', '2'];
 export function boxStackRequest(box: Omit<TeamBox, 'id' | 'type' | 'name'>, q: { target: string; grade?: string | undefined; wear: boolean }): GaugeStackRequest | null {
   const usable = box.blocks.filter((b) => b.available > 0);
   if (usable.length === 0) return null;
-  const grade = q.grade ?? (box.grade && GRADES.includes(box.grade) ? box.grade : undefined);
+  const grade = q.grade ?? (box.grade && (GAUGE_GRADES as readonly string[]).includes(box.grade) ? box.grade : undefined);
   const wearBlocks = q.wear && box.wearBlockSize && box.wearBlockCount >= 2 ? box.wearBlockSize : undefined;
   return {
     target: q.target,
@@ -69,13 +66,4 @@ export function boxStackRequest(box: Omit<TeamBox, 'id' | 'type' | 'name'>, q: {
     grade: grade as GaugeStackRequest['grade'],
     wearBlocks,
   };
-}
-
-/**
- * The box cannot give a sine bar's stack: what to do instead, as the engine says it for a standard
- * set (for a stack typed in, changing the angle is no answer).
- */
-export function unmakeableStack(target: string, unit: string, forAngle: boolean): string {
-  const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
-  return `The box cannot make a ${target} ${unit} stack; ${fix}.`;
 }

@@ -9,7 +9,7 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 
-import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar } from '../../../shared/calc/sine-bar';
+import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, unmakeableStack } from '../../../shared/calc/sine-bar';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { type BoxStackQuery, bindOwnBoxes, boxIdOf, boxStackState, excludedNote } from '../gauge-blocks/own-boxes';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
@@ -23,7 +23,6 @@ import { SaveSetup } from '../workbench/save-setup';
 import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { SineBarDrawing } from './sine-bar-drawing';
-import { unmakeableStack } from '../../../shared/library/team-boxes';
 import {
   BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, defaultSet, setsInUnit, sineBarSceneInput, toSineBarRequest,
 } from './sine-bar-form';
