@@ -8,7 +8,8 @@ import { HttpError } from '../middleware/http-error';
 import { parseBody, parseId } from '../middleware/validate';
 import { InventoryBlock, InventorySet } from '../models/inventory';
 import type { User } from '../models/user';
-import { blockLabel, findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
+import { blockLabel, blockSizeError } from '../../shared/forms/block-list';
+import { findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
 import { boxBlockAngles } from '../../shared/forms/angle-blocks-form';
 import { boxStackRequest, teamBoxOf } from '../../shared/library/team-boxes';
 
@@ -74,6 +75,8 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
         unit = type === 'gauge-blocks' ? (body.unit ?? 'in') : 'arcsec';
         blocks = body.blocks;
         if (new Set(blocks.map((b) => sizeOrder(b.size).toString())).size !== blocks.length) throw new HttpError(400, 'Some fields are not valid.', { blocks: 'List each size once, with its count.' });
+        const wrong = blocks.map((b) => blockSizeError(type, unit, b.size)).find((e) => e !== null);
+        if (wrong) throw new HttpError(400, 'Some fields are not valid.', { blocks: wrong });
       } else {
         throw new HttpError(400, 'Some fields are not valid.', { standardSet: 'Start from a standard set or list the blocks.' });
       }

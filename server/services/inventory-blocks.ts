@@ -1,8 +1,8 @@
-import { parseAngle } from '../../shared/angle/angle-text';
 import type { InventoryType, InventoryUnit } from '../../shared/api/inventory';
 import { Dec } from '../../shared/calc/decimal-math';
 import { ANGLE_BLOCK_SETS, findAngleBlockSet } from '../../shared/data/angle-block-sets';
 import { GAUGE_BLOCK_SETS, findGaugeSet } from '../../shared/data/gauge-sets';
+import { arcSecondsOf } from '../../shared/forms/block-list';
 
 /** A size and count to put in a new set. */
 export interface StartingBlock {
@@ -20,30 +20,6 @@ export interface StandardComposition {
   total: number;
   source: string;
   status: string;
-}
-
-/** Seconds of arc in an angle typed as DMS text (exact: angle blocks are whole seconds). */
-export function arcSecondsOf(text: string): number | null {
-  const parsed = parseAngle(text);
-  if (!parsed.ok) return null;
-  // Minutes and seconds are not exact in decimal degrees (1′ = 0.0166…°): round off the last digits.
-  const seconds = parsed.degrees.mul(3600).toDecimalPlaces(12);
-  return seconds.isInteger() && seconds.gt(0) ? seconds.toNumber() : null;
-}
-
-/** "27′", "1°", "3″", "1°30′": how an angle block is marked. */
-export function angleLabel(arcSeconds: number): string {
-  const d = Math.floor(arcSeconds / 3600);
-  const m = Math.floor((arcSeconds % 3600) / 60);
-  const s = arcSeconds % 60;
-  return [d ? `${d}°` : '', m ? `${m}′` : '', s ? `${s}″` : ''].join('') || '0″';
-}
-
-/** Label of a block of a set. */
-export function blockLabel(unit: InventoryUnit, size: string): string {
-  if (unit === 'arcsec') return angleLabel(Number(size));
-  const d = new Dec(size);
-  return `${d.toFixed(Math.max(unit === 'in' ? 3 : 0, d.decimalPlaces()))} ${unit}`;
 }
 
 /** Sort key of a size (numeric order). */

@@ -163,5 +163,29 @@ describe('/api/inventories', () => {
       expect(without.body.exact).toBe(false);
       expect(without.body.excluded).toEqual([{ size: '300', label: '5′', missing: 1, damaged: 0 }]);
     });
+
+    it("should keep a shop's own box listed block by block, and refuse sizes no angle block has", async () => {
+      const half = await send(c.admin, 'post', '/api/inventories/angle-sets', { name: 'Odd box', blocks: [{ size: '0.5', count: 1 }] }).expect(400);
+      expect(half.body.fields.blocks).toMatch(/whole seconds of arc/);
+      const square = await send(c.admin, 'post', '/api/inventories/angle-sets', { name: 'Odd box', blocks: [{ size: String(90 * 3600), count: 1 }] }).expect(400);
+      expect(square.body.fields.blocks).toMatch(/90° is not an angle block/);
+      // One each of 1°, 3°, 5°, 15°, 30°, 45° and 1', 3', 5', 20', 30': 20°10' = 15° + 5° + 30' − 20'
+      // (derived: no single block is 20° or 10', so two for the degrees and two for the minutes).
+      const own = await send(c.lead, 'post', '/api/inventories/angle-sets', {
+        name: 'Angle blocks, small box',
+        blocks: [1, 3, 5, 15, 30, 45].map((d) => ({ size: String(d * 3600), count: 1 })).concat([1, 3, 5, 20, 30].map((m) => ({ size: String(m * 60), count: 1 }))),
+      }).expect(201);
+      expect(own.body).toMatchObject({ unit: 'arcsec', standardSet: null, totals: { sizes: 11, blocks: 11 } });
+      expect(own.body.blocks.map((b: Block) => b.label)).toEqual(['1′', '3′', '5′', '20′', '30′', '1°', '3°', '5°', '15°', '30°', '45°']);
+      const made = await c.machinist.agent.get(`/api/inventories/angle-sets/${own.body.id}/combination?angle=${encodeURIComponent("20°10'")}`).expect(200);
+      expect(made.body).toMatchObject({ count: 4, exact: true });
+    });
+
+    it('should refuse a gauge block longer than ISO 3650 covers', async () => {
+      // ISO 3650 covers gauge blocks up to 1000 mm nominal length.
+      const long = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Long', unit: 'mm', blocks: [{ size: '500', count: 1 }, { size: '1200', count: 1 }] }).expect(400);
+      expect(long.body.fields.blocks).toMatch(/1200 mm is longer than any gauge block \(at most 1000 mm\)/);
+      await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Long', unit: 'mm', blocks: [{ size: '500', count: 1 }, { size: '1000', count: 1 }] }).expect(201);
+    });
   });
 });

@@ -462,6 +462,44 @@ describe('team inventory', () => {
     await context.close();
   });
 
+  it("should let a lead add the shop's own angle-block box by listing its blocks, and find an angle from it", async () => {
+    const o = await openPage(browser, DESKTOP);
+    const { page, context } = o;
+    await signInByApi(context, 'lead@demo.test');
+    await page.goto('/team/inventory');
+    const form = page.locator('form.create');
+    await form.locator('mat-select').click();
+    await page.getByRole('option', { name: 'Our own angle blocks' }).click();
+    // Named to sort after the demo's own boxes, which other pages pick first.
+    await form.getByLabel('Name in this shop').fill('Spare angle blocks, drawer 4');
+    await form.getByLabel('Blocks, one size per line').fill(`1°\n3°\n5°\n15°\n30°\n45°\n1'\n3'\n5'\n20'\n30'\n90°`);
+    await form.locator('mat-hint', { hasText: `Line 12 ("90°"): 90° is not an angle block` }).waitFor();
+    await form.getByLabel('Blocks, one size per line').fill(`1°\n3°\n5°\n15°\n30°\n45°\n1'\n3'\n5'\n20'\n30'`);
+    await form.locator('mat-hint', { hasText: '11 sizes, 11 blocks, 1′ to 45°' }).waitFor();
+    const created = page.waitForResponse((r) => r.url().endsWith('/api/inventories/angle-sets') && r.request().method() === 'POST');
+    await form.getByRole('button', { name: 'Add set' }).click();
+    const res = await created;
+    expect(res.status()).toBe(201);
+    const id = ((await res.json()) as { id: number }).id;
+    await page.locator('.detail h2', { hasText: 'Spare angle blocks, drawer 4' }).waitFor();
+    expect(await page.locator('.detail tbody tr td:first-child').allInnerTexts()).toEqual(['1′', '3′', '5′', '20′', '30′', '1°', '3°', '5°', '15°', '30°', '45°']);
+    // 20°10' = 15° + 5° + 30′ − 20′ (derived: no single block is 20° or 10′).
+    await page.getByLabel(`Angle, e.g. 17°35'`).fill(`20°10'`);
+    await page.getByRole('button', { name: 'Find the blocks' }).click();
+    expect(await page.locator('.result').innerText()).toContain('4 blocks');
+    await fullScreenshot(page, 'inventory-own-box-desktop');
+    await expectAccessible(page);
+    expect(o.problems).toEqual([]);
+    await context.close();
+
+    // Leave the demo team as it was for the other tests.
+    const admin = await openPage(browser, DESKTOP);
+    await signInByApi(admin.context, 'admin@demo.test');
+    const token = ((await (await admin.context.request.get('/api/auth/csrf')).json()) as { token: string }).token;
+    expect((await admin.context.request.delete(`/api/inventories/angle-sets/${id}`, { headers: { 'X-CSRF-Token': token } })).status()).toBe(204);
+    await admin.context.close();
+  });
+
   it('should fit the team box note on a tablet', async () => {
     const o = await openPage(browser, TABLET);
     await signInByApi(o.context, 'machinist@demo.test');

@@ -49,6 +49,59 @@ describe('InventoryPage', () => {
     req.flush(SET);
   });
 
+  it("should add a box of the shop's own gauge blocks from a typed list, saying a wrong line before sending", async () => {
+    await open('lead');
+    (el().querySelector('form.create .mat-mdc-select-trigger') as HTMLElement).click();
+    fixture.detectChanges();
+    const option = Array.from(document.querySelectorAll('mat-option')).find((o) => o.textContent?.includes('Our own gauge blocks')) as HTMLElement;
+    option.click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const type = (selector: string, value: string) => {
+      const field = el().querySelector(selector) as HTMLInputElement | HTMLTextAreaElement;
+      field.value = value;
+      field.dispatchEvent(new Event('input'));
+      fixture.detectChanges();
+    };
+    const submit = () => (el().querySelector('form.create button[type="submit"]') as HTMLButtonElement).click();
+    type('form.create textarea', '0.1001\n0.1o02');
+    expect(el().querySelector('form.create mat-hint')?.textContent).toContain('Line 2 ("0.1o02"): not a size');
+    submit();
+    fixture.detectChanges();
+    expect(el().querySelector('form.create [role="alert"]')?.textContent).toContain('Give the set a name');
+    type('form.create input[name="name"]', 'Long blocks, cabinet 3');
+    submit();
+    fixture.detectChanges();
+    expect(el().querySelector('form.create [role="alert"]')?.textContent).toContain('Line 2');
+    Array.from(el().querySelectorAll('form.create mat-button-toggle button')).find((b) => b.textContent?.includes('mm'))!.dispatchEvent(new Event('click'));
+    type('form.create textarea', '100 to 500 by 100\n125 x 2');
+    expect(el().querySelector('form.create mat-hint')?.textContent).toContain('6 sizes, 7 blocks, 100 mm to 500 mm');
+    submit();
+    const req = http.expectOne('/api/inventories/gauge-sets');
+    expect(req.request.method).toBe('POST');
+    expect(req.request.body).toEqual({
+      name: 'Long blocks, cabinet 3',
+      unit: 'mm',
+      blocks: [
+        { size: '100', count: 1 },
+        { size: '125', count: 2 },
+        { size: '200', count: 1 },
+        { size: '300', count: 1 },
+        { size: '400', count: 1 },
+        { size: '500', count: 1 },
+      ],
+    });
+    req.flush({ ...SET, id: 9, name: 'Long blocks, cabinet 3', unit: 'mm', standardSet: null });
+    http.expectOne('/api/inventories').flush({ gaugeSets: [{ ...SET, blocks: undefined }], angleSets: [] });
+    fixture.detectChanges();
+    expect(el().querySelector('.detail h2')?.textContent).toContain('Long blocks, cabinet 3');
+    // The form starts over: no list left to add twice.
+    await fixture.whenStable();
+    fixture.detectChanges();
+    expect(el().querySelector('form.create textarea')).toBeNull();
+    expect((el().querySelector('form.create input[name="name"]') as HTMLInputElement).value).toBe('');
+  });
+
   it('should not offer the marking buttons to a machinist', async () => {
     await open('machinist');
     expect(el().querySelector('button[aria-label^="Mark a"]')).toBeNull();

@@ -12,6 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of } from 'rxjs';
 
 import { GAUGE_GRADES, type InventoryBlockDto, type InventoryListDto, type InventorySetDto, type InventoryType } from '../../../shared/api/inventory';
+import { blockLabel, readBlockList } from '../../../shared/forms/block-list';
 import { apiErrorDetail, apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { boxFailureMessage } from '../gauge-blocks/own-boxes';
@@ -41,6 +42,35 @@ export default class InventoryPage {
   protected readonly newName = signal('');
   protected readonly newStandard = signal('');
   protected readonly createError = signal<string | null>(null);
+  /** A box of the shop's own listed block by block (the "Start from" choices beside the standard ones). */
+  protected readonly customChoices = [
+    { id: CUSTOM_GAUGE, name: 'Our own gauge blocks' },
+    { id: CUSTOM_ANGLE, name: 'Our own angle blocks' },
+  ];
+  protected readonly customType = computed<InventoryType | null>(() => (this.newStandard() === CUSTOM_GAUGE ? 'gauge-blocks' : this.newStandard() === CUSTOM_ANGLE ? 'angle-blocks' : null));
+  protected readonly newUnit = signal<'in' | 'mm'>('in');
+  protected readonly newBlocks = signal('');
+  /** The typed list read as the API will take it, once something is typed. */
+  protected readonly listed = computed(() => {
+    const type = this.customType();
+    if (!type || this.newBlocks().trim() === '') return null;
+    return readBlockList(type, type === 'gauge-blocks' ? this.newUnit() : 'arcsec', this.newBlocks());
+  });
+  protected readonly listedError = computed(() => {
+    const read = this.listed();
+    return read && !read.ok ? read.error : null;
+  });
+  /** "36 sizes, 38 blocks, 0.050 in to 4.000 in" for the typed list. */
+  protected readonly listedText = computed(() => {
+    const read = this.listed();
+    const type = this.customType();
+    if (!read?.ok || !type) return '';
+    const unit = type === 'gauge-blocks' ? this.newUnit() : 'arcsec';
+    const sizes = read.blocks.length;
+    const first = blockLabel(unit, read.blocks[0]!.size);
+    const last = blockLabel(unit, read.blocks[sizes - 1]!.size);
+    return `${sizes} ${sizes === 1 ? 'size' : 'sizes'}, ${read.total} ${read.total === 1 ? 'block' : 'blocks'}${sizes > 1 ? `, ${first} to ${last}` : `: ${first}`}`;
+  });
   protected readonly mayManage = computed(() => this.auth.user()?.role === 'admin' || this.auth.user()?.role === 'lead');
   protected readonly isAdmin = computed(() => this.auth.user()?.role === 'admin');
   /** The details being edited (null: not editing), all as typed. */
@@ -182,13 +212,42 @@ export default class InventoryPage {
   }
 
   protected create(): void {
+    const custom = this.customType();
+    if (custom) {
+      this.createCustom(custom);
+      return;
+    }
     const standard = this.standards().find((s) => s.id === this.newStandard());
     if (!standard) return;
-    const type: InventoryType = standard.type;
+    this.send(standard.type, { name: this.newName().trim() || standard.name, standardSet: standard.id });
+  }
+
+  /** A box of the shop's own: its name and the blocks listed, read here first so a wrong line is said at once. */
+  private createCustom(type: InventoryType): void {
     this.createError.set(null);
-    this.api.create(type, { name: this.newName().trim() || standard.name, standardSet: standard.id }).subscribe({
+    if (!this.newName().trim()) {
+      this.createError.set('Give the set a name, e.g. "Long blocks, cabinet 3".');
+      return;
+    }
+    const read = this.listed();
+    if (!read) {
+      this.createError.set('List the blocks in the box, one size per line.');
+      return;
+    }
+    if (!read.ok) {
+      this.createError.set(read.error);
+      return;
+    }
+    this.send(type, { name: this.newName().trim(), blocks: read.blocks, ...(type === 'gauge-blocks' ? { unit: this.newUnit() } : {}) });
+  }
+
+  private send(type: InventoryType, body: Parameters<InventoryApi['create']>[1]): void {
+    this.createError.set(null);
+    this.api.create(type, body).subscribe({
       next: (set) => {
         this.newName.set('');
+        this.newBlocks.set('');
+        this.newStandard.set('');
         this.selected.set(set);
         this.reload(set.id);
       },
@@ -196,3 +255,7 @@ export default class InventoryPage {
     });
   }
 }
+
+/** "Start from" values of a box listed block by block. */
+const CUSTOM_GAUGE = 'own-gauge-blocks';
+const CUSTOM_ANGLE = 'own-angle-blocks';

@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
@@ -31,7 +31,7 @@ const MAX_UPLOAD_MB = 20;
 /** One set-up: inputs, results, checks, notes, attachments, history and batch runs, with the actions the role allows. */
 @Component({
   selector: 'app-setup-detail-page',
-  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatExpansionModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
+  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatExpansionModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './setup-detail-page.html',
   styleUrl: './setup-detail-page.scss',
