@@ -1,9 +1,11 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 
 import type { ReviewProblemDto, WorkReviewDto } from '../../../shared/api/training';
+import { Auth } from '../core/auth';
 import WorkReviewPage from './work-review-page';
 
 const step = (label: string, value: string) => ({ label, formula: 'h = L · sin α', substituted: '1.5 · sin 10°', value, unit: 'in' });
@@ -56,8 +58,10 @@ describe('WorkReviewPage', () => {
   let http: HttpTestingController;
   let el: HTMLElement;
 
-  async function open(): Promise<void> {
-    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+  async function open(role = 'lead', ownId = 1): Promise<void> {
+    TestBed.configureTestingModule({
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal({ id: ownId, email: 'x@example.test', name: 'X', role }) } }],
+    });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(WorkReviewPage);
     fixture.componentRef.setInput('id', '7');
@@ -105,11 +109,28 @@ describe('WorkReviewPage', () => {
     expect(panel.textContent).toContain('exact 0.26047');
   });
 
-  it('should show the server\'s message when the caller may not read the work (403)', async () => {
+  it("should show the server's message when the lead may not read the work (404)", async () => {
     await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush({ error: 'No work for that apprentice on this assignment.' }, { status: 404, statusText: 'Not Found' });
+    await settle();
+    expect(el.querySelector('[role=alert]')!.textContent).toContain('No work for that apprentice on this assignment.');
+    expect(el.querySelector('mat-card')).toBeNull();
+  });
+
+  it("should tell an apprentice who opened the lead's view of their own work where their page is (403)", async () => {
+    await open('apprentice', 4);
     http.expectOne('/api/training/assignments/7/work/4').flush({ error: 'Only lead or admin members may do this.' }, { status: 403, statusText: 'Forbidden' });
     await settle();
-    expect(el.querySelector('[role=alert]')!.textContent).toContain('Only lead or admin members may do this.');
+    expect(el.querySelector('[role=alert]')!.textContent).toContain("This is the lead hand's view of your work");
+    expect(el.querySelector('a[href="/training/assignments/7"]')!.textContent).toContain('Open your own work on this assignment');
     expect(el.querySelector('mat-card')).toBeNull();
+  });
+
+  it("should tell a machinist what the page is, without a link to someone else's work (403)", async () => {
+    await open('machinist', 9);
+    http.expectOne('/api/training/assignments/7/work/4').flush({ error: 'Only lead or admin members may do this.' }, { status: 403, statusText: 'Forbidden' });
+    await settle();
+    expect(el.querySelector('[role=alert]')!.textContent).toContain("shows an apprentice's answers to their lead hand");
+    expect(el.querySelector('a[href="/training/assignments/7"]')).toBeNull();
   });
 });

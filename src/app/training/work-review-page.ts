@@ -1,3 +1,4 @@
+import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -9,6 +10,7 @@ import { firstValueFrom } from 'rxjs';
 
 import type { WorkReviewDto } from '../../../shared/api/training';
 import { apiErrorMessage } from '../core/api-error';
+import { Auth } from '../core/auth';
 import { TrainingApi } from './training-api';
 import { STATUS_ICONS, STATUS_LABELS } from './work-status';
 
@@ -94,6 +96,9 @@ function utcText(iso: string): string {
       } @else if (failed()) {
         <h1>Apprentice work</h1>
         <p role="alert" class="failed">{{ failed() }}</p>
+        @if (ownWork(); as link) {
+          <a mat-stroked-button [routerLink]="link"><mat-icon>assignment</mat-icon> Open your own work on this assignment</a>
+        }
       } @else {
         <mat-progress-bar mode="indeterminate" aria-label="Loading the apprentice's work" />
       }
@@ -124,6 +129,7 @@ function utcText(iso: string): string {
 })
 export default class WorkReviewPage {
   private readonly api = inject(TrainingApi);
+  private readonly auth = inject(Auth);
 
   /** The assignment id, from the route. */
   readonly id = input.required<string>();
@@ -132,6 +138,8 @@ export default class WorkReviewPage {
 
   protected readonly view = signal<WorkReviewDto | null>(null);
   protected readonly failed = signal<string | null>(null);
+  /** Where an apprentice who opened the lead's view of their own work finds it (null otherwise). */
+  protected readonly ownWork = signal<string | null>(null);
   protected readonly summary = computed(() => this.view()?.assignment.work[0] ?? null);
   protected readonly statusLabels = STATUS_LABELS;
   protected readonly statusIcons = STATUS_ICONS;
@@ -145,9 +153,22 @@ export default class WorkReviewPage {
   private async load(id: string, userId: string): Promise<void> {
     this.view.set(null);
     this.failed.set(null);
+    this.ownWork.set(null);
     try {
       this.view.set(await firstValueFrom(this.api.review(id, userId)));
     } catch (err) {
+      const role = this.auth.user()?.role;
+      if (err instanceof HttpErrorResponse && err.status === 403 && role !== 'lead' && role !== 'admin') {
+        // A lead's link sent on: say what the page is and where the reader's own work is.
+        const own = String(this.auth.user()?.id) === userId;
+        this.failed.set(
+          own
+            ? "This is the lead hand's view of your work, with every worked solution shown; only a lead hand or an admin opens it. Your own page for this assignment is below."
+            : "This page shows an apprentice's answers to their lead hand; only a lead hand or an admin opens it.",
+        );
+        this.ownWork.set(own ? `/training/assignments/${id}` : null);
+        return;
+      }
       this.failed.set(apiErrorMessage(err));
     }
   }
