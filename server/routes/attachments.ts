@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Router, type Request } from 'express';
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
+import type { FieldChange } from '../../shared/api/setup';
 import { currentUser } from '../middleware/auth';
 import { HttpError } from '../middleware/http-error';
 import { parseId } from '../middleware/validate';
@@ -58,6 +59,23 @@ function utf8Name(name: string): string {
 
 const WITH_UPLOADER = [{ model: User, as: 'uploadedBy', attributes: ['id', 'name'] }];
 
+/**
+ * Records a file attached to or removed from a set-up. The files are part of what a lead released
+ * (the sheet prints the drawings), so a released set-up becomes a draft again, with a new version,
+ * for a lead to release — as an edit of its inputs does. The set-up row is locked for the change,
+ * so an edit at the same moment waits and then finds the new version.
+ */
+async function recordFileChange(setupId: number, action: 'attached' | 'detached', user: User, change: FieldChange, transaction: Transaction): Promise<void> {
+  const setup = await Setup.findByPk(setupId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!setup) throw new HttpError(404, 'No set-up with that id.');
+  const changes = [change];
+  if (setup.status === 'released') {
+    changes.push({ field: 'status', from: 'released', to: 'draft' });
+    await setup.update({ status: 'draft', releasedAt: null, releasedById: null, version: setup.version + 1 }, { transaction });
+  }
+  await recordRevision(setup, action, user, changes, transaction);
+}
+
 /** /api/setups/:id/attachments: drawings and photos of a set-up, with the set-up's access rules. */
 export function createAttachmentsRouter({ sequelize, storage, maxBytes }: AttachmentDeps): Router {
   const router = Router({ mergeParams: true });
@@ -105,7 +123,7 @@ export function createAttachmentsRouter({ sequelize, storage, maxBytes }: Attach
           { teamId: setup.teamId, setupId: setup.id, storageKey: key, thumbnailKey: thumbKey, fileName, contentType: checked.contentType, size: checked.size, sha256: checked.sha256, width: checked.width, height: checked.height, uploadedById: user.id },
           { transaction },
         );
-        await recordRevision(setup, 'attached', user, [{ field: 'attachments', from: '', to: fileName }], transaction);
+        await recordFileChange(setup.id, 'attached', user, { field: 'attachments', from: '', to: fileName }, transaction);
         return row.id;
       });
     } catch (err) {
@@ -156,7 +174,7 @@ export function createAttachmentsRouter({ sequelize, storage, maxBytes }: Attach
     if (setup.status === 'archived') throw new HttpError(409, 'This set-up is archived and read-only.');
     await sequelize.transaction(async (transaction) => {
       await attachment.destroy({ transaction });
-      await recordRevision(setup, 'detached', user, [{ field: 'attachments', from: attachment.fileName, to: '' }], transaction);
+      await recordFileChange(setup.id, 'detached', user, { field: 'attachments', from: attachment.fileName, to: '' }, transaction);
     });
     await storage.delete(attachment.storageKey);
     if (attachment.thumbnailKey) await storage.delete(attachment.thumbnailKey);

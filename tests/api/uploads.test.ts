@@ -173,6 +173,34 @@ describe('set-up attachments (disk storage)', () => {
     const revs = await c.machinist.agent.get(`/api/setups/${id}/revisions`).expect(200);
     expect(revs.body.revisions.map((r: { action: string }) => r.action)).toEqual(['detached', 'attached', 'created']);
   });
+
+  it('should make a released set-up a draft again when its files change, with a new version a stale edit cannot overwrite', async () => {
+    const id = await newSetup(c.machinist, 'Released with a drawing');
+    const first = await upload(c.machinist, id, png, 'first.png', 'image/png').expect(201);
+    const draftVersion = (await c.machinist.agent.get(`/api/setups/${id}`).expect(200)).body.version as number;
+    // A file on a draft changes nothing else.
+    expect((await c.machinist.agent.get(`/api/setups/${id}`).expect(200)).body).toMatchObject({ status: 'draft', version: draftVersion });
+    const released = await c.lead.agent.post(`/api/setups/${id}/release`).set('X-CSRF-Token', c.lead.token).expect(200);
+    expect(released.body.status).toBe('released');
+    const v = released.body.version as number;
+
+    await upload(c.machinist, id, pdf, 'second.pdf', 'application/pdf').expect(201);
+    const afterAttach = (await c.machinist.agent.get(`/api/setups/${id}`).expect(200)).body;
+    expect(afterAttach).toMatchObject({ status: 'draft', version: v + 1, releasedAt: null });
+    // An edit based on the released version is now stale.
+    await c.machinist.agent.put(`/api/setups/${id}`).set('X-CSRF-Token', c.machinist.token).send({ name: 'Renamed', kind: 'taper', inputs: taper, version: v }).expect(409);
+    const revs = (await c.machinist.agent.get(`/api/setups/${id}/revisions`).expect(200)).body.revisions as Array<{ action: string; status: string; changes: Array<{ field: string; from: string; to: string }> }>;
+    expect(revs[0]).toMatchObject({ action: 'attached', status: 'draft' });
+    expect(revs[0]!.changes).toEqual([{ field: 'attachments', from: '', to: 'second.pdf' }, { field: 'status', from: 'released', to: 'draft' }]);
+
+    // Removing a file from a released set-up does the same, a lead's removal too.
+    const again = await c.lead.agent.post(`/api/setups/${id}/release`).set('X-CSRF-Token', c.lead.token).expect(200);
+    await c.lead.agent.delete(`/api/setups/${id}/attachments/${first.body.id}`).set('X-CSRF-Token', c.lead.token).expect(204);
+    expect((await c.lead.agent.get(`/api/setups/${id}`).expect(200)).body).toMatchObject({ status: 'draft', version: (again.body.version as number) + 1 });
+    // No batch can start on it until it is released again.
+    const refused = await c.lead.agent.post('/api/batches').set('X-CSRF-Token', c.lead.token).send({ setupId: id, partCount: 2 }).expect(409);
+    expect(refused.body.error).toContain('Only a released set-up can be run');
+  });
 });
 
 describe('S3 storage adapter against a local fake', () => {

@@ -94,6 +94,15 @@ describe('set-up library, end to end', () => {
     await page.goto(`/library/${setupId}`);
     await page.getByRole('button', { name: 'Release' }).click();
     await page.locator('.status-released').waitFor();
+    // Its files are part of what was released: a photo added now makes it a draft until it is released again.
+    const photo = await sharp({ create: { width: 400, height: 300, channels: 3, background: { r: 90, g: 100, b: 110 } } }).png().toBuffer();
+    const asked = new Promise<string>((resolve) => page.once('dialog', (d) => { resolve(d.message()); void d.accept(); }));
+    await page.locator('input[type=file]').setInputFiles({ name: 'clamped-in-vise.png', mimeType: 'image/png', buffer: photo });
+    expect(await asked).toContain('it becomes a draft again until you or another lead release it');
+    await page.getByText('clamped-in-vise.png', { exact: true }).waitFor();
+    await page.locator('.status-draft').waitFor();
+    await page.getByRole('button', { name: 'Release' }).click();
+    await page.locator('.status-released').waitFor();
     await screenshot(page, 'library-detail-desktop');
     expect(await contentViolations(page)).toBe('');
     await page.goto('/library');

@@ -237,13 +237,14 @@ export default class SetupDetailPage {
       this.uploadError.set(`The file is larger than the ${MAX_UPLOAD_MB} MB limit.`);
       return;
     }
+    if (s.status === 'released' && !confirm(`Attach "${file.name}"? ${this.backToDraft()}`)) return;
     this.uploadPercent.set(0);
     this.api.upload(s.id, file).subscribe({
       next: (p) => {
         if (p.done) {
           this.attachments.update((list) => [...list, p.attachment]);
           this.uploadPercent.set(null);
-          this.refreshHistory(s.id);
+          this.afterFileChange(s);
         } else {
           this.uploadPercent.set(p.percent);
         }
@@ -255,6 +256,18 @@ export default class SetupDetailPage {
     });
   }
 
+  /** What a file change does to a released set-up, said before it is made. */
+  private backToDraft(): string {
+    const lead = this.role() === 'lead' || this.role() === 'admin';
+    return `The set-up is released: its files are part of what was released, so it becomes a draft again until ${lead ? 'you or another lead release' : 'a lead releases'} it.`;
+  }
+
+  /** After a file is attached or removed: the history, and the set-up itself when it was released (now a draft). */
+  private afterFileChange(before: SetupDto): void {
+    this.refreshHistory(before.id);
+    if (before.status === 'released') this.api.get(before.id).subscribe((fresh) => this.setup.set(fresh));
+  }
+
   /** A file's size as people read it: bytes under 1 KB, else KB or MB. */
   protected sizeText(bytes: number): string {
     if (bytes < 1024) return `${bytes} ${bytes === 1 ? 'byte' : 'bytes'}`;
@@ -263,12 +276,14 @@ export default class SetupDetailPage {
   }
 
   protected removeAttachment(a: AttachmentDto): void {
-    if (!confirm(`Remove "${a.fileName}" from this set-up? The stored file is deleted and cannot be brought back.`)) return;
+    const s = this.setup();
+    const released = s?.status === 'released' ? ` ${this.backToDraft()}` : '';
+    if (!confirm(`Remove "${a.fileName}" from this set-up? The stored file is deleted and cannot be brought back.${released}`)) return;
     this.uploadError.set(null);
     this.api.removeAttachment(a.setupId, a.id).subscribe({
       next: () => {
         this.attachments.update((list) => list.filter((x) => x.id !== a.id));
-        this.refreshHistory(a.setupId);
+        if (s) this.afterFileChange(s);
       },
       error: (err: unknown) => this.uploadError.set(`"${a.fileName}" was not removed: ${apiErrorMessage(err)}`),
     });
