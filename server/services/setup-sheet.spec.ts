@@ -5,21 +5,39 @@ import { calculateOverPins } from '../../shared/calc/over-pins';
 import { calculateSineBar } from '../../shared/calc/sine-bar';
 import type { CalcResult, Step } from '../../shared/calc/step';
 import { calculateTaper } from '../../shared/calc/taper';
-import { pdfText, sheetCautions } from './setup-sheet';
+import { sheetCautions } from './setup-sheet';
+import { fontRuns, pdfText } from './sheet-fonts';
 
-describe('pdfText (what the sheet\'s standard PDF fonts can print)', () => {
-  it('should spell out the symbols derivations use', () => {
-    expect(pdfText('tan(α/2) = |M₂ − M₁| / (2 · ΔH)')).toBe('tan(alpha/2) = |M2 - M1| / (2 · delta H)');
+describe("pdfText (what the sheet's font, IBM Plex Sans, can print)", () => {
+  it('should print Greek letters and the signs the font has, and spell out those it lacks', () => {
+    // The font's parts and their characters: @fontsource/ibm-plex-sans unicode.json.
+    expect(pdfText('tan(α/2) = |M₂ − M₁| / (2 · ΔH)')).toBe('tan(α/2) = |M2 − M1| / (2 · ΔH)');
     expect(pdfText('n = ⌈h / depth per pass⌉')).toBe('n = ceil(h / depth per pass)');
-    expect(pdfText('θ = Σ added − Σ reversed')).toBe('theta = sum added - sum reversed');
+    expect(pdfText('θ = Σ added − Σ reversed')).toBe('θ = Σ added − Σ reversed');
     expect(pdfText('11.5 × 10⁻⁶ K⁻¹')).toBe('11.5 × 10^-6 K^-1');
-    expect(pdfText('T = √(Σ te²)')).toBe('T = sqrt(sum te²)');
-    expect(pdfText('7°30′00″ ≤ 90°')).toBe('7°30\'00" <= 90°');
+    expect(pdfText('T = √(Σ te²)')).toBe('T = sqrt(Σ te²)');
+    expect(pdfText('7°30′00″ ≤ 90°')).toBe('7°30′00″ <= 90°');
   });
 
-  it('should keep Windows-1252 text and mark anything else it cannot print with "?"', () => {
+  it('should keep names in Latin, Greek and Cyrillic scripts and mark what the font lacks with "?"', () => {
     expect(pdfText('Café — 0.5 µm ± 2 °C “quoted”')).toBe('Café — 0.5 µm ± 2 °C “quoted”');
-    expect(pdfText('日本')).toBe('??');
+    expect(pdfText('Łukasz Żółć, Dvořák, Ελένη, Сергей, Nguyễn')).toBe('Łukasz Żółć, Dvořák, Ελένη, Сергей, Nguyễn');
+    expect(pdfText('日本 🔧')).toBe('?? ?');
+    expect(pdfText('line one\nline two')).toBe('line one\nline two');
+  });
+
+  it('should write each run in the part of the font that has its characters', () => {
+    expect(fontRuns('Żółć 2 mm', 'regular')).toEqual([
+      { font: 'plex-latin-ext-400', text: 'Ż' },
+      { font: 'plex-latin-400', text: 'ó' },
+      { font: 'plex-latin-ext-400', text: 'łć' },
+      { font: 'plex-latin-400', text: ' 2 mm' },
+    ]);
+    expect(fontRuns('α = 7°', 'bold')).toEqual([
+      { font: 'plex-greek-600', text: 'α' },
+      { font: 'plex-latin-600', text: ' = 7°' },
+    ]);
+    expect(fontRuns('', 'regular')).toEqual([{ font: 'plex-latin-400', text: '' }]);
   });
 
   // Every derivation the engine writes, for a set-up of each area and each pins-and-rolls kind, prints

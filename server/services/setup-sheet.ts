@@ -7,6 +7,7 @@ import { angleBlocksSketch, angleSketch, dovetailAngleSketch, dovetailSketch, vG
 import type { ObjectStorage } from './storage/object-storage';
 import type { TeamBoxes } from '../../shared/library/team-boxes';
 import { kindLabel } from '../../shared/api/setup';
+import { baseFont, fontRuns, registerSheetFonts, type SheetWeight } from './sheet-fonts';
 
 /** What a set-up sheet is made from. */
 export interface SheetSource {
@@ -17,39 +18,6 @@ export interface SheetSource {
   link: string;
   /** The team box the set-up names, loaded with what is in it now (none: answered on its page only). */
   boxes?: TeamBoxes;
-}
-
-// The standard PDF fonts only cover Windows-1252; these stand in for the symbols derivations use.
-const STAND_INS: Record<string, string> = {
-  'α': 'alpha', 'β': 'beta', 'γ': 'gamma', 'θ': 'theta', 'φ': 'phi', 'Δ': 'delta ', 'δ': 'delta', 'π': 'pi', 'μ': 'µ',
-  '√': 'sqrt', '′': "'", '″': '"', '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '⟂': 'perp.', '→': '->', '∠': 'angle ', '⋅': '·', '∑': 'sum',
-  'Σ': 'sum', 'ρ': 'rho', '⌈': 'ceil(', '⌉': ')', '⌊': 'floor(', '⌋': ')', '↔': '<->', '≡': '==', '≠': '!=', '∞': 'infinity', '˚': '°',
-  '₀': '0', '₁': '1', '₂': '2', '₃': '3', '₄': '4', '₅': '5', '₆': '6', '₇': '7', '₈': '8', '₉': '9',
-};
-
-/** Superscripts: a run that the fonts cannot print (10⁻⁶) is written after a caret (10^-6); ¹ ² ³ alone print as they are. */
-const SUPERSCRIPTS: Record<string, string> = { '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-', '⁺': '+', 'ⁿ': 'n' };
-
-/** Text the standard PDF fonts can print: known symbols spelled out, anything else outside Windows-1252 as "?". */
-export function pdfText(text: string): string {
-  let out = '';
-  const chars = [...text];
-  for (let i = 0; i < chars.length; i += 1) {
-    const ch = chars[i]!;
-    if (SUPERSCRIPTS[ch] !== undefined) {
-      let end = i;
-      while (end < chars.length && SUPERSCRIPTS[chars[end]!] !== undefined) end += 1;
-      const run = chars.slice(i, end);
-      out += run.every((c) => c.codePointAt(0)! <= 0xff) ? run.join('') : `^${run.map((c) => SUPERSCRIPTS[c]).join('')}`;
-      i = end - 1;
-      continue;
-    }
-    const sub = STAND_INS[ch];
-    if (sub !== undefined) out += sub;
-    else if (ch.codePointAt(0)! <= 0xff || '€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ'.includes(ch)) out += ch;
-    else out += '?';
-  }
-  return out;
 }
 
 /** General cautions printed on every sheet (common practice; defer to shop rules). */
@@ -75,6 +43,34 @@ export function sheetCautions(kind: string, own: readonly string[]): string[] {
 const INK = '#1d2a33';
 const MUTED = '#5b6b75';
 const ACCENT = '#1f6f8b';
+
+/** How a piece of text is written: its weight, and pdfkit's own text options. */
+interface WriteOptions extends PDFKit.Mixins.TextOptions {
+  weight?: SheetWeight;
+}
+
+/** The width of text in the sheet's font at the current size. */
+function widthOf(doc: PDFKit.PDFDocument, text: string, weight: SheetWeight = 'regular'): number {
+  const width = fontRuns(text, weight).reduce((sum, run) => sum + doc.font(run.font).widthOfString(run.text), 0);
+  doc.font(baseFont('regular'));
+  return width;
+}
+
+/**
+ * Writes text in the sheet's font, at (x, y) when given, else where the last text left off: each
+ * run in the part of the font that has its characters, continued so the runs wrap as one text.
+ */
+function write(doc: PDFKit.PDFDocument, text: string, options: WriteOptions = {}, at?: readonly [number, number]): void {
+  const { weight = 'regular', ...rest } = options;
+  const runs = fontRuns(text, weight);
+  runs.forEach((run, i) => {
+    const continued = i < runs.length - 1 || rest.continued === true;
+    doc.font(run.font);
+    if (i === 0 && at) doc.text(run.text, at[0], at[1], { ...rest, continued });
+    else doc.text(run.text, { ...rest, continued });
+  });
+  doc.font(baseFont('regular'));
+}
 
 function num(value: unknown): number | null {
   if (typeof value === 'number') return Number.isFinite(value) ? value : null;
@@ -184,8 +180,8 @@ export function sketchFor(kind: string, saved: Record<string, unknown>, results:
 
 function drawSketch(doc: PDFKit.PDFDocument, sketch: Sketch, x: number, y: number, w: number, h: number): void {
   const { minX, minY, maxX, maxY } = sketch.box;
-  // The title takes the top line of the box; the drawing fits below it.
-  const title = 16;
+  // The title takes the top line of the box (and a second, for a label written above a mark); the drawing fits below it.
+  const title = sketch.shapes.some((s) => s.labelAbove) ? 28 : 16;
   const scale = Math.min(w / (maxX - minX || 1), (h - title) / (maxY - minY || 1)) * 0.9;
   const ox = x + (w - (maxX - minX) * scale) / 2;
   const oy = y + h - (h - title - (maxY - minY) * scale) / 2;
@@ -228,15 +224,27 @@ function drawSketch(doc: PDFKit.PDFDocument, sketch: Sketch, x: number, y: numbe
         : s.kind === 'dimension'
           ? at({ x: ((s.points[0]?.x ?? 0) + (s.points[1]?.x ?? 0)) / 2, y: ((s.points[0]?.y ?? 0) + (s.points[1]?.y ?? 0)) / 2 })
           : at(s.points[0] ?? { x: 0, y: 0 });
-      doc.fillColor(s.style === 'block' ? MUTED : ACCENT).fontSize(8).text(pdfText(s.label), p[0] + 5, p[1] - 4, { lineBreak: false });
+      doc.fillColor(s.style === 'block' ? MUTED : ACCENT).fontSize(8);
+      // Beside a circle, clear of its rim (or above it); beside anything else, just off the point.
+      const rim = s.kind === 'circle' && s.r ? Math.max(2, s.r * scale) : 0;
+      // A level dimension's figure sits above its line, centred.
+      const [a, b] = s.points.map(at);
+      const level = s.kind === 'dimension' && !s.labelAt && a && b && Math.abs(b[1] - a[1]) < Math.abs(b[0] - a[0]);
+      const place: [number, number] = s.labelAbove
+        ? [p[0] - widthOf(doc, s.label), p[1] - rim - 11]
+        : level ? [p[0] - widthOf(doc, s.label) / 2, p[1] - 12] : [p[0] + (rim ? rim + 3 : 5), p[1] - 4];
+      write(doc, s.label, { lineBreak: false }, place);
     }
   }
-  doc.fillColor(MUTED).fontSize(8).text(pdfText(sketch.title), x + 6, y + 6, { width: w - 12 });
+  doc.fillColor(MUTED).fontSize(8);
+  write(doc, sketch.title, { width: w - 12 }, [x + 6, y + 6]);
 }
 
 function heading(doc: PDFKit.PDFDocument, text: string): void {
   if (doc.y > doc.page.height - 120) doc.addPage();
-  doc.moveDown(0.6).fillColor(ACCENT).font('Helvetica-Bold').fontSize(11).text(pdfText(text)).font('Helvetica').fillColor(INK).fontSize(9.5).moveDown(0.2);
+  doc.moveDown(0.6).fillColor(ACCENT).fontSize(11);
+  write(doc, text, { weight: 'bold' });
+  doc.fillColor(INK).fontSize(9.5).moveDown(0.2);
 }
 
 function rows(doc: PDFKit.PDFDocument, pairs: ReadonlyArray<readonly [string, string]>): void {
@@ -245,9 +253,11 @@ function rows(doc: PDFKit.PDFDocument, pairs: ReadonlyArray<readonly [string, st
   for (const [k, v] of pairs) {
     if (doc.y > doc.page.height - 80) doc.addPage();
     const y = doc.y;
-    doc.fillColor(MUTED).text(pdfText(k), left, y, { width: width * 0.38 });
+    doc.fillColor(MUTED);
+    write(doc, k, { width: width * 0.38 }, [left, y]);
     const after = doc.y;
-    doc.fillColor(INK).text(pdfText(v), left + width * 0.4, y, { width: width * 0.6 });
+    doc.fillColor(INK);
+    write(doc, v, { width: width * 0.6 }, [left + width * 0.4, y]);
     doc.y = Math.max(after, doc.y);
     doc.x = left;
   }
@@ -268,8 +278,10 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
     compress: false,
     // Kept until the end, so each page after the first can be headed with the set-up and page count.
     bufferPages: true,
-    info: { Title: pdfText(`Set-up sheet: ${setup.name}`), Author: 'Slantwise', Subject: pdfText(`${kindLabel(setup.kind)} set-up, version ${setup.version}`) },
+    info: { Title: `Set-up sheet: ${setup.name}`, Author: 'Slantwise', Subject: `${kindLabel(setup.kind)} set-up, version ${setup.version}` },
   });
+  registerSheetFonts(doc);
+  doc.font(baseFont('regular'));
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -279,13 +291,16 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
 
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
-  doc.fillColor(MUTED).font('Helvetica').fontSize(9).text('SLANTWISE SET-UP SHEET');
-  doc.fillColor(INK).font('Helvetica-Bold').fontSize(18).text(pdfText(setup.name));
+  doc.fillColor(MUTED).fontSize(9);
+  write(doc, 'SLANTWISE SET-UP SHEET');
+  doc.fillColor(INK).fontSize(18);
+  write(doc, setup.name, { weight: 'bold' });
   const released = setup.releasedAt ? `released ${setup.releasedAt.toISOString().slice(0, 10)}${setup.releasedBy ? ` by ${setup.releasedBy.name}` : ''}` : 'not released';
-  doc.font('Helvetica').fontSize(9.5).fillColor(MUTED)
-    .text(pdfText(`${kindLabel(setup.kind)} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`));
+  doc.fontSize(9.5).fillColor(MUTED);
+  write(doc, `${kindLabel(setup.kind)} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`);
   if (setup.status !== 'released') {
-    doc.moveDown(0.3).fillColor('#b3261e').font('Helvetica-Bold').text('NOT RELEASED: check with a lead before running this set-up.').font('Helvetica');
+    doc.moveDown(0.3).fillColor('#b3261e');
+    write(doc, 'NOT RELEASED: check with a lead before running this set-up.', { weight: 'bold' });
   }
 
   const sketch = sketchFor(setup.kind, inputs, results);
@@ -305,34 +320,40 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
     rows(doc, results.lines.map((l) => [l.label, l.value] as const));
     if (results.warnings.length) {
       doc.moveDown(0.3).fillColor('#8a4b00');
-      for (const w of results.warnings) doc.text(pdfText(`Warning: ${w}`));
+      for (const w of results.warnings) write(doc, `Warning: ${w}`);
       doc.fillColor(INK);
     }
   } else {
-    doc.fillColor('#b3261e').text(pdfText(results.error)).fillColor(INK);
+    doc.fillColor('#b3261e');
+    write(doc, results.error);
+    doc.fillColor(INK);
   }
 
   if (results.ok && results.holding) {
     const holding = results.holding;
     heading(doc, holding.ok ? holding.plan.heading : 'Work-holding');
     if (holding.ok) {
-      holding.plan.instructions.forEach((line, i) => doc.text(pdfText(`${i + 1}. ${line}`), { paragraphGap: 2 }));
+      holding.plan.instructions.forEach((line, i) => write(doc, `${i + 1}. ${line}`, { paragraphGap: 2 }));
       if (holding.plan.warnings.length) {
         doc.moveDown(0.3).fillColor('#8a4b00');
-        for (const w of holding.plan.warnings) doc.text(pdfText(`Warning: ${w}`));
+        for (const w of holding.plan.warnings) write(doc, `Warning: ${w}`);
         doc.fillColor(INK);
       }
     } else {
-      doc.fillColor('#b3261e').text(pdfText(`No holding plan: ${holding.error}`)).fillColor(INK);
+      doc.fillColor('#b3261e');
+      write(doc, `No holding plan: ${holding.error}`);
+      doc.fillColor(INK);
     }
   }
 
   if (results.ok && results.stack?.length) {
     heading(doc, 'Gauge-block stack (wringing order)');
-    doc.text(pdfText(`${results.stack.join(' + ')}  (${results.stack.length} ${results.stack.length === 1 ? 'block' : 'blocks'})`));
+    write(doc, `${results.stack.join(' + ')}  (${results.stack.length} ${results.stack.length === 1 ? 'block' : 'blocks'})`);
   }
   if (results.ok && results.box) {
-    doc.moveDown(0.2).fillColor(MUTED).text(pdfText(`Blocks from our box "${results.box.name}", as the team's inventory stood when this sheet was printed (${new Date().toISOString().slice(0, 10)}); blocks marked missing or damaged are left out.`)).fillColor(INK);
+    doc.moveDown(0.2).fillColor(MUTED);
+    write(doc, `Blocks from our box "${results.box.name}", as the team's inventory stood when this sheet was printed (${new Date().toISOString().slice(0, 10)}); blocks marked missing or damaged are left out.`);
+    doc.fillColor(INK);
   }
 
   if (setup.checks.length) {
@@ -344,21 +365,23 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
     heading(doc, 'Derivation');
     for (const s of results.steps) {
       if (doc.y > doc.page.height - 80) doc.addPage();
-      doc.fillColor(INK).font('Helvetica-Bold').text(pdfText(s.label), { continued: true }).font('Helvetica').fillColor(MUTED)
-        .text(pdfText(`   ${s.formula};  ${s.substituted} = ${s.value} ${s.unit}`));
+      doc.fillColor(INK);
+      write(doc, s.label, { weight: 'bold', continued: true });
+      doc.fillColor(MUTED);
+      write(doc, `   ${s.formula};  ${s.substituted} = ${s.value} ${s.unit}`);
     }
     doc.fillColor(INK);
   }
 
   if (setup.notes.trim()) {
     heading(doc, 'Notes');
-    doc.text(pdfText(setup.notes));
+    write(doc, setup.notes);
   }
 
   const images = attachments.filter((a) => a.contentType !== 'application/pdf');
   if (attachments.length) {
     heading(doc, 'Attached drawings and photos');
-    for (const a of attachments) doc.text(pdfText(`${a.fileName} (${a.contentType}, ${a.size} bytes, sha256 ${a.sha256.slice(0, 16)}…)`));
+    for (const a of attachments) write(doc, `${a.fileName} (${a.contentType}, ${a.size} bytes, sha256 ${a.sha256.slice(0, 16)}…)`);
     for (const a of images.slice(0, 2)) {
       const key = a.size <= 5 * 1024 * 1024 ? a.storageKey : a.thumbnailKey;
       if (!key) continue;
@@ -372,16 +395,20 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
 
   heading(doc, 'Cautions');
   const cautions = sheetCautions(setup.kind, results.ok ? results.cautions : []);
-  for (const c of cautions) doc.text(pdfText(`• ${c}`), { paragraphGap: 2 });
+  for (const c of cautions) write(doc, `• ${c}`, { paragraphGap: 2 });
 
-  doc.moveDown(0.8).fillColor(MUTED).fontSize(8.5).text('Open this set-up in Slantwise: ', { continued: true }).fillColor(ACCENT).text(link, { link, underline: true });
-  doc.fillColor(MUTED).text(`Printed ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC`);
+  doc.moveDown(0.8).fillColor(MUTED).fontSize(8.5);
+  write(doc, 'Open this set-up in Slantwise: ', { continued: true });
+  doc.fillColor(ACCENT);
+  write(doc, link, { link, underline: true });
+  doc.fillColor(MUTED);
+  write(doc, `Printed ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC`);
   // A sheet that runs on: each further page says whose it is.
   const pages = doc.bufferedPageRange();
   for (let i = 1; i < pages.count; i += 1) {
     doc.switchToPage(pages.start + i);
-    doc.fillColor(MUTED).font('Helvetica').fontSize(8.5)
-      .text(pdfText(`${setup.name} · version ${setup.version} · page ${i + 1} of ${pages.count}`), left, doc.page.margins.top - 24, { width, lineBreak: false });
+    doc.fillColor(MUTED).fontSize(8.5);
+    write(doc, `${setup.name} · version ${setup.version} · page ${i + 1} of ${pages.count}`, { width, lineBreak: false }, [left, doc.page.margins.top - 24]);
   }
   doc.end();
   return done;

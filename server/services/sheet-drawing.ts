@@ -20,6 +20,8 @@ export interface SketchShape {
   label?: string;
   /** Where the label goes, when not at the shape's usual place. */
   labelAt?: Pt;
+  /** A circle's label above it, ending at its centre (where a dimension to its right would cross it). */
+  labelAbove?: true;
   style: 'part' | 'block' | 'removed' | 'cut' | 'tool' | 'mark';
 }
 
@@ -80,7 +82,9 @@ export function taperSketch(thickness: number, taperLength: number, angleDeg: nu
   let title = 'Part on the angle block, taper face level; touch off on the high corner';
   if (holding.kind === 'angle-block') {
     const blockLen = P * cos;
-    support.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y: 0 }, { x: blockLen, y: 0 }, { x: blockLen, y: blockLen * Math.tan(angleDeg * RAD) }], label: 'angle block' });
+    const rise = blockLen * Math.tan(angleDeg * RAD);
+    // The name beside the wedge's tall end, clear of its lines however flat the wedge is.
+    support.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y: 0 }, { x: blockLen, y: 0 }, { x: blockLen, y: rise }], label: 'angle block', labelAt: { x: blockLen, y: rise * 0.5 } });
   } else if (holding.kind === 'sine-plate') {
     // As the sine-bar sketch: the hinge roll's centre r above the base, the plate r to 3r above
     // the roll centres, the free roll on a stack of H = Lp·sin α; the part on the plate, its
@@ -98,8 +102,8 @@ export function taperSketch(thickness: number, taperLength: number, angleDeg: nu
     const w = Math.max(Lp, P) * 0.1;
     support.push(
       { kind: 'line', style: 'cut', points: [{ x: -r * 3, y: 0 }, { x: Math.max(x2, (x0 + P) * cos) + w * 2, y: 0 }], label: 'surface plate' },
-      { kind: 'polygon', style: 'block', points: [{ x: x2 - w / 2, y: 0 }, { x: x2 + w / 2, y: 0 }, { x: x2 + w / 2, y: H }, { x: x2 - w / 2, y: H }], label: 'stack' },
-      { kind: 'polygon', style: 'block', points: [onPlate(-r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, 3 * r), onPlate(-r * 1.5, 3 * r)], label: 'sine plate', labelAt: onPlate(Lp * 0.3, 1.6 * r) },
+      { kind: 'polygon', style: 'block', points: [{ x: x2 - w / 2, y: 0 }, { x: x2 + w / 2, y: 0 }, { x: x2 + w / 2, y: H }, { x: x2 - w / 2, y: H }], label: 'stack', labelAt: { x: x2 - w / 2, y: H / 2 } },
+      { kind: 'polygon', style: 'block', points: [onPlate(-r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, r), onPlate(Math.max(Lp, x0 + P) + r * 1.5, 3 * r), onPlate(-r * 1.5, 3 * r)], label: 'sine plate', labelAt: onPlate(Lp * 0.3, 2.3 * r) },
       { kind: 'circle', style: 'tool', points: [{ x: 0, y: r }], r },
       { kind: 'circle', style: 'tool', points: [{ x: x2, y: H + r }], r },
       { kind: 'dimension', style: 'mark', points: [{ x: x2 + w, y: 0 }, { x: x2 + w, y: H }], label: `H ${holding.stackLabel}` },
@@ -131,8 +135,9 @@ export function taperSketch(thickness: number, taperLength: number, angleDeg: nu
     { kind: 'polygon', style: 'part', points: part },
     { kind: 'polygon', style: 'removed', points: [start, corner, endCut] },
     { kind: 'line', style: 'cut', points: [{ x: start.x - L * 0.4, y: start.y }, { x: endCut.x + L * 0.3, y: start.y }] },
-    { kind: 'circle', style: 'mark', points: [corner], r: T * 0.06, label: 'touch off' },
-    { kind: 'dimension', style: 'mark', points: [{ x: corner.x + L * 0.25, y: corner.y }, { x: corner.x + L * 0.25, y: start.y }], label: `h ${depthLabel}` },
+    { kind: 'circle', style: 'mark', points: [corner], r: T * 0.06, label: 'touch off', labelAbove: true },
+    // The depth to stop, when the engine gave one.
+    { kind: 'dimension', style: 'mark', points: [{ x: corner.x + L * 0.25, y: corner.y }, { x: corner.x + L * 0.25, y: start.y }], ...(/\d/.test(depthLabel) ? { label: `h ${depthLabel}` } : {}) },
   ];
   return { title, shapes, box: bounds(shapes) };
 }
@@ -148,7 +153,7 @@ export function sineBarSketch(barLength: number, angleDeg: number, stackLabel: s
   const w = L * 0.12;
   const shapes: SketchShape[] = [
     { kind: 'line', style: 'cut', points: [{ x: -r * 3, y: 0 }, { x: x2 + w * 2, y: 0 }], label: 'surface plate' },
-    { kind: 'polygon', style: 'block', points: [{ x: x2 - w / 2, y: 0 }, { x: x2 + w / 2, y: 0 }, { x: x2 + w / 2, y: H }, { x: x2 - w / 2, y: H }], label: 'stack' },
+    { kind: 'polygon', style: 'block', points: [{ x: x2 - w / 2, y: 0 }, { x: x2 + w / 2, y: 0 }, { x: x2 + w / 2, y: H }, { x: x2 - w / 2, y: H }], label: 'stack', labelAt: { x: x2 - w / 2, y: H / 2 } },
     { kind: 'polygon', style: 'part', points: bar.map(lift) },
     { kind: 'circle', style: 'tool', points: [{ x: 0, y: r }], r },
     { kind: 'circle', style: 'tool', points: [{ x: x2, y: H + r }], r },

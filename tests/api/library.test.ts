@@ -328,6 +328,20 @@ describe('set-up library', () => {
       expect(text).toContain(`/library/${s.body.id}`);
     });
 
+    it('should print names and notes in Latin, Greek and Cyrillic scripts as typed, in the embedded app font', async () => {
+      const name = 'Klin 7°30′ — Łukasz Żółć, Dvořák';
+      const notes = 'Ελένη: α/2 from the drawing. Сергей: check the flank. 日本';
+      const s = await create(c.machinist, { name, notes }).expect(201);
+      const pdf = (await sheet(c.machinist, s.body.id)).body as Buffer;
+      const text = pdfText(pdf);
+      expect(text).toContain(name);
+      expect(text).toContain('Ελένη: α/2 from the drawing. Сергей: check the flank. ??');
+      // The fonts are IBM Plex Sans, embedded (subsets), not the standard PDF fonts.
+      const source = pdf.toString('latin1');
+      expect(source).toMatch(/\/BaseFont \/[A-Z]{6}\+IBMPlexSans/);
+      expect(source).not.toMatch(/\/BaseFont \/Helvetica/);
+    });
+
     it('should print how a taper saved from its page is held: the sine-plate stack and the steps in order', async () => {
       const form = {
         unit: 'in', shape: 'taper', given: 'angle-length', thickness: '0.75', angle: "7°30'", taperLength: '2.5', endThickness: '', faceLength: '',
