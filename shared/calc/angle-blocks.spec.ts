@@ -61,6 +61,16 @@ describe('calculateAngleBlocks', () => {
     expect(calculateAngleBlocks({ set: 'angle-13-npl', angle: 200 }).ok).toBe(false);
   });
 
+  it('should call an angle with seconds exact when the blocks make it, without a warning', () => {
+    // The 16-piece set's 1″, 3″, 5″, 20″, 30″ blocks make any whole second to 59″ (15″ = 20″ − 5″,
+    // 12″ = 20″ − 5″ − 3″, 44″ = 30″ + 20″ − 5″ − 1″; derived), so these are all exact; typed
+    // seconds are not exact in decimal degrees (15″ = 0.0041666…°) and must not count as a miss.
+    for (const angle of ['7°30\'15"', '17°35\'12"', '12°20\'44"', '5°5\'5"', '0°00\'30"']) {
+      const r = value(calculateAngleBlocks({ set: 'angle-16', angle }));
+      expect({ angle, exact: r.exact, error: r.errorArcSec, warnings: r.warnings }).toEqual({ angle, exact: true, error: '0.00', warnings: [] });
+    }
+  });
+
   it('should give the nearest reachable angle and its error when exact is impossible', () => {
     const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: '10°00\'01"' }));
     expect(r.exact).toBe(false);

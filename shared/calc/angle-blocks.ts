@@ -254,8 +254,10 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
     }
     const signed = nearestAngleCombination(blockSeconds as number[], targetSeconds.toNumber());
     if (signed.length === 0) return impossible(AREA, 'angle', 'no combination of these blocks makes a positive angle');
-    const achieved = new Dec(signed.reduce((a, b) => a + b, 0)).div(3600);
-    const error = achieved.minus(p.angle).mul(3600);
+    const achievedSeconds = signed.reduce((a, b) => a + b, 0);
+    const achieved = new Dec(achievedSeconds).div(3600);
+    // In seconds, rounded far below any block: 15″ typed is 0.0041666…° and must not miss by its last digit.
+    const error = new Dec(achievedSeconds).minus(targetSeconds).toDecimalPlaces(9);
     const exact = error.isZero();
     const used = signed.map(use);
     const text = used.map((u, i) => `${u.direction === 'reverse' ? '− ' : i ? '+ ' : ''}${u.angle}`).join(' ');
