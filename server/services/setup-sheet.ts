@@ -329,6 +329,12 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
     doc.fillColor(INK);
   }
 
+  if (results.ok && results.passes) {
+    heading(doc, 'Passes and DRO readings');
+    const unit = String(results.value['unit'] ?? '');
+    rows(doc, [['Pass', `Cut (${unit})   ·   DRO after the pass (${unit})`] as const, ...results.passes.map((p) => [`Pass ${p.pass}`, `${p.cut}   ·   ${p.reading}`] as const)]);
+  }
+
   if (results.ok && results.holding) {
     const holding = results.holding;
     heading(doc, holding.ok ? holding.plan.heading : 'Work-holding');

@@ -71,6 +71,14 @@ describe('calculateAngleBlocks', () => {
     }
   });
 
+  it('should say a block is used more often than the set has it, or is not in the set at all', () => {
+    // The 16-piece set has one 15° block and no 27° block (REFERENCE.md §6).
+    const twice = calculateAngleBlocks({ set: 'angle-16', combination: [{ angle: '15°' }, { angle: '15°' }] });
+    expect(twice.ok || twice.fields['combination.1.angle']).toBe(`15°00'00" is used more often than the set has it (1 block)`);
+    const missing = calculateAngleBlocks({ set: 'angle-16', combination: [{ angle: '27°' }] });
+    expect(missing.ok || missing.fields['combination.0.angle']).toBe(`27°00'00" is not in the set, or is marked missing or damaged`);
+  });
+
   it('should give the nearest reachable angle and its error when exact is impossible', () => {
     const r = value(calculateAngleBlocks({ set: 'angle-13-npl', angle: '10°00\'01"' }));
     expect(r.exact).toBe(false);
@@ -102,7 +110,7 @@ describe('calculateAngleBlocks', () => {
     expect(calculateAngleBlocks({ set: 'x', angle: 1 }).ok).toBe(false);
     expect(calculateAngleBlocks({ set: 'angle-16' }).ok).toBe(false);
     const r = calculateAngleBlocks({ set: 'angle-13-npl', combination: [{ angle: 2 }] });
-    expect(r.ok || r.fields['combination.0.angle']).toMatch(/not \(or no longer\) in the set/);
+    expect(r.ok || r.fields['combination.0.angle']).toMatch(/is not in the set, or is marked missing or damaged/);
     fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateAngleBlocks(x).ok).toBe('boolean')));
   });
 });

@@ -217,7 +217,11 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
         const s = c.angle.mul(3600).toDecimalPlaces(6);
         if (left) {
           const at = left.findIndex((b) => new Dec(b).eq(s));
-          if (at < 0) return invalid(AREA, `combination.${i}.angle`, `${formatDms(c.angle)} is not (or no longer) in the set`);
+          if (at < 0) {
+            const inSet = (blockSeconds as number[]).filter((b) => new Dec(b).eq(s)).length;
+            const why = inSet === 0 ? 'is not in the set, or is marked missing or damaged' : `is used more often than the set has it (${inSet} ${inSet === 1 ? 'block' : 'blocks'})`;
+            return invalid(AREA, `combination.${i}.angle`, `${formatDms(c.angle)} ${why}`);
+          }
           left.splice(at, 1);
         }
         total = c.reversed ? total.minus(c.angle) : total.plus(c.angle);

@@ -96,6 +96,15 @@ describe('calculateTaper', () => {
       expect(r.fields.taperLength).toMatch(/runs out through the bottom face 0\.8660 in from where the taper starts/);
     });
 
+    it('should show the two thicknesses to the place where they differ when they round alike', () => {
+      // d = 2.5 · tan 7°30′ = 0.329131 in against 0.32911 in of stock (derived): both read 0.3291 at 4 places.
+      const r = calculateTaper({ unit: 'in', thickness: '0.32911', angle: "7°30'", taperLength: '2.5' });
+      expect(r.ok || r.fields.taperLength).toMatch(/^needs 0\.32913 in off the end but the stock is 0\.32911 in thick/);
+      const plain = calculateTaper({ unit: 'in', thickness: 0.5, angle: 30, taperLength: 3 });
+      // 3 · tan 30° = 1.7321 in (derived).
+      expect(plain.ok || plain.fields.taperLength).toMatch(/^needs 1\.7321 in off the end but the stock is 0\.5000 in thick/);
+    });
+
     it('should name the field for each kind of bad input', () => {
       const cases: [unknown, string][] = [
         [{ unit: 'in', thickness: 0, angle: 5, taperLength: 3 }, 'thickness'],

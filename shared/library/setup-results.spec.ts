@@ -6,7 +6,7 @@ describe('setupResults', () => {
     const lathe = { unit: 'in', define: 'standard', standard: 'morse-3', taperPerFoot: '', includedAngle: '', largeDiameter: '', smallDiameter: '', length: '', workLength: '8', method: 'offset', stations: '0.5, 1' };
     const rows = inputRows('lathe-taper', lathe, setupResults('lathe-taper', lathe));
     expect(rows).toContainEqual({ label: 'Standard', value: 'Morse No. 3' });
-    expect(rows).toContainEqual({ label: 'Work length', value: '8' });
+    expect(rows).toContainEqual({ label: 'Work length', value: '8 in' });
     expect(rows).toContainEqual({ label: 'Stations', value: '0.5, 1' });
     const pins = { kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: '0.25', measurement1: '2.1830127', rollDiameter2: '0.5', measurement2: '2.8660254' };
     expect(inputRows('pins-rolls', pins, setupResults('pins-rolls', pins)).map((r) => r.label)).toContain('Roll diameter 1');
@@ -14,6 +14,24 @@ describe('setupResults', () => {
     expect(inputRows('gauge-blocks', boxed, setupResults('gauge-blocks', boxed))).toContainEqual({ label: 'Set', value: "the team's own box (no. 12)" });
     const plain = { ...boxed, set: 'inch-81' };
     expect(inputRows('gauge-blocks', plain, setupResults('gauge-blocks', plain))).toContainEqual({ label: 'Set', value: 'Inch 81-piece set' });
+  });
+
+  it("should call a chamfer's legs by their names, give lengths their unit and name the set in the results", () => {
+    const chamfer = { unit: 'mm', shape: 'chamfer', given: 'length-end', thickness: '20', angle: '', taperLength: '12', endThickness: '15', faceLength: '' };
+    const results = setupResults('taper', chamfer);
+    expect(results.ok).toBe(true);
+    if (!results.ok) return;
+    const rows = inputRows('taper', chamfer, results);
+    expect(rows).toContainEqual({ label: 'Shape', value: 'Chamfer or bevel on an edge' });
+    expect(rows).toContainEqual({ label: 'Leg on the top face', value: '12 mm' });
+    expect(rows).toContainEqual({ label: 'Leg on the end face', value: '15 mm' });
+    expect(rows).toContainEqual({ label: 'Thickness', value: '20 mm' });
+    expect(results.lines.map((l) => l.label)).toEqual(expect.arrayContaining(['Leg on the top face', 'Leg on the end face']));
+    expect(results.lines.map((l) => l.label)).not.toContain('Taper length');
+    const stack = setupResults('gauge-blocks', { target: '2.3456', set: 'inch-81' });
+    expect(stack.ok && stack.lines.find((l) => l.label === 'Set')?.value).toBe('Inch 81-piece set');
+    const angle = setupResults('angle-blocks', { angle: '17.5', set: 'angle-16' });
+    expect(angle.ok && angle.lines.find((l) => l.label === 'Set')?.value).toBe('16-piece set');
   });
 
   it('should tell a set-up answered only on its page from one that does not compute', () => {
@@ -72,6 +90,32 @@ describe('setupResults', () => {
     expect(line('Angle (DMS)')).toBe("7°30'00\"");
     expect(r.steps.length).toBeGreaterThan(0);
     expect(r.cautions.length).toBeGreaterThan(0);
+  });
+
+  it('should keep the passes of a taper with the DRO reading after each, as the taper page lists them', () => {
+    const r = setupResults('taper', { unit: 'in', thickness: '0.875', angle: "12°15'", taperLength: '1.75', depthPerPass: '0.06' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    // h = 1.75 · sin 12°15′ = 0.37131 → 0.3713 in; ⌈0.3713 / 0.06⌉ = 7 passes, six of 0.0600 and a last of 0.0113 (derived).
+    expect(r.lines.find((l) => l.label === 'Passes')?.value).toMatch(/^7 /);
+    expect(r.passes).toHaveLength(7);
+    expect(r.passes![0]).toEqual({ pass: 1, cut: '0.0600', reading: '0.0600' });
+    expect(r.passes![6]).toEqual({ pass: 7, cut: '0.0113', reading: '0.3713' });
+    expect(setupResults('taper', { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' })).toMatchObject({ ok: true, passes: null });
+  });
+
+  it("should list a gauge stack's grade tolerance and its length at the blocks' temperature", () => {
+    const r = setupResults('gauge-blocks', { target: '2.3456', set: 'inch-81', grade: '1', temperature: '23.5' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const line = (label: string) => r.lines.find((l) => l.label === label)?.value;
+    // The same figures the engine gives the gauge-block page.
+    const v = r.value as { tolerance: { worstCase: string; worstCaseUm: string; rss: string }; temperature: { lengthAtTemperature: string; change: string } };
+    expect(line('Tolerance, worst case (grade 1)')).toBe(`±${v.tolerance.worstCase} in (±${v.tolerance.worstCaseUm} µm)`);
+    expect(line('Tolerance, root-sum-square')).toContain(`±${v.tolerance.rss} in`);
+    // ΔL = L·α·(t − 20 °C) = 2.3456 · 11.5e-6 · 3.5 = 0.0000944 in (20 °C reference: ISO 1, REFERENCE.md §3.1; 11.5e-6 /K for gauge-block steel: ISO 3650, from memory; derived).
+    expect(v.temperature.change).toMatch(/^0\.00009(4|44)/);
+    expect(line('Length at 23.5 °C')).toBe(`${v.temperature.lengthAtTemperature} in (change ${v.temperature.change} in from 20 °C)`);
   });
 
   it('should list the figures of a pins-and-rolls answer, angles in degrees and in DMS, with their units', () => {

@@ -48,6 +48,8 @@ export type SetupResults =
       holding: SetupHolding | null;
       /** The team's box the set-up was answered with (its blocks as they are now), or null. */
       box: { id: number; name: string } | null;
+      /** A taper's passes: the depth of each cut and the DRO reading after it, or null. */
+      passes: Array<{ pass: number; cut: string; reading: string }> | null;
     }
   /** `pageOnly`: the set-up is sound but answered on its calculator page only (a sine table, a team box…). */
   | { ok: false; error: string; pageOnly?: true };
@@ -102,10 +104,11 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
   const input = box ? { ...boxless, set: `box:${box.id}` } : request.value;
   const unit = typeof value['unit'] === 'string' ? ` ${value['unit']}` : '';
   const lines: ResultLine[] = [];
+  const chamfer = kind === 'taper' && value['shape'] === 'chamfer';
   for (const [key, v] of Object.entries(value)) {
     if (SKIP.has(key)) continue;
-    if (typeof v === 'string' && v !== '') lines.push({ label: labelOf(key), value: withUnit(key, v, unit) });
-    else if (typeof v === 'number') lines.push({ label: labelOf(key), value: String(v) });
+    if (typeof v === 'string' && v !== '') lines.push({ label: labelIn(key, chamfer), value: SET_KEYS.has(key) || key === 'shape' ? namedValue(kind, key, v, box) : withUnit(key, v, unit) });
+    else if (typeof v === 'number') lines.push({ label: labelIn(key, chamfer), value: String(v) });
   }
   // Answers that keep their figures in `values` (lengths in the unit, angles in degrees and, in
   // `dms`, as degrees, minutes and seconds): the measuring set-ups of pins and rolls.
@@ -120,6 +123,7 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
       } else lines.push({ label: labelOf(key), value: withUnit(key, v, unit) });
     }
   }
+  lines.push(...figureLines(value, unit.trim()));
   const blocks = value['blocks'];
   const stack = Array.isArray(blocks) && blocks.every((b) => typeof b === 'string') ? (blocks as string[]) : null;
   const list = (k: string) => (Array.isArray(value[k]) ? (value[k] as unknown[]).filter((x): x is string => typeof x === 'string') : []);
@@ -127,7 +131,35 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
     ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions'),
     holding: holdingOf(kind, inputs, value),
     box: box ? { id: box.id, name: box.name } : null,
+    passes: passesOf(value),
   };
+}
+
+/** The passes of a taper's answer, or null. */
+function passesOf(value: Record<string, unknown>): Array<{ pass: number; cut: string; reading: string }> | null {
+  const passes = value['passes'];
+  if (!Array.isArray(passes) || passes.length === 0) return null;
+  return (passes as Array<Record<string, unknown>>).map((p) => ({ pass: Number(p['pass']), cut: String(p['cut']), reading: String(p['reading']) }));
+}
+
+/**
+ * Figures the answer keeps in objects, listed as the calculator page lists them: the number of
+ * passes, a gauge stack's tolerance from its grade and its length at the blocks' temperature.
+ */
+function figureLines(value: Record<string, unknown>, unit: string): ResultLine[] {
+  const lines: ResultLine[] = [];
+  const passes = value['passes'];
+  if (Array.isArray(passes) && passes.length > 0) lines.push({ label: 'Passes', value: `${passes.length} (the depth of each and the DRO reading after it below)` });
+  const t = value['tolerance'] as Partial<Record<string, string>> | undefined;
+  if (t && typeof t === 'object' && t['worstCase']) {
+    lines.push({ label: `Tolerance, worst case (grade ${t['grade']})`, value: `±${t['worstCase']} ${unit} (±${t['worstCaseUm']} µm)` });
+    lines.push({ label: 'Tolerance, root-sum-square', value: `±${t['rss']} ${unit} (±${t['rssUm']} µm)` });
+  }
+  const temp = value['temperature'] as Partial<Record<string, string>> | undefined;
+  if (temp && typeof temp === 'object' && temp['lengthAtTemperature']) {
+    lines.push({ label: `Length at ${temp['temperatureC']} °C`, value: `${temp['lengthAtTemperature']} ${unit} (change ${temp['change']} ${unit} from 20 °C)` });
+  }
+  return lines;
 }
 
 /** A sine bar's stack with its blocks picked from the team's box, as the sine-bar page asks the inventory for them. */
@@ -186,12 +218,37 @@ export function listedInputs(kind: string, saved: Record<string, unknown>, resul
  */
 export function inputRows(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<{ label: string; value: string }> {
   const box = results.ok ? results.box : null;
-  return listedInputs(kind, saved, results).map(([key, value]) => ({ label: labelOf(key), value: namedValue(kind, key, value, box) }));
+  const listed = listedInputs(kind, saved, results);
+  const unit = [saved['unit'], results.ok ? results.value['unit'] : undefined].find((u): u is string => u === 'in' || u === 'mm');
+  const chamfer = kind === 'taper' && listed.some(([k, v]) => k === 'shape' && v === 'chamfer');
+  return listed.map(([key, value]) => {
+    const text = namedValue(kind, key, value, box);
+    return { label: labelIn(key, chamfer), value: unit && LENGTH_INPUTS.has(key) && /^[\d.]+$/.test(text) ? `${text} ${unit}` : text };
+  });
+}
+
+/** Inputs that are lengths in the set-up's unit (listed with it). */
+const LENGTH_INPUTS = new Set([
+  'thickness', 'taperLength', 'endThickness', 'removedAtEnd', 'faceLength', 'partLength', 'depthPerPass', 'fluteLength', 'cutterDiameter',
+  'barLength', 'plateLength', 'stackHeight', 'target', 'width', 'depth', 'rollDiameter', 'rollDiameter1', 'rollDiameter2', 'pinDiameter',
+  'measurement', 'measurement1', 'measurement2', 'heightDifference', 'largeDisc', 'smallDisc', 'centreDistance', 'largeBall', 'smallBall',
+  'largeBallDepth', 'smallBallDepth', 'grooveWidth', 'largeDiameter', 'smallDiameter', 'length', 'workLength', 'reading',
+]);
+
+/** Keys whose values are a set's id. */
+const SET_KEYS = new Set(['set', 'angleSet', 'plateSet', 'standard', 'holding']);
+
+/** A field's label in words; a chamfer's two legs by their own names (the engine keeps a taper's). */
+function labelIn(key: string, chamfer: boolean): string {
+  if (chamfer && key === 'taperLength') return 'Leg on the top face';
+  if (chamfer && key === 'removedAtEnd') return 'Leg on the end face';
+  return labelOf(key);
 }
 
 /** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
 function namedValue(kind: string, key: string, value: unknown, known: { id: number; name: string } | null): string {
   if (typeof value === 'string' && value !== '') {
+    if (key === 'shape') return value === 'chamfer' ? 'Chamfer or bevel on an edge' : value === 'taper' ? 'Taper' : value;
     const box = boxIdOf(value);
     if (box !== null) return known?.id === box ? `Our box: ${known.name}` : `the team's own box (no. ${box})`;
     if (key === 'holding') return HOLDING_OPTIONS.find((o) => o.value === value)?.label ?? value;

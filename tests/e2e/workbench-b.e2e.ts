@@ -205,7 +205,7 @@ describe('angle-blocks page', () => {
     // REFERENCE.md §6 [DER]: alternative 17° = 41 − 27 + 3.
     await expectResult(page, 'Angle the blocks make', `17°00'00"`);
     await type(page, 'Blocks in the combination', '41° + 5°');
-    await page.locator('mat-error', { hasText: 'not (or no longer) in the set' }).waitFor();
+    await page.locator('mat-error', { hasText: 'is not in the set, or is marked missing or damaged' }).waitFor();
   });
 
   it('should lay out at tablet width', async () => {

@@ -71,7 +71,7 @@ describe('AngleBlocksPage', () => {
 
     it('should refuse a block the set does not hold', () => {
       const r = angleBlocksRequest({ mode: 'total', set: 'angle-13-npl', angle: '', combination: '41° + 5°' });
-      expect(r).toMatchObject({ ok: false, fields: { 'combination.1.angle': expect.stringContaining('not (or no longer) in the set') } });
+      expect(r).toMatchObject({ ok: false, fields: { 'combination.1.angle': expect.stringContaining('is not in the set, or is marked missing or damaged') } });
     });
   });
 
@@ -103,7 +103,7 @@ describe('AngleBlocksPage', () => {
 
     it('should refuse a typed combination that uses the missing block', async () => {
       await openWithBox(1, `/angle-blocks?set=box:2&mode=total&combination=${encodeURIComponent('15° + 3° − 1°')}`);
-      expect(page.fieldErrors()).toContain('not (or no longer) in the set');
+      expect(page.fieldErrors()).toContain('is not in the set, or is marked missing or damaged');
     });
   });
 });

@@ -28,7 +28,7 @@ export const GAUGE_LENGTH_FIELDS = ['target'] as const;
 /** Grades the tolerance table covers, with how well each column is backed. */
 export const GRADE_OPTIONS: readonly { readonly value: string; readonly label: string }[] = [
   { value: '', label: 'No grade tolerance' },
-  { value: 'K', label: 'K (calibration; values from memory)' },
+  { value: 'K', label: 'K (calibration grade)' },
   { value: '0', label: '0' },
   { value: '1', label: '1' },
   { value: '2', label: '2' },

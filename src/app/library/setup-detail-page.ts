@@ -256,6 +256,11 @@ export default class SetupDetailPage {
     });
   }
 
+  /** The unit of an answer's lengths ("in", "mm"). */
+  protected unitOf(r: { value: Record<string, unknown> }): string {
+    return typeof r.value['unit'] === 'string' ? r.value['unit'] : '';
+  }
+
   /** What a file change does to a released set-up, said before it is made. */
   private backToDraft(): string {
     const lead = this.role() === 'lead' || this.role() === 'admin';
