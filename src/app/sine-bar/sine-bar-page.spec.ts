@@ -3,7 +3,7 @@ import { TestBed } from '@angular/core/testing';
 import { MatSelect } from '@angular/material/select';
 import { By } from '@angular/platform-browser';
 
-import { DEMO_BOX, demoBoxAnswer, pageSpec } from '../workbench/testing/page-spec-harness';
+import { DEMO_BOX, demoBoxAnswer, demoBoxWithBlocks, pageSpec } from '../workbench/testing/page-spec-harness';
 import { setsInUnit } from './sine-bar-form';
 import SineBarPage from './sine-bar-page';
 
@@ -127,13 +127,37 @@ describe('SineBarPage with the team inventory', () => {
     expect(page.resultValue('Blocks')).toBe('none from the box');
   });
 
-  it('should list stacks without blocks for the box in the table, asking nothing per row', async () => {
+  it("should list each row's blocks from what is in the box, reading the box once and asking nothing per row", async () => {
     await create(true, '/sine-bar?mode=table&set=box:7');
     http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
     await page.settle();
+    http.expectOne('/api/inventories/gauge-sets/7').flush(demoBoxWithBlocks());
+    await page.settle();
     http.expectNone((r) => r.url.endsWith('/stack'));
-    expect(page.el.querySelectorAll('table.stack-table tr.mat-mdc-row').length).toBe(21);
-    expect(page.el.querySelector('.box-note')?.textContent).toContain('picked for one setting at a time');
+    const rows = Array.from(page.el.querySelectorAll('table.stack-table tr.mat-mdc-row'));
+    expect(rows.length).toBe(21);
+    // Every row's blocks add up to its stack and never use the box's missing 0.1007 or damaged 0.137 (derived).
+    for (const row of rows) {
+      const stack = row.querySelector('td.mat-column-stack')?.textContent?.trim() ?? '';
+      const blocks = (row.querySelector('td.mat-column-blocks')?.textContent?.trim() ?? '').split(' + ');
+      expect(blocks.reduce((t, b) => t + Math.round(Number(b) * 10_000), 0)).toBe(Math.round(Number(stack) * 10_000));
+      expect(blocks).not.toContain('0.1007');
+      expect(blocks).not.toContain('0.137');
+      expect(row.querySelector('td.mat-column-count')?.textContent?.trim()).toBe(String(blocks.length));
+    }
+    expect(page.el.querySelector('.box-note')?.textContent).toContain('picked from what is in the box now');
+  });
+
+  it('should pick both stacks of a compound plate from the box', async () => {
+    await create(true, '/sine-bar?mode=compound&set=box:7');
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await page.settle();
+    http.expectOne('/api/inventories/gauge-sets/7').flush(demoBoxWithBlocks());
+    await page.settle();
+    // Stack A 1.2519 in from the box (the default compound plate, as above); its blocks add up to it.
+    const blocksA = (page.resultValue('Blocks A') ?? '').split(' + ');
+    expect(blocksA.reduce((t, b) => t + Math.round(Number(b) * 10_000), 0)).toBe(12_519);
+    expect(blocksA).not.toContain('0.1007');
   });
 
   it('should keep the standard sets only and ask nothing of the inventory for a visitor', async () => {

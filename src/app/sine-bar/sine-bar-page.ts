@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -9,9 +9,12 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 
+import { calculateGaugeStack } from '../../../shared/calc/gauge-stack';
 import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, unmakeableStack } from '../../../shared/calc/sine-bar';
+import { type TeamBox, boxStackRequest, teamBoxOf } from '../../../shared/library/team-boxes';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { type BoxStackQuery, bindOwnBoxes, boxIdOf, boxStackState, excludedNote } from '../gauge-blocks/own-boxes';
+import { InventoryApi } from '../inventory/inventory-api';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
 import { DerivationPanel } from '../workbench/derivation-panel';
@@ -113,16 +116,67 @@ export default class SineBarPage {
       leftOut: excludedNote(gone, this.unit()),
     };
   });
-  /** The table of stacks, or null. */
+  private readonly inventory = inject(InventoryApi);
+  /**
+   * The chosen team box with what is in it, for the table and the compound plate: they need many
+   * stacks at once, so their blocks are picked here from the box (as the server would pick them).
+   */
+  private readonly loadedBox = signal<TeamBox | null>(null);
+  private readonly loadsBox = effect(() => {
+    const id = boxIdOf(this.setValue());
+    const mode = sineBarMode(this.modeValue());
+    if (id === null || (mode !== 'table' && mode !== 'compound') || this.loadedBox()?.id === id) return;
+    this.inventory.get('gauge-blocks', id, true).subscribe({ next: (set) => this.loadedBox.set(teamBoxOf(set)), error: () => this.loadedBox.set(null) });
+  });
+  /** The loaded box when it is the one chosen, else null. */
+  private readonly chosenBox = computed(() => {
+    const box = this.loadedBox();
+    return box && box.id === boxIdOf(this.setValue()) ? box : null;
+  });
+  /** The fewest blocks from the chosen box for a stack, or null when it cannot make it. */
+  private blocksFromBox(box: TeamBox, stack: string): string[] | null {
+    if (Number(stack) === 0) return [];
+    const request = boxStackRequest(box, { target: stack, wear: false });
+    const found = request ? calculateGaugeStack(request) : null;
+    return found?.ok ? found.value.blocks : null;
+  }
+  /** The table of stacks, or null; with the team's box, each row's blocks from it. */
   protected readonly table = computed(() => {
     const o = this.calc.value();
-    return o?.mode === 'table' ? o.table : null;
+    if (o?.mode !== 'table') return null;
+    if (!this.ownBox()) return o.table;
+    const box = this.chosenBox();
+    const rows = o.table.rows.map((row) => {
+      const blocks = box ? this.blocksFromBox(box, row.stackHeight) : null;
+      return { ...row, blocks, count: blocks ? blocks.length : null };
+    });
+    return { ...o.table, rows, unreachable: box ? rows.filter((r) => r.blocks === null).length : 0 };
   });
-  /** The compound answer with its blocks, or null. */
+  /** The compound answer with its blocks (with the team's box, from it), or null. */
   protected readonly compound = computed(() => {
     const o = this.calc.value();
-    return o?.mode === 'compound' ? o : null;
+    if (o?.mode !== 'compound') return null;
+    if (!this.ownBox()) return o;
+    const box = this.chosenBox();
+    const blocksA = box ? this.blocksFromBox(box, o.compound.axisA.stackHeight) : null;
+    const blocksB = box ? this.blocksFromBox(box, o.compound.axisB.stackHeight) : null;
+    return { ...o, blocksA, blocksB };
   });
+  /** What the team's box cannot make in the table or the compound plate (the box once loaded). */
+  protected readonly boxWarnings = computed(() => {
+    if (!this.ownBox() || !this.chosenBox()) return [];
+    const t = this.table();
+    if (t?.unreachable) return [`The box cannot make the stack of ${t.unreachable} ${t.unreachable === 1 ? 'row' : 'rows'} (no blocks listed): check the missing blocks or change the range.`];
+    const c = this.compound();
+    if (!c) return [];
+    const unit = c.compound.unit;
+    return [
+      ...(c.blocksA === null ? [`The box cannot make stack A (${c.compound.axisA.stackHeight} ${unit}).`] : []),
+      ...(c.blocksB === null ? [`The box cannot make stack B (${c.compound.axisB.stackHeight} ${unit}).`] : []),
+    ];
+  });
+  /** Whether the rows' blocks can be said (a standard set, or the team's box once loaded). */
+  protected readonly blocksKnown = computed(() => this.hasStandardSet() || this.chosenBox() !== null);
   /** The table row drawn, kept within the rows there are. */
   protected readonly shownRow = computed(() => Math.min(this.selectedRow(), Math.max(0, (this.table()?.rows.length ?? 1) - 1)));
   /** Whether a set of blocks is chosen. */
@@ -149,7 +203,9 @@ export default class SineBarPage {
       }
       return items;
     }
-    return o ? outcomeItems(o) : [];
+    const c = this.compound();
+    const t = this.table();
+    return c ? outcomeItems(c) : o?.mode === 'table' && t ? outcomeItems({ ...o, table: t }) : o ? outcomeItems(o) : [];
   });
   /** The drawing's model: the setting, or the table row shown. */
   protected readonly scene = computed(() => {

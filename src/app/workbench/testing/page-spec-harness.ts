@@ -128,6 +128,19 @@ export const DEMO_BOX: InventorySetDto = {
   totals: { sizes: 81, blocks: 81, missing: 1, damaged: 1, available: 79 }, createdAt: '2026-01-01T00:00:00Z', updatedAt: '2026-01-01T00:00:00Z',
 };
 
+/** The demo box with its blocks, as GET /api/inventories/gauge-sets/7 gives it: the 81-piece set, 0.1007 missing and 0.137 damaged. */
+export function demoBoxWithBlocks(): InventorySetDto {
+  const set = findGaugeSet('inch-81');
+  if (!set) throw new Error('inch-81 missing from the standard sets');
+  const blocks = set.blocks.map((b, i) => {
+    const gone = DEMO_BOX_EXCLUDED.find((x) => Number(x.size) === Number(b.size));
+    const missing = gone?.missing ?? 0;
+    const damaged = gone?.damaged ?? 0;
+    return { id: 100 + i, size: b.size, label: `${b.size} in`, count: b.count, missing, damaged, available: b.count - missing - damaged, note: '' };
+  });
+  return { ...DEMO_BOX, blocks };
+}
+
 /** The blocks the inventory route leaves out of the demo box. */
 export const DEMO_BOX_EXCLUDED = [{ size: '0.1007', missing: 1, damaged: 0 }, { size: '0.137', missing: 0, damaged: 1 }];
 
