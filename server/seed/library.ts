@@ -82,8 +82,9 @@ export async function seedLibrary(teamId: number, lib: DemoLibrary, byEmail: Rea
     if (setup.status === 'released' && !setup.releasedAt) await setup.update({ releasedAt: new Date(Date.now() - 10 * 86_400_000), releasedById: lead?.id ?? null });
     if ((await SetupRevision.count({ where: { setupId: setup.id } })) === 0) {
       const owner = [...byEmail.values()].find((u) => u.id === setup.ownerId) ?? null;
-      await recordRevision(setup, 'created', owner, []);
-      if (setup.status === 'released') await recordRevision(setup, 'released', lead, [{ field: 'status', from: 'draft', to: 'released' }]);
+      // Dated as the set-up itself: written when it was created, released when it was stamped.
+      await recordRevision(setup, 'created', owner, [], undefined, setup.createdAt);
+      if (setup.status === 'released') await recordRevision(setup, 'released', lead, [{ field: 'status', from: 'draft', to: 'released' }], undefined, setup.releasedAt ?? undefined);
       created++;
     }
   }

@@ -43,15 +43,17 @@ export function diffContent(before: SetupContent, after: SetupContent): FieldCha
     if (a !== b) changes.push({ field: `inputs.${key}`, from: shown(before.inputs[key]), to: shown(after.inputs[key]) });
   }
   if (JSON.stringify(before.checks) !== JSON.stringify(after.checks)) {
-    changes.push({ field: 'checks', from: before.checks.map((c) => c.label).join(', '), to: after.checks.map((c) => c.label).join(', ') });
+    // Each check with its nominal and tolerance, so a changed tolerance shows as a change.
+    const text = (list: SetupCheck[]) => list.map((c) => `${c.label} ${c.nominal} ${c.unit} +${c.plus}/-${c.minus}`).join('; ');
+    changes.push({ field: 'checks', from: shown(text(before.checks)), to: shown(text(after.checks)) });
   }
   return changes;
 }
 
-/** Stores one revision of a set-up (inside the caller's transaction). */
-export async function recordRevision(setup: Setup, action: RevisionAction, user: User | null, changes: FieldChange[], transaction?: Transaction): Promise<SetupRevision> {
+/** Stores one revision of a set-up (inside the caller's transaction); `at` dates it (the demo seed), else now. */
+export async function recordRevision(setup: Setup, action: RevisionAction, user: User | null, changes: FieldChange[], transaction?: Transaction, at?: Date): Promise<SetupRevision> {
   return SetupRevision.create(
-    { setupId: setup.id, version: setup.version, action, status: setup.status, userId: user?.id ?? null, changes, snapshot: { ...contentOf(setup), status: setup.status } },
+    { setupId: setup.id, version: setup.version, action, status: setup.status, userId: user?.id ?? null, changes, snapshot: { ...contentOf(setup), status: setup.status }, ...(at ? { createdAt: at } : {}) },
     { transaction },
   );
 }

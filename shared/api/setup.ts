@@ -90,7 +90,16 @@ export const setupCheckSchema = z.object({
 const checks = z
   .array(setupCheckSchema, { error: 'Checks must be a list.' })
   .max(12, 'At most 12 check values per set-up.')
-  .refine((list) => new Set(list.map((c) => c.key)).size === list.length, 'Each check needs its own key.');
+  .refine((list) => new Set(list.map((c) => c.key)).size === list.length, 'Each check needs its own key.')
+  .superRefine((list, ctx) => {
+    // Two checks of one name cannot be told apart on the batch sheet or in its CSV.
+    const seen = new Set<string>();
+    list.forEach((c, i) => {
+      const name = c.label.trim().toLowerCase();
+      if (seen.has(name)) ctx.addIssue({ code: 'custom', path: [i, 'label'], message: `"${c.label}" is already a check of this set-up; give each check its own name.` });
+      seen.add(name);
+    });
+  });
 
 const inputs = z
   .record(z.string(), z.unknown(), { error: 'Inputs must be an object of the area\'s input fields.' })
@@ -103,7 +112,7 @@ export const setupCreateBody = z.object({
   notes: z.string({ error: 'Notes must be text.' }).max(10_000, 'Keep the notes under 10,000 characters.').optional(),
   job: z.string({ error: 'Job must be text.' }).trim().max(80, 'Keep the job number under 80 characters.').nullable().optional(),
   checks: checks.optional(),
-});
+}, { error: 'Send the set-up as an object with its name, kind and inputs.' });
 export type SetupCreateBody = z.infer<typeof setupCreateBody>;
 
 /**
@@ -201,9 +210,9 @@ export interface RevisionDto {
 export const SETUP_EXPORT_FORMAT = 'slantwise.setup/1';
 
 export const setupImportBody = z.object({
-  format: z.literal(SETUP_EXPORT_FORMAT, { error: `Format must be "${SETUP_EXPORT_FORMAT}".` }),
+  format: z.literal(SETUP_EXPORT_FORMAT, { error: `This is not a set-up file exported from Slantwise (its format must be "${SETUP_EXPORT_FORMAT}").` }),
   setup: setupCreateBody,
-});
+}, { error: 'A set-up file is a JSON object with its format and the set-up.' });
 export type SetupImportBody = z.infer<typeof setupImportBody>;
 
 /** GET /api/setups/:id/export body. */

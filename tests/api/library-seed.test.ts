@@ -1,5 +1,5 @@
 import demo from '../../fixtures/demo.json';
-import { BatchRun, InventorySet, InventoryBlock, BatchPart, Team, User } from '../../server/models';
+import { BatchRun, InventorySet, InventoryBlock, BatchPart, Setup, SetupRevision, Team, User } from '../../server/models';
 import { seedLibrary, type DemoLibrary } from '../../server/seed/library';
 import { openApp, type TestApp } from '../support/api';
 
@@ -36,6 +36,24 @@ describe('demo library seed', () => {
     const corrected = runs[0]?.parts?.filter((p) => p.correctedAt) ?? [];
     expect(corrected.map((p) => [p.partNo, p.readings['end-thickness'], p.firstRecorded?.values['end-thickness']])).toEqual([[4, '0.5851', '0.5815']]);
     expect(corrected[0]!.correctedAt!.getTime()).toBeGreaterThan(corrected[0]!.measuredAt.getTime());
+  });
+
+  it("should date each demo set-up's history as the set-up: written, then released, then run", async () => {
+    const team = await Team.findOne({ where: { name: demo.team } });
+    const setups = await Setup.findAll({ where: { teamId: team!.id, name: demo.setups.map((s) => s.name) } });
+    expect(setups.length).toBe(demo.setups.length);
+    for (const setup of setups) {
+      const revs = await SetupRevision.findAll({ where: { setupId: setup.id }, order: [['id', 'ASC']] });
+      const created = revs.find((r) => r.action === 'created');
+      expect(created?.createdAt.getTime()).toBe(setup.createdAt.getTime());
+      const released = revs.find((r) => r.action === 'released');
+      if (setup.status === 'released') {
+        expect(released?.createdAt.getTime()).toBe(setup.releasedAt!.getTime());
+        expect(setup.releasedAt!.getTime()).toBeGreaterThan(setup.createdAt.getTime());
+      }
+      const runs = await BatchRun.findAll({ where: { setupId: setup.id } });
+      for (const run of runs) expect(run.createdAt.getTime()).toBeGreaterThan((setup.releasedAt ?? setup.createdAt).getTime());
+    }
   });
 
   it('should add nothing when run again', async () => {

@@ -291,6 +291,22 @@ describe('set-up library', () => {
     });
   });
 
+  describe('check values', () => {
+    it('should show a changed tolerance or nominal in the history, not only the check names', async () => {
+      const s = await create(c.machinist, { name: 'Tolerance history', checks }).expect(201);
+      const tighter = [{ ...checks[0]!, nominal: '0.5860', plus: '0.0005' }];
+      await put(c.machinist, s.body.id, { name: 'Tolerance history', inputs: taper, checks: tighter, version: 1 }).expect(200);
+      const revs = (await c.machinist.agent.get(`/api/setups/${s.body.id}/revisions`).expect(200)).body.revisions as Array<{ changes: Array<{ field: string; from: string; to: string }> }>;
+      expect(revs[0]?.changes).toEqual([{ field: 'checks', from: 'End thickness 0.5854 in +0.0010/-0.0010', to: 'End thickness 0.5860 in +0.0005/-0.0010' }]);
+    });
+
+    it('should refuse two checks of one name, beside the second', async () => {
+      const twice = [checks[0]!, { ...checks[0]!, key: 'end-again', label: ' end THICKNESS ', nominal: '1.2608' }];
+      const res = await create(c.machinist, { name: 'Two of one name', checks: twice }).expect(400);
+      expect(res.body.fields).toEqual({ 'checks.1.label': '"end THICKNESS" is already a check of this set-up; give each check its own name.' });
+    });
+  });
+
   describe('export and import', () => {
     it('should export a set-up as JSON and import it into another team as a draft', async () => {
       const s = await create(c.machinist, { name: 'Portable wedge', job: 'KL-9', notes: 'carry me', checks }).expect(201);
@@ -307,6 +323,12 @@ describe('set-up library', () => {
     it('should refuse an import of another format, naming the field', async () => {
       const res = await post(c.foreign, '/api/setups/import', { format: 'other/1', setup: { name: '', kind: 'taper', inputs: {} } }).expect(400);
       expect(Object.keys(res.body.fields).sort()).toEqual(['format', 'setup.name']);
+      // A file without its format or set-up says what a set-up file is, in words.
+      const bare = await post(c.foreign, '/api/setups/import', { name: 'loose' }).expect(400);
+      expect(bare.body.fields).toEqual({
+        format: 'This is not a set-up file exported from Slantwise (its format must be "slantwise.setup/1").',
+        setup: 'Send the set-up as an object with its name, kind and inputs.',
+      });
     });
   });
 

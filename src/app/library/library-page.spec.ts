@@ -129,7 +129,7 @@ describe('LibraryPage address', () => {
     await new Promise((r) => setTimeout(r, 300));
     const req = http.expectOne((r) => r.url === '/api/setups');
     const params = Object.fromEntries(new URLSearchParams(req.request.params.toString()));
-    req.flush({ setups: [], total, page: 1, pageSize: 25 });
+    req.flush({ setups: total > 0 ? [setup(1, 'Wedge')] : [], total, page: 1, pageSize: 25 });
     harness.detectChanges();
     await harness.fixture.whenStable();
     return params;
@@ -140,6 +140,18 @@ describe('LibraryPage address', () => {
     expect(await listParams()).toEqual({ q: 'wedge', kind: 'taper', status: 'released', sort: 'name', dir: 'asc', page: '3', pageSize: '10' });
     const search = harness.routeNativeElement!.querySelector('input[type=search]') as HTMLInputElement;
     expect(search.value).toBe('wedge');
+  });
+
+  it('should go to the last page there is from a page past the end', async () => {
+    await openAt('/library?page=99');
+    // 24 set-ups on pages of 25: page 99 is empty, so the page asks for page 1 and puts it in the address.
+    await new Promise((r) => setTimeout(r, 300));
+    http.expectOne((r) => r.url === '/api/setups' && r.params.get('page') === '99').flush({ setups: [], total: 24, page: 99, pageSize: 25 });
+    harness.detectChanges();
+    await harness.fixture.whenStable();
+    expect(await listParams(24)).toMatchObject({ page: '1' });
+    await new Promise((r) => setTimeout(r, 300));
+    expect(TestBed.inject(Router).url).not.toContain('page=99');
   });
 
   it('should put a changed filter in the address (page back to 1) and follow the plain menu address', async () => {

@@ -119,6 +119,10 @@ export default class LibraryPage {
   constructor() {
     toObservable(this.result).subscribe((r) => {
       if (r.page) this.lastPage.set(r.page);
+      // A page past the end (an old bookmark, or set-ups deleted meanwhile): show the last page there is.
+      if (r.page && r.page.setups.length === 0 && r.page.total > 0 && this.pageIndex() > 0) {
+        this.pageIndex.set(Math.max(0, Math.ceil(r.page.total / this.pageSize()) - 1));
+      }
     });
     // The address follows the view (replacing the entry: typing a search makes no history), and the
     // view follows an address changed from outside (the menu's plain /library, back and forward).
