@@ -109,7 +109,10 @@ function solverFor(box: GaugeBox): { solver: StackSolver; scale: Dec } {
 export function stackBlocker(box: GaugeBox, target: Dec): string | null {
   const unit = box.unit;
   if (!target.mod(box.step).isZero()) {
-    return `is finer than the box can make: its smallest step is ${box.step.toString()} ${unit}`;
+    // The two stacks either side that the step allows, to pick from.
+    const below = target.div(box.step).floor().mul(box.step);
+    const above = below.plus(box.step);
+    return `is finer than the box can make: its smallest step is ${box.step.toString()} ${unit}; the nearest stacks are ${below.toFixed(box.step.decimalPlaces())} and ${above.toFixed(box.step.decimalPlaces())} ${unit}`;
   }
   const total = box.total;
   if (target.gt(total)) return `is longer than all the blocks together (${total.toString()} ${unit})`;

@@ -45,11 +45,19 @@ describe('GaugeBlocksPage', () => {
     expect(page.fieldErrors()).toContain('There is no 0.7777 block left in the box');
   });
 
+  it('should take a block temperature in °F when it ends with F', async () => {
+    await page.open();
+    await page.type('temperature', '77F', { blur: false });
+    // 77 °F = 25 °C (definition of the scale).
+    expect(page.el.textContent).toContain('Length at 25 °C');
+  });
+
   it('should refuse a target finer than the box can make', async () => {
     await page.open();
     await page.type('target', '1.25195', { blur: false });
     expect(page.el.querySelector('.no-results')).not.toBeNull();
-    expect(page.fieldErrors()).not.toBe('');
+    // The 81-piece set steps by 0.0001 in: the stacks either side are 1.2519 and 1.2520 (derived).
+    expect(page.fieldErrors()).toContain('its smallest step is 0.0001 in; the nearest stacks are 1.2519 and 1.2520 in');
   });
 });
 

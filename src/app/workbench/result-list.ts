@@ -33,7 +33,7 @@ const COPIED_TICK_MS = 1_500;
           <div class="result" [class.emphasis]="item.emphasis">
             <dt class="result-label">{{ item.label }}</dt>
             <dd class="result-value">
-              <span class="value-text"><span class="number">{{ item.value }}</span>@if (item.unit) {<span class="unit">&nbsp;{{ item.unit }}</span>}</span>
+              <span class="value-text"><span class="number">{{ item.value }}</span>@if (item.unit) {<span class="unit">{{ unitText(item.unit) }}</span>}</span>
               <button mat-icon-button type="button" class="copy no-print" [cdkCopyToClipboard]="item.value"
                       (cdkCopyToClipboardCopied)="markCopied(item.label, $event)"
                       [attr.aria-label]="'Copy ' + item.label + ' ' + item.value">
@@ -80,6 +80,11 @@ export class ResultList {
   readonly heading = input('Results');
   /** Shown when there are no numbers (the inputs have a problem). */
   readonly emptyText = input('Fix the highlighted inputs to see the results.');
+
+  /** A unit after its number: angle marks close up ("14.5°", "4.26″"), other units after a space ("0.3916 in"). */
+  protected unitText(unit: string): string {
+    return /^[°′″'"]$/.test(unit) ? unit : `\u00a0${unit}`;
+  }
 
   /** Label of the item just copied, for the tick and the screen-reader notice. */
   protected readonly copied = signal<string | null>(null);
