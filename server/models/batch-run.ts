@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { BatchPartDto, BatchRunDto, BatchStatus, PartReadings } from '../../shared/api/batch';
 import type { SetupCheck } from '../../shared/api/setup';
@@ -97,6 +98,16 @@ export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAt
   declare operator?: User | null;
   declare correctedBy?: User | null;
 
+  /**
+   * A tag of the part as stored: its readings, note, and who last corrected it and when. Any change
+   * a person can make to a part changes it, so a correction based on an older tag is known to be
+   * stale (the part's own optimistic version, without a counter column).
+   */
+  revision(): string {
+    const state = [this.touchOff, this.droAtStop, this.readings, this.note, this.correctedById ?? null, this.correctedAt ? this.correctedAt.getTime() : null, this.firstRecorded ?? null];
+    return createHash('sha256').update(JSON.stringify(state)).digest('hex').slice(0, 16);
+  }
+
   toDto(): BatchPartDto {
     return {
       id: this.id,
@@ -113,6 +124,7 @@ export class BatchPart extends Model<InferAttributes<BatchPart>, InferCreationAt
       correctedAt: this.correctedAt ? this.correctedAt.toISOString() : null,
       correctedByName: this.correctedAt ? (this.correctedBy?.name ?? null) : null,
       firstRecorded: this.firstRecorded ?? null,
+      revision: this.revision(),
     };
   }
 

@@ -32,8 +32,15 @@ const inventorySet = { type: 'object', description: 'InventorySetDto: id, type, 
 const run = { type: 'object', description: 'BatchRunDto: id, setupId, setupName, setupVersion, label, partCount, status (open | closed), checks, startedByName, closedAt, closedByName, version, summary {entered, passed, failed}; on GET /:id also parts[] and stats[] (per check: n, mean, min, max, range, spreadFromFirst, stdDev, passCount, failCount, low, high, deviations[]). Numbers are decimal text.' };
 const part = {
   type: 'object', required: ['values'],
-  properties: { partNo: { type: 'integer' }, touchOff: { ...decimal, type: ['string', 'null'] }, droAtStop: { ...decimal, type: ['string', 'null'] }, values: { type: 'object', additionalProperties: decimal, description: 'One reading per check key of the run (all required).' }, note: { type: 'string' } },
+  properties: {
+    partNo: { type: 'integer', description: 'The part meant (409 if it was recorded meanwhile); default the lowest part not yet entered.' },
+    touchOff: { ...decimal, type: ['string', 'null'] }, droAtStop: { ...decimal, type: ['string', 'null'] },
+    values: { type: 'object', additionalProperties: decimal, description: 'One reading per check key of the run (all required); ".585" and "+0.5854" are read as 0.585 and 0.5854.' },
+    note: { type: 'string' },
+    confirm: { type: 'boolean', description: 'Record readings far from the nominal (more than half the nominal or ten tolerance bands away), refused otherwise.' },
+  },
 };
+const correction = { ...part, required: ['values', 'revision'], properties: { ...part.properties, revision: { type: 'string', description: "The part's revision the correction is based on (from the part as loaded)." } } };
 const setupPage = { type: 'object', properties: { setups: { type: 'array', items: setup }, total: { type: 'integer' }, page: { type: 'integer' }, pageSize: { type: 'integer' } } };
 const setupBody = { type: 'object', required: ['name', 'kind', 'inputs', 'version'], properties: { name: { type: 'string' }, kind: { type: 'string' }, inputs: { type: 'object' }, notes: { type: 'string' }, job: { type: ['string', 'null'] }, checks: { type: 'array', items: check }, version: { type: 'integer', description: 'Required: the version the edit is based on.' } } };
 const conflict = { description: 'Stale version: {error, version, setup}', ...json({ type: 'object', properties: { error: { type: 'string' }, version: { type: 'integer' }, setup } }) };
@@ -110,8 +117,8 @@ export const libraryPaths = {
     post: { summary: 'Start a run from a released set-up with check values (not apprentices)', parameters: csrf, requestBody: json({ type: 'object', required: ['setupId', 'partCount'], properties: { setupId: { type: 'integer' }, partCount: { type: 'integer', minimum: 1, maximum: 500 }, label: { type: 'string' } } }), responses: { 201: { description: 'Started', ...json(run) }, 400: err('Invalid fields'), 403: err('Apprentice'), 409: err('Set-up not released or without checks') } },
   },
   '/api/batches/{id}': { get: { summary: 'A run with its parts and statistics', parameters: id, responses: { 200: { description: 'Run', ...json(run) }, 404: err('Unknown') } } },
-  '/api/batches/{id}/parts': { post: { summary: 'Record the next part (one transaction; numbers never repeat)', parameters: [...id, ...csrf], requestBody: json(part), responses: { 201: { description: '{part, run}' }, 400: err('Bad readings, named per field (values.<key>)'), 409: err('Run closed, part beyond the run or already entered') } } },
-  '/api/batches/{id}/parts/{partNo}': { put: { summary: 'Correct an entered part while the run is open', parameters: [...id, { in: 'path', name: 'partNo', required: true, schema: { type: 'integer' } }, ...csrf], requestBody: json(part), responses: { 200: { description: '{part, run}' }, 404: err('Part not entered'), 409: err('Run closed') } } },
+  '/api/batches/{id}/parts': { post: { summary: 'Record the next part (one transaction; numbers never repeat)', parameters: [...id, ...csrf], requestBody: json(part), responses: { 201: { description: '{part, run}' }, 400: err('Bad readings, named per field (values.<key>)'), 409: err('Run closed, part beyond the run or already entered; {error, run} as it is now') } } },
+  '/api/batches/{id}/parts/{partNo}': { put: { summary: 'Correct an entered part while the run is open', parameters: [...id, { in: 'path', name: 'partNo', required: true, schema: { type: 'integer' } }, ...csrf], requestBody: json(correction), responses: { 200: { description: '{part, run}' }, 400: err('Bad readings, or no revision'), 404: err('Part not entered'), 409: err('Run closed, or the part changed since it was loaded; {error, run, part} as they are now') } } },
   '/api/batches/{id}/close': { post: { summary: 'Close the run (the machinist who started it, a lead or an admin); read-only afterwards', parameters: [...id, ...csrf], responses: { 200: { description: 'Closed', ...json(run) }, 403: err('Not allowed'), 409: err('Already closed') } } },
   '/api/batches/{id}/export.csv': { get: { summary: 'The run as CSV: one row per part, a column per check (band in the header)', parameters: id, responses: { 200: { description: 'text/csv', content: { 'text/csv': {} } } } } },
 };

@@ -1,8 +1,9 @@
-import { Router, type Request } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { Transaction, type Sequelize, type WhereOptions } from 'sequelize';
-import { batchCreateBody, batchPartBody, BATCH_STATUSES, type BatchPartBody, type BatchRunDto, type PartReadings } from '../../shared/api/batch';
-import { DECIMAL_TEXT, type SetupCheck } from '../../shared/api/setup';
+import { batchCorrectionBody, batchCreateBody, batchPartBody, BATCH_STATUSES, type BatchPartBody, type BatchRunDto, type PartReadings } from '../../shared/api/batch';
+import type { SetupCheck } from '../../shared/api/setup';
 import { checkStats, partVerdict } from '../../shared/batch/batch-stats';
+import { farFromNominal, farMessage, readingProblem, readReading } from '../../shared/batch/reading';
 import { currentUser } from '../middleware/auth';
 import { HttpError } from '../middleware/http-error';
 import { parseBody, parseId } from '../middleware/validate';
@@ -19,7 +20,12 @@ function mayRun(user: User): void {
   if (user.role === 'apprentice') throw new HttpError(403, 'Apprentices may watch batch runs but not record them; ask a machinist or a lead.');
 }
 
-/** Checks a part's values against the run's checks: every check once, each a decimal number. */
+/**
+ * Checks a part's values against the run's checks: every check once, each a decimal number (written
+ * the usual ways: ".585" and "+0.5854" are read as 0.585 and 0.5854). A reading far from its nominal
+ * (see farFromNominal) is refused unless the body confirms it; one of 0 or less on a check whose
+ * nominal is above 0 is always refused.
+ */
 function readings(checks: readonly SetupCheck[], body: BatchPartBody): Record<string, string> {
   const fields: Record<string, string> = {};
   const out: Record<string, string> = {};
@@ -28,11 +34,13 @@ function readings(checks: readonly SetupCheck[], body: BatchPartBody): Record<st
   for (const check of checks) {
     const raw = body.values[check.key];
     const text = raw === undefined ? '' : String(raw).trim();
+    const read = readReading(text);
     if (text === '') fields[`values.${check.key}`] = `Enter the ${check.label.toLowerCase()}.`;
-    else if (!DECIMAL_TEXT.test(text)) fields[`values.${check.key}`] = `${check.label} must be a decimal number such as ${check.nominal}.`;
+    else if (!read.ok) fields[`values.${check.key}`] = readingProblem(check.label, read.problem, check.nominal);
     // A length or angle measured on the part is never 0 or less when its nominal is above 0: a slip.
-    else if (Number(check.nominal) > 0 && Number(text) <= 0) fields[`values.${check.key}`] = `${check.label} must be more than 0 (nominal ${check.nominal} ${check.unit}): check the reading.`;
-    else out[check.key] = text;
+    else if (Number(check.nominal) > 0 && Number(read.text) <= 0) fields[`values.${check.key}`] = `${check.label} must be more than 0 (nominal ${check.nominal} ${check.unit}): check the reading.`;
+    else if (body.confirm !== true && farFromNominal(check, read.text)) fields[`values.${check.key}`] = farMessage(check, read.text);
+    else out[check.key] = read.text;
   }
   if (Object.keys(fields).length) throw new HttpError(400, 'Some readings are not valid.', fields);
   return out;
@@ -144,24 +152,32 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
       const run = await BatchRun.findOne({ where: { id: runId, teamId: user.teamId }, lock: Transaction.LOCK.UPDATE, transaction });
       if (!run) throw new HttpError(404, 'No batch run with that id in your team.');
       // The body is read only once the run is known to be this team's: another team learns nothing from a 400.
-      const body = parseBody(batchPartBody, req.body);
-      if (run.status === 'closed') throw new HttpError(409, 'This batch run is closed and read-only.');
-      const values = readings(run.checks, body);
-      const verdict = partVerdict(run.checks, values);
-      const existing = await BatchPart.findAll({ where: { runId: run.id }, attributes: ['id', 'partNo'], transaction });
+      const body = replace ? parseBody(batchCorrectionBody, req.body) : parseBody(batchPartBody, req.body);
+      if (run.status === 'closed') {
+        const closer = run.closedById ? await User.findByPk(run.closedById, { attributes: ['id', 'name'], transaction }) : null;
+        throw new HttpError(409, `This batch run was closed${closer ? ` by ${closer.name}` : ''} and is read-only; nothing was saved.`);
+      }
+      const existing = await BatchPart.findAll({ where: { runId: run.id }, attributes: ['id', 'partNo', 'operatorId'], include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }], transaction });
       // Without a number, the lowest part not yet entered (a part sent out of turn leaves a gap to fill).
       const taken = new Set(existing.map((p) => p.partNo));
       let next = 1;
       while (taken.has(next)) next += 1;
       const wanted = partNo ?? body.partNo ?? next;
       if (wanted > run.partCount) throw new HttpError(409, `This run is for ${run.partCount} parts; part ${wanted} is beyond it.`, { partNo: `At most ${run.partCount}.` });
-      const entered = { touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass, outOfBand: verdict.outOfBand.join(','), note: body.note ?? '' };
       const already = existing.find((p) => p.partNo === wanted);
       if (replace) {
         if (!already) throw new HttpError(404, `Part ${wanted} has not been entered yet.`);
+        const part = (await BatchPart.findByPk(already.id, { transaction }))!;
+        // Optimistic concurrency on the part: a correction made from a form loaded before someone
+        // else's correction would silently replace it.
+        if ('revision' in body && body.revision !== undefined && body.revision !== part.revision()) {
+          throw new HttpError(409, `Someone changed part ${wanted} while you were correcting it; nothing was saved. Check the part as it is now, then save your correction again if it is still needed.`);
+        }
+        const values = readings(run.checks, body);
+        const verdict = partVerdict(run.checks, values);
+        const entered = { touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass, outOfBand: verdict.outOfBand.join(','), note: body.note ?? '' };
         // A correction keeps who measured the part and when; changed readings record who corrected
         // them and when, and keep the readings as first recorded (a note alone is just edited).
-        const part = (await BatchPart.findByPk(already.id, { transaction }))!;
         const readingsOf = (p: { touchOff: string | null; droAtStop: string | null; readings: Record<string, string> }) => ({ touchOff: p.touchOff, droAtStop: p.droAtStop, values: p.readings });
         const changed = JSON.stringify(readingsOf(part)) !== JSON.stringify(readingsOf(entered));
         await part.update(
@@ -169,7 +185,13 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
           { transaction },
         );
       } else {
-        if (already) throw new HttpError(409, `Part ${wanted} is already entered; correct it instead of adding it again.`, { partNo: 'Already entered.' });
+        if (already) {
+          const by = already.operator?.name;
+          throw new HttpError(409, `Part ${wanted} is already recorded${by ? `, by ${by}` : ''}; your readings were not saved. Correct part ${wanted} instead, or record them as another part.`, { partNo: 'Already recorded.' });
+        }
+        const values = readings(run.checks, body);
+        const verdict = partVerdict(run.checks, values);
+        const entered = { touchOff: body.touchOff ?? null, droAtStop: body.droAtStop ?? null, readings: values, pass: verdict.pass, outOfBand: verdict.outOfBand.join(','), note: body.note ?? '' };
         await BatchPart.create({ runId: run.id, partNo: wanted, ...entered, operatorId: user.id, measuredAt: new Date() }, { transaction });
       }
       await run.update({ version: run.version + 1 }, { transaction });
@@ -178,17 +200,37 @@ export function createBatchesRouter(sequelize: Sequelize): Router {
     return { run: await findRun(req, true), partNo: number };
   }
 
+  /**
+   * A part that could not be saved because the run changed (closed, the part recorded or corrected
+   * meanwhile) is answered 409 with the run as it is now, so the page can show it and keep what was typed.
+   */
+  async function conflict(req: Request, res: Response, err: unknown, partNo?: number): Promise<boolean> {
+    if (!(err instanceof HttpError) || err.status !== 409) return false;
+    const fresh = fullDto(await findRun(req, true));
+    const part = partNo === undefined ? undefined : fresh.parts?.find((p) => p.partNo === partNo);
+    res.status(409).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}), run: fresh, ...(part ? { part } : {}) });
+    return true;
+  }
+
   router.post('/:id/parts', async (req, res) => {
-    const { run, partNo } = await savePart(req, undefined, false);
-    const dto = fullDto(run);
-    res.status(201).location(`/api/batches/${run.id}/parts/${partNo}`).json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+    try {
+      const { run, partNo } = await savePart(req, undefined, false);
+      const dto = fullDto(run);
+      res.status(201).location(`/api/batches/${run.id}/parts/${partNo}`).json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+    } catch (err) {
+      if (!(await conflict(req, res, err))) throw err;
+    }
   });
 
   router.put('/:id/parts/:partNo', async (req, res) => {
     const partNo = parseId(req.params['partNo'], 'part');
-    const { run } = await savePart(req, partNo, true);
-    const dto = fullDto(run);
-    res.json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+    try {
+      const { run } = await savePart(req, partNo, true);
+      const dto = fullDto(run);
+      res.json({ part: dto.parts?.find((p) => p.partNo === partNo), run: dto });
+    } catch (err) {
+      if (!(await conflict(req, res, err, partNo))) throw err;
+    }
   });
 
   router.post('/:id/close', async (req, res) => {

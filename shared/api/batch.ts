@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { DECIMAL_TEXT, type SetupCheck } from './setup';
+import { readReading, readingProblem } from '../batch/reading';
+import type { SetupCheck } from './setup';
 
 export const BATCH_STATUSES = ['open', 'closed'] as const;
 export type BatchStatus = (typeof BATCH_STATUSES)[number];
@@ -29,6 +30,11 @@ export interface BatchPartDto {
   correctedByName: string | null;
   /** The readings as first recorded, before any correction (null: never corrected). */
   firstRecorded: PartReadings | null;
+  /**
+   * A tag of the part as stored (readings, note and who last corrected it): a correction sends the
+   * tag of the part it was based on and is refused with 409 when the part has changed since.
+   */
+  revision: string;
 }
 
 /** A part's readings: the DRO figures and the measured value per check. */
@@ -66,6 +72,8 @@ export interface CheckStats {
   spreadFromFirst: string | null;
   /** Sample standard deviation (n − 1), or null below two parts. */
   stdDev: string | null;
+  /** Decimals of every figure above (mean to std dev): one more than the check's own, for any reading. */
+  decimals: number;
   passCount: number;
   failCount: number;
   deviations: PartDeviation[];
@@ -105,17 +113,39 @@ export type BatchCreateBody = z.infer<typeof batchCreateBody>;
 const reading = (what: string) =>
   z
     .union([z.string(), z.number(), z.null()], { error: `${what} must be a number such as 0.1645.` })
-    .transform((v) => (v === null ? null : typeof v === 'number' ? String(v) : v.trim()))
-    .transform((v) => (v === '' ? null : v))
-    .refine((v) => v === null || DECIMAL_TEXT.test(v), `${what} must be a decimal number such as 0.1645 (at most 6 decimals).`);
+    .transform((v, ctx) => {
+      const text = v === null ? '' : typeof v === 'number' ? String(v) : v.trim();
+      if (text === '') return null;
+      const read = readReading(text);
+      if (read.ok) return read.text;
+      ctx.addIssue({ code: 'custom', message: readingProblem(what, read.problem, '0.1645') });
+      return z.NEVER;
+    });
 
-/** POST /api/batches/:id/parts (and PUT …/parts/:partNo): one part's readings. */
+/** POST /api/batches/:id/parts: one part's readings. */
 export const batchPartBody = z.object({
-  /** Part number; default the next one. */
+  /**
+   * The part number the person means to record (the form sends the one it shows). Without it, the
+   * lowest part not yet entered. A part already recorded meanwhile is refused with 409.
+   */
   partNo: z.number({ error: 'Part number must be a whole number.' }).int('Part number must be a whole number.').min(1, 'Part number must be at least 1.').max(MAX_BATCH_PARTS).optional(),
   touchOff: reading('Touch-off').optional(),
   droAtStop: reading('DRO at stop').optional(),
   values: z.record(z.string(), z.union([z.string(), z.number()]), { error: 'Values must be an object of check key → reading.' }),
   note: z.string({ error: 'Note must be text.' }).max(500, 'Keep the note under 500 characters.').optional(),
+  /** true: readings far from their nominal (a decimal-point slip, as a rule) are right as measured. */
+  confirm: z.boolean({ error: 'Confirm must be true or false.' }).optional(),
 });
 export type BatchPartBody = z.infer<typeof batchPartBody>;
+
+/**
+ * PUT /api/batches/:id/parts/:partNo: the corrected readings, and the part's `revision` the correction
+ * was based on (a part changed since is refused with 409, so no correction is silently lost).
+ */
+export const batchCorrectionBody = batchPartBody.extend({
+  revision: z
+    .string({ error: 'Send the revision of the part your correction is based on (from the part as loaded).' })
+    .min(1, 'Send the revision of the part your correction is based on (from the part as loaded).')
+    .max(64, 'Revision must be the text of the part\'s revision as loaded.'),
+});
+export type BatchCorrectionBody = z.infer<typeof batchCorrectionBody>;

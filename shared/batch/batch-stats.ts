@@ -48,11 +48,17 @@ export function partVerdict(checks: readonly SetupCheck[], values: Readonly<Reco
   return { pass: outOfBand.length === 0 && missing.length === 0, outOfBand, missing };
 }
 
+/** Decimals of a check as written in its set-up: the most of nominal, plus and minus ("0.5854 +0.001" → 4). */
+export function checkDecimals(check: SetupCheck): number {
+  return Math.max(decimalsIn(check.nominal), decimalsIn(check.plus), decimalsIn(check.minus));
+}
+
 /**
  * Statistics of every check over the parts (in part-number order): mean, min, max, range, the
- * largest deviation from the first part, and the sample standard deviation. Differences of readings
- * are exact, so range and spread keep the readings' decimals; mean and standard deviation carry one
- * decimal more (common practice for averages of readings).
+ * largest deviation from the first part, and the sample standard deviation. The band keeps the
+ * check's own decimals; every figure is given to one decimal more than the check (common practice
+ * for averages of readings, and the same for all figures so a column never changes its width),
+ * whatever decimals a single reading was written with.
  */
 export function checkStats(checks: readonly SetupCheck[], parts: readonly PartReadings[]): CheckStats[] {
   const ordered = [...parts].sort((a, b) => a.partNo - b.partNo);
@@ -61,12 +67,13 @@ export function checkStats(checks: readonly SetupCheck[], parts: readonly PartRe
     const nominal = new Dec(check.nominal);
     const rows = ordered.filter((p) => p.values[check.key] !== undefined && p.values[check.key] !== '');
     const texts = rows.map((p) => p.values[check.key] as string);
-    const decimals = Math.max(decimalsIn(check.nominal), decimalsIn(check.plus), decimalsIn(check.minus), ...texts.map(decimalsIn));
+    const own = checkDecimals(check);
+    const decimals = own + 1;
     const values = texts.map((t) => new Dec(t));
     const base: CheckStats = {
       key: check.key, label: check.label, unit: check.unit, nominal: check.nominal,
-      low: fixedText(low, decimals), high: fixedText(high, decimals),
-      n: values.length, mean: null, min: null, max: null, range: null, spreadFromFirst: null, stdDev: null,
+      low: fixedText(low, own), high: fixedText(high, own),
+      n: values.length, mean: null, min: null, max: null, range: null, spreadFromFirst: null, stdDev: null, decimals,
       passCount: 0, failCount: 0, deviations: [],
     };
     if (values.length === 0) return base;
@@ -79,7 +86,7 @@ export function checkStats(checks: readonly SetupCheck[], parts: readonly PartRe
     let stdDev: string | null = null;
     if (values.length > 1) {
       const squares = values.reduce((a, v) => a.plus(v.minus(mean).pow(2)), new Dec(0));
-      stdDev = fixedText(squares.div(values.length - 1).sqrt(), decimals + 1);
+      stdDev = fixedText(squares.div(values.length - 1).sqrt(), decimals);
     }
     const deviations: PartDeviation[] = rows.map((p, i) => {
       const v = values[i] as Dec;
@@ -94,7 +101,7 @@ export function checkStats(checks: readonly SetupCheck[], parts: readonly PartRe
     const passCount = deviations.filter((d) => d.pass).length;
     return {
       ...base,
-      mean: fixedText(mean, decimals + 1),
+      mean: fixedText(mean, decimals),
       min: fixedText(min, decimals),
       max: fixedText(max, decimals),
       range: fixedText(max.minus(min), decimals),

@@ -139,11 +139,12 @@ beforeAll(async () => {
   const wedge = await lead.post('/api/setups', { name: 'Wedge, 7.5° face', kind: 'taper', job: 'KL-2291', notes: 'Clamp on the parallel; «deburr» after.', inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' }, checks }).expect(201);
   const id = wedge.body.id as number;
   await lead.put(`/api/setups/${id}`, { name: 'Wedge, 7.5° face', kind: 'taper', notes: 'Clamp on the parallel; deburr after.', inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' }, checks, version: 1 }).expect(200);
-  await lead.post(`/api/setups/${id}/release`).expect(200);
   png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: 90, b: 30 } } }).png().toBuffer();
   await lead.upload(`/api/setups/${id}/attachments`, png, 'fixture photo.png', 'image/png').expect(201);
   const pdf = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n', 'latin1');
   await lead.upload(`/api/setups/${id}/attachments`, pdf, 'drawing.pdf', 'application/pdf').expect(201);
+  // Released with its files (a file added to a released set-up makes it a draft again).
+  await lead.post(`/api/setups/${id}/release`).expect(200);
   await machinist.post('/api/setups', { name: 'Sine bar draft', kind: 'sine-bar', inputs: { unit: 'in', barLength: '5', angle: '12' } }).expect(201);
   const old = await lead.post('/api/setups', { name: 'Old fixture', kind: 'angle-blocks', inputs: {} }).expect(201);
   await lead.post(`/api/setups/${old.body.id}/archive`).expect(200);
@@ -162,7 +163,9 @@ beforeAll(async () => {
   await machinist.post(`/api/batches/${run.body.id}/parts`, { values: { 'end-thickness': '0.5856' }, touchOff: '0.1000', note: 'first part' }).expect(201);
   await machinist.post(`/api/batches/${run.body.id}/parts`, { values: { 'end-thickness': '0.5880' } }).expect(201);
   // A corrected part: who corrected it and the readings as first recorded go along.
-  await lead.put(`/api/batches/${run.body.id}/parts/2`, { values: { 'end-thickness': '0.5858' } }).expect(200);
+  const loaded = (await lead.agent.get(`/api/batches/${run.body.id}`).expect(200)).body as { parts: Array<{ partNo: number; revision: string }> };
+  const revision = loaded.parts.find((p) => p.partNo === 2)!.revision;
+  await lead.put(`/api/batches/${run.body.id}/parts/2`, { values: { 'end-thickness': '0.5858' }, revision }).expect(200);
   await lead.post(`/api/batches/${run.body.id}/close`).expect(200);
 
   const assignment = await lead.post('/api/training/assignments', { title: 'Sine stacks', instructions: 'Show your working.', items: [{ type: 'sine-stack', count: 2 }], dueAt: '2030-01-01T12:00:00Z', assigneeIds: [m.apprentice.id] }).expect(201);
@@ -330,7 +333,7 @@ describe('team export and import', () => {
     expect((download.body as Buffer).equals(png)).toBe(true);
     await lead.agent.get(`/api/setups/${wedge.id}/attachments/${photo.id}/thumbnail`).expect(200);
     const revisions = await lead.agent.get(`/api/setups/${wedge.id}/revisions`).expect(200);
-    expect(revisions.body.revisions.map((r: { action: string }) => r.action)).toEqual(['attached', 'attached', 'released', 'edited', 'created']);
+    expect(revisions.body.revisions.map((r: { action: string }) => r.action)).toEqual(['released', 'attached', 'attached', 'edited', 'created']);
     // The deactivated member stays deactivated.
     const csrf = await request(b.url).get('/api/auth/csrf').expect(200);
     const cookie = String(csrf.headers['set-cookie']).split(';')[0]!;

@@ -287,7 +287,7 @@ describe('a write that fails in the middle of its transaction leaves nothing beh
       'fault_refuse_run_bump',
       "BEFORE UPDATE ON batch_runs FOR EACH ROW IF NEW.version <> OLD.version THEN SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'fault test: run bump refused'; END IF",
     );
-    expectPlainJsonError(await machinist.put(`/api/batches/${runId}/parts/1`, { values: { 'end-thickness': '0.5870' } }));
+    expectPlainJsonError(await machinist.put(`/api/batches/${runId}/parts/1`, { values: { 'end-thickness': '0.5870' }, revision: saved.body.part.revision }));
     const after = (await machinist.get(`/api/batches/${runId}`).expect(200)).body as { version: number; parts: { partNo: number; values: Record<string, string> }[] };
     expect(after.version).toBe(v0 + 1);
     expect(after.parts.map((p) => [p.partNo, p.values['end-thickness']])).toEqual([[1, '0.5856']]);

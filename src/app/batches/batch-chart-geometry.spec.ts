@@ -4,7 +4,7 @@ import { CHART_BOX, chartGeometry } from './batch-chart-geometry';
 function stats(values: Array<[number, string, boolean]>): CheckStats {
   return {
     key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', low: '0.5844', high: '0.5864',
-    n: values.length, mean: null, min: null, max: null, range: null, spreadFromFirst: null, stdDev: null, passCount: 0, failCount: 0,
+    n: values.length, mean: null, min: null, max: null, range: null, spreadFromFirst: null, stdDev: null, decimals: 5, passCount: 0, failCount: 0,
     deviations: values.map(([partNo, value, pass]) => ({ partNo, value, pass, fromFirst: '0', fromNominal: '0' })),
   };
 }

@@ -13,7 +13,7 @@ const ME: AuthUser = { id: 7, email: 'm@example.test', name: 'Ines', role: 'mach
 const CHECK = { key: 'end-thickness', label: 'End thickness', unit: 'in' as const, nominal: '0.5854', plus: '0.0010', minus: '0.0010' };
 
 function run(parts: Array<[number, string, boolean]>, status: 'open' | 'closed' = 'open'): BatchRunDto {
-  const p = parts.map(([partNo, value, pass]) => ({ id: partNo, partNo, touchOff: null, droAtStop: null, values: { 'end-thickness': value }, pass, outOfBand: pass ? [] : ['end-thickness'], operatorId: 7, operatorName: 'Ines', measuredAt: '2026-12-01T10:00:00.000Z', note: '', correctedAt: null, correctedByName: null, firstRecorded: null }));
+  const p = parts.map(([partNo, value, pass]) => ({ id: partNo, partNo, touchOff: null, droAtStop: null, values: { 'end-thickness': value }, pass, outOfBand: pass ? [] : ['end-thickness'], operatorId: 7, operatorName: 'Ines', measuredAt: '2026-12-01T10:00:00.000Z', note: '', correctedAt: null, correctedByName: null, firstRecorded: null, revision: `r${partNo}` }));
   return {
     id: 3, setupId: 1, setupName: 'Fixture wedge', setupVersion: 2, label: 'Lot A', partCount: 3, status, checks: [CHECK],
     startedById: 7, startedByName: 'Ines', closedAt: null, closedByName: null, version: 1,
@@ -100,7 +100,8 @@ describe('BatchRunPage', () => {
     (el().querySelector('button[type=submit]') as HTMLButtonElement).click();
     const req = http.expectOne('/api/batches/3/parts');
     expect(req.request.method).toBe('POST');
-    expect(req.request.body).toEqual({ touchOff: null, droAtStop: '-0.1632', values: { 'end-thickness': '0.5855' }, note: undefined });
+    // The request names the part the form showed, so a part recorded meanwhile elsewhere is not renumbered silently.
+    expect(req.request.body).toEqual({ partNo: 2, touchOff: null, droAtStop: '-0.1632', values: { 'end-thickness': '0.5855' }, note: undefined });
     req.flush({ part: {}, run: run([[1, '0.5856', true], [2, '0.5855', true]]) });
     fixture.detectChanges();
     await fixture.whenStable();
@@ -136,7 +137,8 @@ describe('BatchRunPage', () => {
     button('Save part 2')!.click();
     const req = http.expectOne('/api/batches/3/parts/2');
     expect(req.request.method).toBe('PUT');
-    expect(req.request.body).toEqual({ touchOff: null, droAtStop: null, values: { 'end-thickness': '0.5860' }, note: 'first reading mistyped' });
+    // The correction carries the revision of the part it was based on.
+    expect(req.request.body).toEqual({ touchOff: null, droAtStop: null, values: { 'end-thickness': '0.5860' }, note: 'first reading mistyped', revision: 'r2' });
     req.flush({ part: { partNo: 2 }, run: run([[1, '0.5856', true], [2, '0.5860', true]]) });
     await settle();
     expect(el().querySelector('form h2')?.textContent).toBe('Part 3');
@@ -184,5 +186,101 @@ describe('BatchRunPage', () => {
     await open(dto);
     const text = el().querySelector('tbody .corrected')?.textContent?.replace(/\s+/g, ' ').trim();
     expect(text).toMatch(/^corrected by Teodor, 1 Dec, \d\d:30; first recorded End thickness 0\.5805, touch-off 0\.0000$/);
+  });
+
+  const conflict = { status: 409, statusText: 'Conflict' };
+
+  it('should keep a correction made from a stale form, say someone changed the part, and show the part as it is now', async () => {
+    await open(run([[1, '0.5856', true], [2, '5854', false]]));
+    el().querySelector<HTMLButtonElement>('button[aria-label="Correct part 2"]')!.click();
+    await settle();
+    await type('End thickness', '0.5860');
+    button('Save part 2')!.click();
+    const now = run([[1, '0.5856', true], [2, '0.5854', true]]);
+    now.parts![1] = { ...now.parts![1]!, correctedAt: '2026-12-01T11:30:00.000Z', correctedByName: 'Teodor', revision: 'r2-teodor' };
+    const stale = http.expectOne('/api/batches/3/parts/2');
+    expect(stale.request.body.revision).toBe('r2');
+    stale.flush({ error: 'Someone changed part 2 while you were correcting it; nothing was saved.', run: now, part: now.parts![1] }, conflict);
+    await settle();
+    expect(el().querySelector('form h2')?.textContent).toBe('Correct part 2');
+    expect(field('End thickness').value).toBe('0.5860');
+    expect(el().querySelector('form p.error')?.textContent).toMatch(/^Someone changed part 2 while you were correcting it; nothing was saved\. Part 2 now reads End thickness 0\.5854 \(corrected by Teodor, 1 Dec, \d\d:30\)\. Your readings are still in the form/);
+    expect(Array.from(el().querySelectorAll('tbody tr')).map((r) => r.querySelectorAll('td')[2]?.textContent)).toEqual(['0.5856', '0.5854']);
+    // Saving again replaces the part as it is now, knowingly.
+    button('Save part 2')!.click();
+    const again = http.expectOne('/api/batches/3/parts/2');
+    expect(again.request.body).toMatchObject({ values: { 'end-thickness': '0.5860' }, revision: 'r2-teodor' });
+    again.flush({ part: { partNo: 2 }, run: run([[1, '0.5856', true], [2, '0.5860', true]]) });
+    await settle();
+    expect(el().querySelector('[role=status]')?.textContent).toBe('Part 2 corrected.');
+  });
+
+  it('should say who closed the run and keep the typed readings in view when recording on a run closed meanwhile', async () => {
+    await open(run([[1, '0.5856', true]]));
+    await type('End thickness', '0.5855');
+    await type('DRO at stop', '-0.1632');
+    button('Record part 2')!.click();
+    const closed = { ...run([[1, '0.5856', true]], 'closed'), closedAt: '2026-12-01T12:05:00.000Z', closedByName: 'Teodor' };
+    http.expectOne('/api/batches/3/parts').flush({ error: 'This batch run was closed by Teodor and is read-only; nothing was saved.', run: closed }, conflict);
+    await settle();
+    expect(el().querySelector('form')).toBeNull();
+    const notice = el().querySelector('.notice')?.textContent ?? '';
+    expect(notice).toMatch(/^Not saved: this run was closed by Teodor on 1 Dec 2026, \d\d:05, so part 2 was not recorded\. Your readings were: End thickness 0\.5855, DRO at stop -0\.1632\. Note them down/);
+    expect(el().querySelector('.notice')?.getAttribute('role')).toBe('alert');
+  });
+
+  it('should not renumber a part silently when a stale tab records a part recorded meanwhile', async () => {
+    await open(run([[1, '0.5856', true]]));
+    await type('End thickness', '0.5855');
+    button('Record part 2')!.click();
+    const req = http.expectOne('/api/batches/3/parts');
+    expect(req.request.body.partNo).toBe(2);
+    req.flush({ error: 'Part 2 is already recorded, by Ines; your readings were not saved.', fields: { partNo: 'Already recorded.' }, run: run([[1, '0.5856', true], [2, '0.5850', true]]) }, conflict);
+    await settle();
+    expect(el().querySelector('form h2')?.textContent).toBe('Part 3');
+    expect(field('End thickness').value).toBe('0.5855');
+    expect(el().querySelector('form p.error')?.textContent).toBe('Part 2 is already recorded, by Ines; your readings were not saved. The form now shows part 3; your readings are still in it. Check which part you measured before recording.');
+    expect(el().querySelectorAll('tbody tr')).toHaveLength(2);
+  });
+
+  it('should keep the readings in view when the run filled up meanwhile', async () => {
+    await open(run([[1, '0.5856', true], [2, '0.5857', true]]));
+    await type('End thickness', '0.5855');
+    button('Record part 3')!.click();
+    http.expectOne('/api/batches/3/parts').flush({ error: 'Part 3 is already recorded, by Ines; your readings were not saved.', run: run([[1, '0.5856', true], [2, '0.5857', true], [3, '0.5858', true]]) }, conflict);
+    await settle();
+    expect(el().querySelector('form')).toBeNull();
+    expect(el().querySelector('.notice')?.textContent).toBe('Part 3 is already recorded, by Ines; your readings were not saved. Your readings were: End thickness 0.5855. Note them down.');
+  });
+
+  it('should read ".5855" as a reading and flag one far from the nominal, sending it only when confirmed', async () => {
+    await open(run([[1, '0.5856', true]]));
+    await type('End thickness', '.5855');
+    expect(el().querySelector('mat-form-field.pass')).not.toBeNull();
+    expect(el().querySelector('mat-checkbox')).toBeNull();
+    await type('End thickness', '5854');
+    expect(el().querySelector('mat-form-field.fail mat-hint')?.textContent).toContain('far from the nominal: check the decimal point');
+    button('Record part 2')!.click();
+    const first = http.expectOne('/api/batches/3/parts');
+    expect(first.request.body.confirm).toBeUndefined();
+    first.flush(
+      { error: 'Some readings are not valid.', fields: { 'values.end-thickness': 'End thickness 5854 is far from the nominal 0.5854 in: check the decimal point.' } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await settle();
+    expect(el().querySelector('form mat-hint.error')?.textContent).toContain('5854 is far from the nominal');
+    (el().querySelector('mat-checkbox input') as HTMLInputElement).click();
+    await settle();
+    button('Record part 2')!.click();
+    const second = http.expectOne('/api/batches/3/parts');
+    expect(second.request.body).toMatchObject({ partNo: 2, values: { 'end-thickness': '5854' }, confirm: true });
+    second.flush({ part: { partNo: 2 }, run: run([[1, '0.5856', true], [2, '5854', false]]) });
+    await settle();
+    expect(el().querySelector('[role=status]')?.textContent).toBe('Part 2 recorded.');
+  });
+
+  it('should state the resolution of the figures', async () => {
+    await open(run([[1, '0.5856', true]]));
+    expect(el().querySelector('.resolution')?.textContent).toBe('All figures to 5 decimals (in).');
   });
 });

@@ -1,9 +1,9 @@
-import { DatePipe } from '@angular/common';
-import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal, viewChild } from '@angular/core';
+import { DatePipe, formatDate } from '@angular/common';
+import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input, numberAttribute, signal, viewChild } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import { FormsModule, NgForm } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -11,12 +11,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 
 import type { BatchPartDto, BatchRunDto, PartReadings } from '../../../shared/api/batch';
-import { DECIMAL_TEXT } from '../../../shared/api/setup';
 import { inBand } from '../../../shared/batch/batch-stats';
+import { farFromNominal, readReading } from '../../../shared/batch/reading';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { BatchChart } from './batch-chart';
-import { BatchesApi, csvUrl } from './batches-api';
+import { BatchesApi, conflictRun, csvUrl } from './batches-api';
 
 /** Entry of one part: readings as typed. */
 interface PartEntry {
@@ -31,7 +31,7 @@ const EMPTY: PartEntry = { touchOff: '', droAtStop: '', values: {}, note: '' };
 /** A batch run at the machine: enter each part's readings, see pass/fail, the spread and the charts; close the run. */
 @Component({
   selector: 'app-batch-run-page',
-  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, BatchChart],
+  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, BatchChart],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './batch-run-page.html',
   styleUrl: './batch-run-page.scss',
@@ -39,6 +39,7 @@ const EMPTY: PartEntry = { touchOff: '', droAtStop: '', values: {}, note: '' };
 export default class BatchRunPage {
   private readonly api = inject(BatchesApi);
   private readonly auth = inject(Auth);
+  private readonly locale = inject(LOCALE_ID);
 
   /** Route parameter `:id`. */
   readonly id = input.required({ transform: numberAttribute });
@@ -52,6 +53,12 @@ export default class BatchRunPage {
   protected readonly fieldErrors = signal<Readonly<Record<string, string>>>({});
   /** What the last save did, for screen readers and a glance. */
   protected readonly saved = signal('');
+  /** Why the typed readings were not saved when the form went away (run closed or full meanwhile), with the readings to note down. */
+  protected readonly notice = signal<string | null>(null);
+  /** The person confirmed that readings far from their nominal are right as typed. */
+  protected readonly confirmFar = signal(false);
+  /** The revision of the part being corrected, as the correction is based on it. */
+  private readonly basedOn = signal<string | null>(null);
   protected readonly csvUrl = csvUrl;
 
   protected readonly isOpen = computed(() => this.run()?.status === 'open');
@@ -75,17 +82,19 @@ export default class BatchRunPage {
     const r = this.run();
     return !!u && !!r && r.status === 'open' && (u.role === 'lead' || u.role === 'admin' || (u.role === 'machinist' && r.startedById === u.id));
   });
-  /** Live verdict of each typed value: in band, out of band, or not yet a number. */
+  /** Live verdict of each typed value: in band, out of band, far from the nominal (a slip?), or not yet a number. */
   protected readonly liveVerdict = computed(() => {
     const r = this.run();
     const values = this.entry().values;
-    const out: Record<string, 'pass' | 'fail' | null> = {};
+    const out: Record<string, 'pass' | 'fail' | 'far' | null> = {};
     for (const c of r?.checks ?? []) {
-      const v = (values[c.key] ?? '').trim();
-      out[c.key] = DECIMAL_TEXT.test(v) ? (inBand(c, v) ? 'pass' : 'fail') : null;
+      const read = readReading(values[c.key] ?? '');
+      out[c.key] = !read.ok ? null : farFromNominal(c, read.text) ? 'far' : inBand(c, read.text) ? 'pass' : 'fail';
     }
     return out;
   });
+  /** Whether any typed value is far from its nominal (the form then asks to confirm it). */
+  protected readonly anyFar = computed(() => Object.values(this.liveVerdict()).includes('far'));
 
   constructor() {
     toObservable(this.id).subscribe((id) => this.load(id));
@@ -117,6 +126,8 @@ export default class BatchRunPage {
     for (const [key, value] of Object.entries(part.values)) values[key] = String(value);
     this.entry.set({ touchOff: part.touchOff ?? '', droAtStop: part.droAtStop ?? '', values, note: part.note ?? '' });
     this.correcting.set(part.partNo);
+    this.basedOn.set(part.revision);
+    this.confirmFar.set(false);
     this.saveError.set(null);
     this.fieldErrors.set({});
     document.getElementById('part-entry')?.scrollIntoView?.({ block: 'start' });
@@ -126,6 +137,8 @@ export default class BatchRunPage {
   /** Leaves a correction unsaved and goes back to the next part. */
   protected cancelCorrecting(): void {
     this.correcting.set(null);
+    this.basedOn.set(null);
+    this.confirmFar.set(false);
     this.fill(EMPTY);
     this.saveError.set(null);
     this.fieldErrors.set({});
@@ -139,6 +152,15 @@ export default class BatchRunPage {
     this.form()?.resetForm(controls);
   }
 
+  /** The typed readings in words, to note down when they could not be saved: "End thickness 0.5854, DRO at stop -0.1632, note “burr”". */
+  private typedText(e: PartEntry, run: BatchRunDto): string {
+    const out = run.checks.map((c) => `${c.label} ${(e.values[c.key] ?? '').trim() || '—'}`);
+    if (e.touchOff.trim()) out.push(`touch-off ${e.touchOff.trim()}`);
+    if (e.droAtStop.trim()) out.push(`DRO at stop ${e.droAtStop.trim()}`);
+    if (e.note.trim()) out.push(`note “${e.note.trim()}”`);
+    return out.join(', ');
+  }
+
   /** Records the next part (or saves the correction of one); on success the form clears for the next part. */
   protected record(): void {
     const r = this.run();
@@ -149,23 +171,55 @@ export default class BatchRunPage {
     this.saving.set(true);
     this.saveError.set(null);
     this.saved.set('');
+    this.notice.set(null);
     this.fieldErrors.set({});
-    const body = { touchOff: e.touchOff || null, droAtStop: e.droAtStop || null, values: e.values, note: partNo === null ? e.note || undefined : e.note };
-    const save = partNo === null ? this.api.addPart(r.id, body) : this.api.correctPart(r.id, partNo, body);
+    const body = {
+      touchOff: e.touchOff || null, droAtStop: e.droAtStop || null, values: e.values, note: partNo === null ? e.note || undefined : e.note,
+      ...(this.confirmFar() && this.anyFar() ? { confirm: true } : {}),
+    };
+    // A new part names the part the form shows, so a part recorded meanwhile in another tab is not silently renumbered.
+    const save = partNo === null ? this.api.addPart(r.id, { partNo: writing, ...body }) : this.api.correctPart(r.id, partNo, { ...body, revision: this.basedOn() ?? '' });
     save.subscribe({
       next: (res) => {
         this.run.set(res.run);
         this.correcting.set(null);
+        this.basedOn.set(null);
+        this.confirmFar.set(false);
         this.fill(partNo === null ? { ...EMPTY, touchOff: e.touchOff } : EMPTY);
         this.saving.set(false);
         this.saved.set(partNo === null ? `Part ${res.part?.partNo ?? writing} recorded.` : `Part ${partNo} corrected.`);
       },
       error: (err: unknown) => {
         this.saving.set(false);
-        this.fieldErrors.set(apiFieldErrors(err));
-        this.saveError.set(apiErrorMessage(err));
-        // Closed meanwhile by someone else: show the run as it is now (the form goes).
-        if (err instanceof HttpErrorResponse && err.status === 409 && !Object.keys(apiFieldErrors(err)).length) this.load(r.id);
+        const fresh = conflictRun(err);
+        if (!fresh) {
+          this.fieldErrors.set(apiFieldErrors(err));
+          this.saveError.set(apiErrorMessage(err));
+          return;
+        }
+        // The run changed meanwhile: show it as it is now and keep what was typed.
+        this.run.set(fresh);
+        const typed = this.typedText(e, fresh);
+        if (fresh.status === 'closed') {
+          this.correcting.set(null);
+          this.basedOn.set(null);
+          const when = fresh.closedAt ? ` on ${formatDate(fresh.closedAt, 'd MMM y, HH:mm', this.locale)}` : '';
+          this.notice.set(`Not saved: this run was closed${fresh.closedByName ? ` by ${fresh.closedByName}` : ''}${when}, so part ${writing} was not recorded. Your readings were: ${typed}. Note them down before leaving the page.`);
+          return;
+        }
+        const current = partNo === null ? undefined : fresh.parts?.find((p) => p.partNo === partNo);
+        if (current) {
+          // Saving again replaces the part as it is now, knowingly.
+          this.basedOn.set(current.revision);
+          const by = current.correctedAt ? ` (corrected by ${current.correctedByName ?? 'a former member'}, ${formatDate(current.correctedAt, 'd MMM, HH:mm', this.locale)})` : '';
+          this.saveError.set(`${apiErrorMessage(err)} Part ${partNo} now reads ${this.firstText({ touchOff: current.touchOff, droAtStop: current.droAtStop, values: current.values }, fresh)}${by}. Your readings are still in the form: save again to replace it with them, or cancel.`);
+          return;
+        }
+        if (this.mayRecord()) {
+          this.saveError.set(`${apiErrorMessage(err)} The form now shows part ${this.formPart()}; your readings are still in it. Check which part you measured before recording.`);
+        } else {
+          this.notice.set(`${apiErrorMessage(err)} Your readings were: ${typed}. Note them down.`);
+        }
       },
     });
   }

@@ -1,8 +1,8 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpErrorResponse, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { type Observable, map } from 'rxjs';
 
-import type { BatchCreateBody, BatchPartBody, BatchPartDto, BatchRunDto, BatchStatus } from '../../../shared/api/batch';
+import type { BatchCorrectionBody, BatchCreateBody, BatchPartBody, BatchPartDto, BatchRunDto, BatchStatus } from '../../../shared/api/batch';
 import { quietErrors } from '../core/api-error';
 
 /** Checks the JSON of a batch run. */
@@ -12,6 +12,20 @@ export function parseRun(json: unknown): BatchRunDto {
     throw new Error('BatchesApi: the server sent a batch run without id, setupId, checks and status.');
   }
   return r as BatchRunDto;
+}
+
+/**
+ * The run as it is now from a 409 answer to saving a part (closed, or the part recorded or corrected
+ * meanwhile), or null for any other failure.
+ */
+export function conflictRun(err: unknown): BatchRunDto | null {
+  if (!(err instanceof HttpErrorResponse) || err.status !== 409) return null;
+  const body = err.error as { run?: unknown } | null;
+  try {
+    return body && typeof body === 'object' && body.run ? parseRun(body.run) : null;
+  } catch {
+    return null;
+  }
 }
 
 /** Batch runs over HTTP. */
@@ -39,8 +53,11 @@ export class BatchesApi {
     return this.http.post<{ part: BatchPartDto; run: unknown }>(`/api/batches/${runId}/parts`, body, { context: quietErrors() }).pipe(map((r) => ({ part: r.part, run: parseRun(r.run) })));
   }
 
-  /** Replaces the readings of a part already recorded (a mistyped reading); field errors come back as for addPart. */
-  correctPart(runId: number, partNo: number, body: BatchPartBody): Observable<{ part: BatchPartDto; run: BatchRunDto }> {
+  /**
+   * Replaces the readings of a part already recorded (a mistyped reading), based on the part's
+   * `revision` as loaded; field errors and a 409 (changed meanwhile) come back as for addPart.
+   */
+  correctPart(runId: number, partNo: number, body: BatchCorrectionBody): Observable<{ part: BatchPartDto; run: BatchRunDto }> {
     return this.http
       .put<{ part: BatchPartDto; run: unknown }>(`/api/batches/${runId}/parts/${partNo}`, body, { context: quietErrors() })
       .pipe(map((r) => ({ part: r.part, run: parseRun(r.run) })));

@@ -11,7 +11,7 @@ import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
 
-import type { BatchRunDto } from '../../../shared/api/batch';
+import { batchCreateBody, MAX_BATCH_PARTS, type BatchRunDto } from '../../../shared/api/batch';
 import { apiErrorDetail, apiErrorMessage } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { LibraryApi } from '../library/library-api';
@@ -35,11 +35,13 @@ import { BatchesApi } from './batches-api';
               }
             </mat-select>
           </mat-form-field>
-          <mat-form-field appearance="outline" class="num">
+          <mat-form-field appearance="outline" class="num" subscriptSizing="dynamic">
             <mat-label>Parts</mat-label>
-            <input matInput type="number" name="parts" min="1" max="500" [ngModel]="partCount()" (ngModelChange)="partCount.set(+$event)" />
+            <input matInput type="number" name="parts" min="1" [max]="maxParts" [ngModel]="partCount()" (ngModelChange)="partCount.set($event)"
+                   [attr.aria-invalid]="!!partCountError()" aria-describedby="parts-error" />
+            @if (partCountError(); as pe) { <mat-hint id="parts-error" class="error">{{ pe }}</mat-hint> }
           </mat-form-field>
-          <button mat-flat-button type="submit" [disabled]="!setupId()"><mat-icon>play_arrow</mat-icon> Start run</button>
+          <button mat-flat-button type="submit" [disabled]="!setupId() || !!partCountError()"><mat-icon>play_arrow</mat-icon> Start run</button>
         </form>
         @if (startError(); as e) { <p class="error" role="alert">{{ e }}</p> }
       }
@@ -75,7 +77,7 @@ import { BatchesApi } from './batches-api';
   styles: `
     .start { display: flex; flex-wrap: wrap; gap: 12px; align-items: flex-start; margin-bottom: 8px; }
     .grow { flex: 1 1 280px; }
-    .num { width: 110px; }
+    .num { width: 180px; }
     .table-frame { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; overflow: auto; }
     table { width: 100%; }
     .chip { padding: 2px 10px; border-radius: 999px; background: var(--mat-sys-surface-container-high); }
@@ -93,7 +95,14 @@ export default class BatchesPage {
 
   protected readonly columns = ['label', 'setup', 'status', 'parts', 'started'];
   protected readonly setupId = signal<number | null>(null);
-  protected readonly partCount = signal(8);
+  protected readonly maxParts = MAX_BATCH_PARTS;
+  /** The Parts box as typed (a number box gives null while empty or not a number). */
+  protected readonly partCount = signal<number | null>(8);
+  /** Why the Parts box cannot be sent, shown as it is typed (the same rule as the server's). */
+  protected readonly partCountError = computed(() => {
+    const parsed = batchCreateBody.shape.partCount.safeParse(this.partCount());
+    return parsed.success ? null : (parsed.error.issues[0]?.message ?? 'Say how many parts the batch has.');
+  });
   protected readonly startError = signal<string | null>(null);
   protected readonly listError = signal<string | null>(null);
   protected readonly mayRun = computed(() => !!this.auth.user() && this.auth.user()?.role !== 'apprentice');
@@ -109,9 +118,10 @@ export default class BatchesPage {
 
   protected start(): void {
     const setupId = this.setupId();
-    if (!setupId) return;
+    const partCount = this.partCount();
+    if (!setupId || partCount === null || this.partCountError()) return;
     this.startError.set(null);
-    this.api.start({ setupId, partCount: this.partCount() }).subscribe({
+    this.api.start({ setupId, partCount }).subscribe({
       next: (run) => void this.router.navigate(['/batches', run.id]),
       error: (err: unknown) => this.startError.set(apiErrorDetail(err)),
     });
