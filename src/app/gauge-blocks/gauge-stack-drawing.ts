@@ -17,7 +17,7 @@ import { type GaugeStackSceneInput, gaugeStackScene } from './gauge-stack-scene'
         <desc id="gauge-drawing-desc">{{ description() }}</desc>
         <path class="base" [attr.d]="s.baseLine" />
         @for (stack of s.stacks; track stack.title) {
-          <text class="title" [attr.x]="stack.titleX" [attr.y]="s.titleY">{{ stack.title }}</text>
+          <text class="title" [class.narrow]="s.narrow" [attr.x]="stack.titleX" [attr.y]="s.titleY">{{ stack.title }}</text>
           @for (p of stack.pieces; track $index) {
             <path class="block" [class.odd]="$index % 2 === 1" [class.wear]="p.wear" [attr.d]="p.d" />
             <path class="leader" [attr.d]="p.leader" />
@@ -40,6 +40,7 @@ import { type GaugeStackSceneInput, gaugeStackScene } from './gauge-stack-scene'
     .leader { stroke: #546e7a; stroke-width: 0.8; fill: none; }
     .label { font-size: 13px; font-weight: 600; fill: #1d2a30; font-variant-numeric: tabular-nums; }
     .title { font-size: 14px; font-weight: 600; text-anchor: middle; fill: #16394a; }
+    .title.narrow { font-size: 12px; }
     .no-drawing { padding: 48px 16px; text-align: center; border: 1px dashed var(--mat-sys-outline); border-radius: 12px; color: var(--mat-sys-on-surface-variant); }
     @media print { .drawing { border: none; background: none; max-height: 78mm; } }
   `,

@@ -40,6 +40,20 @@ describe('gaugeStackScene', () => {
     expect(scene.totalDim.label.text).toBe('2.0000 in');
   });
 
+  it('should keep both headings apart and the right-hand labels inside on a phone', () => {
+    const phone = gaugeStackScene(
+      { target: 1.2519, fewest: [{ size: 1, label: '1.000' }, { size: 0.101, label: '0.101' }, { size: 0.1009, label: '0.1009' }, { size: 0.05, label: '0.050' }], lastDigit: [{ size: 1, label: '1.000' }, { size: 0.101, label: '0.101' }, { size: 0.1009, label: '0.1009' }, { size: 0.05, label: '0.050' }], totalLabel: '1.2519 in' },
+      368,
+    );
+    expect(phone.stacks.map((s) => s.title)).toEqual(['Fewest: 4 blocks', 'Last digit: 4 blocks']);
+    expect(phone.narrow).toBe(true);
+    // At ~6.8 px a character (12 px semibold headings) the headings' halves do not meet; at ~7.5 px
+    // (13 px labels) "0.1009" ends inside the 368 wide drawing.
+    const [a, b] = phone.stacks;
+    expect(a!.titleX + ('Fewest: 4 blocks'.length * 6.8) / 2).toBeLessThan(b!.titleX - ('Last digit: 4 blocks'.length * 6.8) / 2);
+    expect(Math.max(...b!.pieces.map((p) => p.labelX)) + 6 * 7.5).toBeLessThan(368);
+  });
+
   it('should draw one centred column when the last-digit method gets stuck', () => {
     const one = gaugeStackScene({ ...INPUT, lastDigit: null }, 600);
     expect(one.stacks.length).toBe(1);

@@ -48,6 +48,8 @@ export interface GaugeStackScene {
   readonly viewBox: string;
   readonly height: number;
   readonly titleY: number;
+  /** Laid out for a phone: the headings in their short form and smaller. */
+  readonly narrow: boolean;
   readonly stacks: readonly DrawnStack[];
   readonly totalDim: DimensionGeometry;
   readonly baseLine: string;
@@ -57,6 +59,8 @@ const TOP = 48;
 const BOTTOM = 36;
 const LABEL_GAP = 16;
 const LEADER = 30;
+/** Below this width (view units = CSS pixels) the two stacks are laid out for a phone. */
+const NARROW = 520;
 
 /**
  * Lays out the fewest-blocks stack beside the last-digit-method stack, each block as tall as its
@@ -69,7 +73,9 @@ export function gaugeStackScene(input: GaugeStackSceneInput, width: number): Gau
   const base = height - BOTTOM;
   const scale = input.target > 0 ? (height - TOP - BOTTOM) / input.target : 0;
   const colW = Math.min(110, width * 0.18);
-  const centres = input.lastDigit ? [width * 0.33, width * 0.72] : [width * 0.5];
+  // On a narrow screen the columns move left so the right-hand labels stay inside the drawing.
+  const narrow = width < NARROW;
+  const centres = input.lastDigit ? (narrow ? [width * 0.3, width * 0.66] : [width * 0.33, width * 0.72]) : [width * 0.5];
 
   const column = (pieces: readonly GaugeBlockPiece[], centre: number, anchor: 'start' | 'end', title: string): DrawnStack => {
     const left = centre - colW / 2;
@@ -106,13 +112,15 @@ export function gaugeStackScene(input: GaugeStackSceneInput, width: number): Gau
 
   const count = (pieces: readonly GaugeBlockPiece[]) => `${pieces.length} ${pieces.length === 1 ? 'block' : 'blocks'}`;
   const stacks = [column(input.fewest, centres[0], 'end', `Fewest: ${count(input.fewest)}`)];
-  if (input.lastDigit) stacks.push(column(input.lastDigit, centres[1], 'start', `Last-digit method: ${count(input.lastDigit)}`));
+  // The two headings fit side by side on a narrow screen in their short form.
+  if (input.lastDigit) stacks.push(column(input.lastDigit, centres[1], 'start', `${narrow ? 'Last digit' : 'Last-digit method'}: ${count(input.lastDigit)}`));
 
   const right0 = centres[0] + colW / 2;
   const gap = input.lastDigit ? centres[1] - colW / 2 - right0 : 60;
   const top = base - input.target * scale;
   return {
     viewBox: `0 0 ${round2(width)} ${height}`,
+    narrow,
     height,
     titleY: 24,
     stacks,
