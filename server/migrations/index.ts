@@ -7,6 +7,7 @@ import * as batchRuns from './20261201-0503-batch-runs';
 import * as trainingAndTeamMail from './20261201-0601-training-and-team-mail';
 import * as setupListIndexes from './20261201-0701-setup-list-indexes';
 import * as batchPartCorrections from './20261203-0801-batch-part-corrections';
+import * as setupReleasedVersion from './20261204-0901-setup-released-version';
 
 export interface Migration {
   readonly name: string;
@@ -24,4 +25,5 @@ export const migrations: readonly Migration[] = [
   { name: '20261201-0503-batch-runs', ...batchRuns },
   { name: '20261201-0701-setup-list-indexes', ...setupListIndexes },
   { name: '20261203-0801-batch-part-corrections', ...batchPartCorrections },
+  { name: '20261204-0901-setup-released-version', ...setupReleasedVersion },
 ];

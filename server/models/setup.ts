@@ -18,6 +18,8 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
   declare checks: CreationOptional<SetupCheck[]>;
   declare releasedAt: CreationOptional<Date | null>;
   declare releasedById: CreationOptional<number | null>;
+  /** The version last released (kept while a revision of it is a draft), or null if never released. */
+  declare releasedVersion: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -39,6 +41,7 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
       ownerName: this.owner?.name ?? null,
       releasedAt: this.releasedAt ? this.releasedAt.toISOString() : null,
       releasedByName: this.releasedBy?.name ?? null,
+      releasedVersion: this.releasedVersion ?? null,
       createdAt: this.createdAt.toISOString(),
       updatedAt: this.updatedAt.toISOString(),
     };
@@ -79,6 +82,7 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
         },
         releasedAt: { type: DataTypes.DATE, allowNull: true },
         releasedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        releasedVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

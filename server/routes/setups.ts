@@ -156,7 +156,7 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
         throw new HttpError(422, `This set-up does not compute, so it cannot be released: ${results.error}. Open it in its calculator, correct the inputs and save it again.`);
       }
     }
-    const stamp = to === 'released' ? { releasedAt: new Date(), releasedById: user.id } : {};
+    const stamp = to === 'released' ? { releasedAt: new Date(), releasedById: user.id, releasedVersion: setup.version + 1 } : {};
     const stale = await sequelize.transaction(async (transaction) => {
       const [count] = await Setup.update({ status: to, version: setup.version + 1, ...stamp }, { where: { id: setup.id, version: setup.version }, transaction });
       if (count === 0) return true;

@@ -20,12 +20,13 @@ export async function findVisibleSetup(id: number, user: User): Promise<Setup> {
 
 /**
  * Who may see a team set-up: leads and admins see all; machinists and apprentices see released
- * and archived team set-ups and their own drafts.
+ * and archived team set-ups, drafts revising a set-up that was released (its runs and sheet are in
+ * use), and their own drafts.
  */
-export function canSeeSetup(user: User, setup: Pick<Setup, 'teamId' | 'ownerId' | 'status'>): boolean {
+export function canSeeSetup(user: User, setup: Pick<Setup, 'teamId' | 'ownerId' | 'status' | 'releasedVersion'>): boolean {
   if (setup.teamId !== user.teamId) return false;
   if (user.role === 'admin' || user.role === 'lead') return true;
-  return setup.ownerId === user.id || setup.status !== 'draft';
+  return setup.ownerId === user.id || setup.status !== 'draft' || (setup.releasedVersion ?? null) !== null;
 }
 
 /** Who may change or delete a set-up: its owner, or a lead or admin of the team. */

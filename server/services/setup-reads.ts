@@ -53,7 +53,7 @@ function listWhere(user: User, f: SetupListFilter): { sql: string; params: Array
   const params: Array<string | number> = [user.teamId];
   // Visibility in SQL, so totals and pages count only what this user may see.
   if (user.role !== 'admin' && user.role !== 'lead') {
-    parts.push("(s.status <> 'draft' OR s.ownerId = ?)");
+    parts.push("(s.status <> 'draft' OR s.releasedVersion IS NOT NULL OR s.ownerId = ?)");
     params.push(user.id);
   }
   if (f.kind) { parts.push('s.kind = ?'); params.push(f.kind); }
@@ -83,7 +83,7 @@ function isoText(column: string): string {
 const SETUP_JSON = `JSON_OBJECT('id', s.id, 'name', s.name, 'kind', s.kind, 'inputs', JSON_EXTRACT(s.inputs, '$'),
   'notes', s.notes, 'job', s.job, 'status', s.status, 'version', s.version,
   'checks', IF(s.checks IS NULL OR s.checks = '', JSON_ARRAY(), JSON_EXTRACT(s.checks, '$')),
-  'ownerId', s.ownerId, 'ownerName', o.name, 'releasedAt', ${isoText('s.releasedAt')}, 'releasedByName', r.name,
+  'ownerId', s.ownerId, 'ownerName', o.name, 'releasedAt', ${isoText('s.releasedAt')}, 'releasedByName', r.name, 'releasedVersion', s.releasedVersion,
   'createdAt', ${isoText('s.createdAt')}, 'updatedAt', ${isoText('s.updatedAt')})`;
 
 /** A JSON text ready to send as it is (server/routes/send-json.ts). */
@@ -127,9 +127,9 @@ export async function listOwners(sequelize: Sequelize, user: User): Promise<Setu
 
 /** One team set-up this user may see, as the JSON text of its `SetupDto`, or null (the caller answers 404 without a hint). */
 export async function readVisibleSetupJson(sequelize: Sequelize, id: number, user: User): Promise<JsonText | null> {
-  const rows = await selectRows<{ j: string; teamId: number; ownerId: number; status: SetupStatus }>(
+  const rows = await selectRows<{ j: string; teamId: number; ownerId: number; status: SetupStatus; releasedVersion: number | null }>(
     sequelize,
-    `SELECT CAST(${SETUP_JSON} AS CHAR) AS j, s.teamId, s.ownerId, s.status FROM setups s ${PEOPLE} WHERE s.id = ? AND s.teamId = ? LIMIT 1`,
+    `SELECT CAST(${SETUP_JSON} AS CHAR) AS j, s.teamId, s.ownerId, s.status, s.releasedVersion FROM setups s ${PEOPLE} WHERE s.id = ? AND s.teamId = ? LIMIT 1`,
     [id, user.teamId],
   );
   const row = rows[0];

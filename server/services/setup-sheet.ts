@@ -300,7 +300,9 @@ export async function renderSetupSheet({ setup, attachments, storage, link, boxe
   write(doc, `${kindLabel(setup.kind)} · status ${setup.status.toUpperCase()} (${released}) · version ${setup.version} · job ${setup.job ?? '-'} · owner ${setup.owner?.name ?? '-'}`);
   if (setup.status !== 'released') {
     doc.moveDown(0.3).fillColor('#b3261e');
-    write(doc, 'NOT RELEASED: check with a lead before running this set-up.', { weight: 'bold' });
+    write(doc, setup.status === 'draft' && setup.releasedVersion
+      ? `NOT RELEASED: a revision of version ${setup.releasedVersion}, which was released; check with a lead before running it.`
+      : 'NOT RELEASED: check with a lead before running this set-up.', { weight: 'bold' });
   }
 
   const sketch = sketchFor(setup.kind, inputs, results);

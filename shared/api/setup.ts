@@ -57,6 +57,11 @@ export interface SetupDto {
   /** When the current content was released, or null while a draft. */
   releasedAt: string | null;
   releasedByName: string | null;
+  /**
+   * The version last released, or null if never. A draft with one is a revision of a released
+   * set-up: the team still reads it (its runs and sheet are in use) until a lead releases it again.
+   */
+  releasedVersion: number | null;
   createdAt: string;
   updatedAt: string;
 }

@@ -262,10 +262,16 @@ describe('set-up library', () => {
       const s = await create(c.machinist, { name: 'Released wedge', checks }).expect(201);
       await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
       const edited = await put(c.machinist, s.body.id, { name: 'Released wedge', inputs: { ...taper, angle: '8' }, checks, version: 2 }).expect(200);
-      expect(edited.body).toMatchObject({ status: 'draft', version: 3, releasedAt: null });
-      await c.other.agent.get(`/api/setups/${s.body.id}`).expect(404);
+      expect(edited.body).toMatchObject({ status: 'draft', version: 3, releasedAt: null, releasedVersion: 2 });
+      // The team still reads it while it is revised (its runs and sheet are in use), marked a draft.
+      const seen = await c.other.agent.get(`/api/setups/${s.body.id}`).expect(200);
+      expect(seen.body).toMatchObject({ status: 'draft', version: 3, releasedVersion: 2 });
+      const listed = await c.other.agent.get('/api/setups?q=Released%20wedge').expect(200);
+      expect(listed.body.setups.map((x: { id: number; releasedVersion: number | null }) => [x.id, x.releasedVersion])).toEqual([[s.body.id, 2]]);
+      // Another member may read it, not change it.
+      await put(c.other, s.body.id, { name: 'Released wedge', inputs: taper, checks, version: 3 }).expect(403);
       const again = await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
-      expect(again.body).toMatchObject({ status: 'released', version: 4 });
+      expect(again.body).toMatchObject({ status: 'released', version: 4, releasedVersion: 4 });
       // An edit that changes nothing is not a new revision.
       const same = await put(c.machinist, s.body.id, { name: 'Released wedge', inputs: { ...taper, angle: '8' }, checks, version: 4 }).expect(200);
       expect(same.body).toMatchObject({ status: 'released', version: 4 });

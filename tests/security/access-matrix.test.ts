@@ -142,9 +142,10 @@ beforeAll(async () => {
   const post = (path: string, body: object) => lead.agent.post(path).set('X-CSRF-Token', lead.token).send(body);
   const checks = [{ key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', plus: '0.0010', minus: '0.0010' }];
   const setup = await post('/api/setups', { name: 'Matrix wedge', kind: 'taper', inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' }, checks }).expect(201);
-  await post(`/api/setups/${setup.body.id}/release`, {}).expect(200);
   const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 30, g: 110, b: 140 } } }).png().toBuffer();
   const attachment = await lead.agent.post(`/api/setups/${setup.body.id}/attachments`).set('X-CSRF-Token', lead.token).attach('file', png, { filename: 'dot.png', contentType: 'image/png' }).expect(201);
+  // Released with its file (a file added to a released set-up makes it a draft again).
+  await post(`/api/setups/${setup.body.id}/release`, {}).expect(200);
   const batch = await post('/api/batches', { setupId: setup.body.id, partCount: 3 }).expect(201);
   const gauge = await c.admin.agent.post('/api/inventories/gauge-sets').set('X-CSRF-Token', c.admin.token).send({ name: 'Matrix 81', standardSet: 'inch-81' }).expect(201);
   const angle = await c.admin.agent.post('/api/inventories/angle-sets').set('X-CSRF-Token', c.admin.token).send({ name: 'Matrix angles', standardSet: ANGLE_SET }).expect(201);

@@ -120,9 +120,10 @@ beforeAll(async () => {
   const post = (path: string, body: object) => c.admin.agent.post(path).set('X-CSRF-Token', c.admin.token).send(body);
   const checks = [{ key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', plus: '0.0010', minus: '0.0010' }];
   const setup = await post('/api/setups', { name: 'Fuzz wedge', kind: 'taper', inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' }, checks }).expect(201);
-  await post(`/api/setups/${setup.body.id}/release`, {}).expect(200);
   const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: { r: 0, g: 0, b: 0 } } }).png().toBuffer();
   const attachment = await c.admin.agent.post(`/api/setups/${setup.body.id}/attachments`).set('X-CSRF-Token', c.admin.token).attach('file', png, 'a.png').expect(201);
+  // Released with its file (a file added to a released set-up makes it a draft again).
+  await post(`/api/setups/${setup.body.id}/release`, {}).expect(200);
   const batch = await post('/api/batches', { setupId: setup.body.id, partCount: 50 }).expect(201);
   await post(`/api/batches/${batch.body.id}/parts`, { values: { 'end-thickness': '0.5854' } }).expect(201);
   const gauge = await post('/api/inventories/gauge-sets', { name: 'Fuzz 81', standardSet: 'inch-81' }).expect(201);

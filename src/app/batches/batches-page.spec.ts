@@ -12,7 +12,7 @@ const ME: AuthUser = { id: 7, email: 'm@example.test', name: 'Ines', role: 'mach
 const WEDGE: SetupDto = {
   id: 4, name: 'Fixture wedge', kind: 'taper', inputs: {}, notes: '', job: 'KL-1', status: 'released', version: 2, ownerId: 7, ownerName: 'Ines',
   checks: [{ key: 'end-thickness', label: 'End thickness', unit: 'in', nominal: '0.5854', plus: '0.0010', minus: '0.0010' }],
-  releasedAt: null, releasedByName: null, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z',
+  releasedAt: null, releasedByName: null, releasedVersion: 1, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z',
 };
 
 describe('BatchesPage', () => {

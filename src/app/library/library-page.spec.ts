@@ -14,7 +14,7 @@ const ME: AuthUser = { id: 7, email: 'm@example.test', name: 'Ines', role: 'mach
 function setup(id: number, name: string, status: SetupDto['status'] = 'released'): SetupDto {
   return {
     id, name, kind: 'taper', inputs: {}, notes: '', job: 'KL-1', status, version: 1, checks: [], ownerId: 7, ownerName: 'Ines',
-    releasedAt: null, releasedByName: null, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z',
+    releasedAt: null, releasedByName: null, releasedVersion: null, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z',
   };
 }
 
