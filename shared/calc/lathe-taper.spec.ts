@@ -76,6 +76,24 @@ describe('calculateLatheTaper', () => {
     ])('%s should have the half angle %s° (SCI catalogue via REFERENCE.md §4.2)', (id, half) => {
       expect(lathe({ unit: 'in', standard: id }).halfAngleDeg).toBe(half);
     });
+    it.each([
+      ['morse-0', '2.0000'],
+      ['morse-1', '2.1250'],
+      ['morse-2', '2.5625'],
+      ['morse-3', '3.1875'],
+      ['morse-4', '4.0625'],
+      ['morse-5', '5.1875'],
+      ['morse-6', '7.2500'],
+      ['morse-7', '10.0000'],
+    ])('%s should be %s in long, the plug depth P as published (Machinery\'s Handbook "Morse Taper Shanks", via sizes.com)', (id, length) => {
+      const r = lathe({ unit: 'in', standard: id });
+      expect(r.length).toBe(length);
+      expect(r.steps.find((st) => st.label === 'Taper length')?.formula).toMatch(/as published/);
+    });
+    it('should work out a Brown & Sharpe length from its diameters, its table giving lengths only to 0.01 in (derived)', () => {
+      // (0.2392 − 0.2000) × 12 / 0.5020 = 0.93705 in; the vintagemachinery table prints .94 (REFERENCE.md §4.3).
+      expect(lathe({ unit: 'in', standard: 'brown-sharpe-1' }).length).toBe('0.9371');
+    });
     it('should give Jarno half angle 1°25\'56" (US Army OD1645; atan(0.6/24), derived)', () => {
       expect(lathe({ unit: 'in', standard: 'jarno-7' }).halfAngleDms).toBe('1°25\'56"');
     });
@@ -103,6 +121,20 @@ describe('calculateLatheTaper', () => {
       expect(calculateLatheTaper({ unit: 'in', standard: 'morse-99' }).ok).toBe(false);
       expect(calculateLatheTaper({ unit: 'in' }).ok).toBe(false);
       expect(calculateLatheTaper({ unit: 'in', includedAngle: 180 }).ok).toBe(false);
+    });
+    it('should name fields in words in its messages', () => {
+      const fields = (input: Record<string, unknown>) => {
+        const r = calculateLatheTaper(input);
+        if (r.ok) throw new Error('expected a refusal');
+        return r.fields;
+      };
+      expect(fields({ unit: 'in', largeDiameter: 1 }).smallDiameter).toBe(
+        'is required: give the taper (as a taper per foot, an angle, a ratio or a standard taper) or both diameters and the length',
+      );
+      expect(fields({ unit: 'in', taperPerFoot: 1, includedAngle: 3 }).includedAngle).toBe('conflicts with the taper per foot: define the taper one way only');
+      expect(fields({ unit: 'in', taperPerFoot: 1, largeDiameter: 1, smallDiameter: 0.9, length: 2 }).length).toBe(
+        'leave one of the large diameter, small diameter and taper length empty when the taper is given',
+      );
     });
     it('should never throw (property)', () => {
       fc.assert(fc.property(fc.anything(), (x) => void expect(typeof calculateLatheTaper(x).ok).toBe('boolean')));

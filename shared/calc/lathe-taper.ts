@@ -71,6 +71,16 @@ export const LATHE_TAPER_CAUTIONS: readonly string[] = [
 
 const AREA = 'Lathe taper';
 
+/** The ways of giving the taper, in words for messages. */
+const DEFINER_WORDS = {
+  taperPerFoot: 'the taper per foot',
+  taperPerInch: 'the taper per inch',
+  ratio: 'the ratio',
+  includedAngle: 'the included angle',
+  halfAngle: 'the half angle',
+  standard: 'the standard taper',
+} as const;
+
 /**
  * Converts and completes a lathe taper: give one of taperPerFoot, taperPerInch, ratio,
  * includedAngle, halfAngle or standard (optionally with two of largeDiameter, smallDiameter,
@@ -86,7 +96,7 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
     const len = (x: Dec) => formatLength(x, unit);
     const steps: Step[] = [];
     const definers = (['taperPerFoot', 'taperPerInch', 'ratio', 'includedAngle', 'halfAngle', 'standard'] as const).filter((f) => p[f] !== undefined);
-    if (definers.length > 1) return invalid(AREA, definers[1], `conflicts with ${definers[0]}: define the taper one way only`);
+    if (definers.length > 1) return invalid(AREA, definers[1], `conflicts with ${DEFINER_WORDS[definers[0]]}: define the taper one way only`);
     let D = p.largeDiameter;
     let d = p.smallDiameter;
     let l = p.length;
@@ -96,7 +106,7 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
     if (definer === undefined) {
       if (!D || !d || !l) {
         const missing = !D ? 'largeDiameter' : !d ? 'smallDiameter' : 'length';
-        return invalid(AREA, missing, 'is required: give a taper (taperPerFoot, includedAngle, …) or both diameters and the length');
+        return invalid(AREA, missing, 'is required: give the taper (as a taper per foot, an angle, a ratio or a standard taper) or both diameters and the length');
       }
       if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than the small diameter');
       k = D.minus(d).div(l);
@@ -127,7 +137,17 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
           D = from(standard.largeDiameter);
           d = from(standard.smallDiameter);
           l = from(standard.length);
-          if (D && d && l) l = undefined;
+          if (D && d && l) {
+            // A length from a primary table (Morse plug depth, Jarno N/2) is shown as published: worked
+            // back from diameters rounded to 0.001 in it can miss by 0.0001 in (Morse No. 5: 5.1876).
+            // A secondary table's lengths (Brown & Sharpe, to 0.01 in) are coarser than its diameters,
+            // so those are worked out below.
+            if (standard.status === 'published') {
+              steps.push(step('Taper length', `l (${standard.name}, as published)`, `l = ${standard.length} ${standard.unit}`, len(l), unit));
+            } else {
+              l = undefined;
+            }
+          }
         }
       }
       if (D && d && !l) {

@@ -41,6 +41,75 @@ describe('calculateOverPins', () => {
     });
   });
 
+  describe('readings no dovetail can give', () => {
+    const fields = (input: Record<string, unknown>) => {
+      const r = calculateOverPins(input);
+      if (r.ok) throw new Error('expected a refusal');
+      return r.fields;
+    };
+    const twoRolls = { kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: '0.375', measurement1: '2.2745', rollDiameter2: '0.500' };
+
+    it('should refuse a second reading that makes the corner width negative, naming the readings to check', () => {
+      // Derived from REFERENCE.md §5.1 (x = a + D·k): k = (9.000 − 2.2745) / (0.500 − 0.375) = 53.804,
+      // a = x₁ − D₁·k = 2.2745 − 0.375 × 53.804 = −17.9020 in: no dovetail has a negative width.
+      const f = fields({ ...twoRolls, measurement2: '9.000' });
+      expect(f.measurement2).toBe(
+        'with x₁ 2.2745 gives a corner width of -17.9020 in (it must be more than 0): check x₂ and x₁, and that each reading goes with its roll',
+      );
+    });
+
+    it('should refuse readings that give an angle outside 10°–80°, and call a female dovetail\'s readings y', () => {
+      // Derived: for α = 8°, k = 1 + cot 4° = 15.3007; with D₁ 0.25 and x₁ 5 the width 5 − 0.25k = 1.1748 is fine,
+      // and x₂ = 5 + 0.25k = 8.8252: the angle alone gives the slip away.
+      const f = fields({ kind: 'dovetail-angle', unit: 'in', side: 'male', rollDiameter1: '0.25', measurement1: '5', rollDiameter2: '0.5', measurement2: '8.8252' });
+      expect(f.measurement2).toMatch(/^with x₁ 5\.0000 gives a dovetail angle of 8°00'0\d", outside 10°–80° .+check x₂ and x₁/);
+      // Female 60°: y₂ = y₁ − ΔD·k; y₁ − y₂ below ΔD gives k ≤ 1 (derived).
+      const g = fields({ kind: 'dovetail-angle', unit: 'in', side: 'female', rollDiameter1: '0.25', measurement1: '1', rollDiameter2: '0.5', measurement2: '0.9' });
+      expect(g.measurement2).toMatch(/^does not fit a dovetail with y₁/);
+    });
+
+    it('should still find a 60° dovetail from the demo readings (REFERENCE.md §5.1, derived)', () => {
+      const v = pins({ ...twoRolls, measurement2: '2.6160' });
+      expect(v.width).toBe('1.2500');
+      expect(v.angleDeg.startsWith('60.00')).toBe(true);
+    });
+
+    it('should refuse a dovetail angle outside 10°–80°, saying " is seconds when it was typed (common practice range)', () => {
+      const dovetail = (angle: unknown) => ({ kind: 'dovetail', unit: 'in', side: 'male', angle, rollDiameter: '0.375', width: '1.250' });
+      expect(fields(dovetail('0.25"')).angle).toBe(
+        'must be from 10° to 80° for a dovetail, got 0°00\'00.25" (in an angle " marks seconds of arc, not inches): dovetails are usually 45°, 55° or 60° from the base (common practice)',
+      );
+      expect(fields(dovetail('9.99')).angle).toMatch(/^must be from 10° to 80° for a dovetail, got 9°59'24":/);
+      expect(fields(dovetail('80.01')).angle).toMatch(/got 80°00'36"/);
+      expect(fields(dovetail('89')).angle).toMatch(/must be from 10° to 80°/);
+      // The ends of the range are answered, with the warning that they are unusual.
+      expect(value(calculateOverPins(dovetail('10'))).warnings).toHaveLength(1);
+      expect(value(calculateOverPins(dovetail('80'))).warnings).toHaveLength(1);
+    });
+
+    it('should name fields in words, never by their request names', () => {
+      const messages = [
+        fields({ ...twoRolls, rollDiameter2: '0.375', measurement2: '2.6' }).rollDiameter2,
+        fields({ kind: 'taper-two-heights', unit: 'in', measurement1: 1, measurement2: 1, heightDifference: 1 }).measurement2,
+        fields({ kind: 'taper-discs', unit: 'in', largeDisc: 0.4, smallDisc: 0.5, centreDistance: 3 }).largeDisc,
+        fields({ kind: 'taper-discs', unit: 'in', largeDisc: 1, smallDisc: 0.5 }).centreDistance,
+        fields({ kind: 'taper-balls', unit: 'in', largeBall: 0.5, smallBall: 1, largeBallDepth: 0, smallBallDepth: 2 }).largeBall,
+        fields({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: 0.375 }).width,
+        fields({ kind: 'v-groove', unit: 'in', includedAngle: 90, pinDiameter: 0.5 }).grooveWidth,
+      ];
+      expect(messages).toEqual([
+        'must differ from the first roll diameter D₁',
+        'equals the lower reading M₁: the sides are parallel (no taper)',
+        'must be larger than the small disc d',
+        'give exactly one of the centre distance, the taper per foot and the angle',
+        'must be larger than the small ball',
+        'give exactly one of the corner width and the reading over (or between) the rolls',
+        'give exactly one of the groove width and the pin height over the surface',
+      ]);
+      for (const m of messages) expect(m).not.toMatch(/[a-z][A-Z]|measurement\d/);
+    });
+  });
+
   describe('tapers (REFERENCE.md §5.2)', () => {
     it('should read 3°34\'35" half angle, TPF 1.500 from .745 and .620 one inch apart (hobby-machinist, extension derived)', () => {
       const r = value(calculateOverPins({ kind: 'taper-two-heights', unit: 'in', measurement1: '.745', measurement2: '.620', heightDifference: 1 }));

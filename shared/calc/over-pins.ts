@@ -36,8 +36,32 @@ export interface OverPinsResult {
 
 const AREA = 'Over pins';
 
+/**
+ * Dovetail angles (flank to base) accepted, in degrees. Dovetails in use run about 30°–75°, most
+ * often 45°, 55° or 60° (common practice); 30°–75° only earns a warning. Outside 10°–80° the
+ * figure is taken for a slip (0.25" is read as a quarter of a second of arc; an angle taken from
+ * the wrong face): a 5° flank would need the rolls 12 diameters outside the corners, and past 80°
+ * the flank is near enough square that the rolls barely register the angle (derived).
+ */
+export const DOVETAIL_ANGLE_RANGE = { min: 10, max: 80 } as const;
+
 function cot(deg: Dec): Dec {
   return new Dec(1).div(tanDeg(deg));
+}
+
+/** Whether a dovetail angle lies outside {@link DOVETAIL_ANGLE_RANGE}. */
+function outsideDovetailRange(angle: Dec): boolean {
+  return angle.lt(DOVETAIL_ANGLE_RANGE.min) || angle.gt(DOVETAIL_ANGLE_RANGE.max);
+}
+
+/** An angle for a message: to the second, or to the hundredth of a second when under a minute. */
+function shownAngle(angle: Dec): string {
+  return formatDms(angle, angle.lt(new Dec(1).div(60)) ? 2 : 0);
+}
+
+/** Whether typed angle text carries a seconds mark (" ″ ''), which a person may have meant as inches. */
+function hasSecondsMark(typed: unknown): boolean {
+  return typeof typed === 'string' && /["″”]|''/.test(typed);
 }
 
 /**
@@ -77,9 +101,18 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
 
     switch (p.kind) {
       case 'dovetail': {
+        if (outsideDovetailRange(p.angle)) {
+          const typed = (input as { angle?: unknown }).angle;
+          const mark = hasSecondsMark(typed) ? ' (in an angle " marks seconds of arc, not inches)' : '';
+          return invalid(
+            AREA,
+            'angle',
+            `must be from ${DOVETAIL_ANGLE_RANGE.min}° to ${DOVETAIL_ANGLE_RANGE.max}° for a dovetail, got ${shownAngle(p.angle)}${mark}: dovetails are usually 45°, 55° or 60° from the base (common practice)`,
+          );
+        }
         const k = cot(p.angle.div(2)).plus(1);
         steps.push(step('Roll constant', 'k = 1 + cot(α/2)', `k = 1 + cot(${formatDms(p.angle)} / 2)`, fixedText(k, 7), ''));
-        if ((p.width === undefined) === (p.measurement === undefined)) return invalid(AREA, 'width', 'give either width or measurement');
+        if ((p.width === undefined) === (p.measurement === undefined)) return invalid(AREA, 'width', 'give exactly one of the corner width and the reading over (or between) the rolls');
         const male = p.side === 'male';
         if (p.width) {
           const m = male ? p.width.plus(p.rollDiameter.mul(k)) : p.width.minus(p.rollDiameter.mul(k));
@@ -114,16 +147,34 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       }
       case 'dovetail-angle': {
         const dD = p.rollDiameter2.minus(p.rollDiameter1);
-        if (dD.isZero()) return invalid(AREA, 'rollDiameter2', 'must differ from rollDiameter1');
+        if (dD.isZero()) return invalid(AREA, 'rollDiameter2', 'must differ from the first roll diameter D₁');
         const male = p.side === 'male';
+        const [m1, m2] = male ? ['x₁', 'x₂'] : ['y₁', 'y₂'];
         const dM = male ? p.measurement2.minus(p.measurement1) : p.measurement1.minus(p.measurement2);
         const k = dM.div(dD);
         steps.push(step('Roll constant', male ? 'k = (x₂ − x₁) / (D₂ − D₁)' : 'k = (y₁ − y₂) / (D₂ − D₁)', `k = ${len(dM)} / ${len(dD)}`, fixedText(k, 7), ''));
-        if (k.lte(1)) return impossible(AREA, 'measurement2', 'the readings do not fit a dovetail (1 + cot(α/2) must exceed 1): check which reading goes with which roll');
+        if (k.lte(1)) return impossible(AREA, 'measurement2', `does not fit a dovetail with ${m1} (1 + cot(α/2) must exceed 1): check which reading goes with which roll`);
         const half = atanDeg(new Dec(1).div(k.minus(1)));
-        putAngle('angleDeg', half.mul(2));
-        steps.push(step('Dovetail angle', 'α = 2 · atan(1 / (k − 1))', `α = 2 · atan(1 / ${fixedText(k.minus(1), 7)})`, values.angleDeg, '°'));
+        const angle = half.mul(2);
         const w = male ? p.measurement1.minus(p.rollDiameter1.mul(k)) : p.measurement1.plus(p.rollDiameter1.mul(k));
+        // A reading slip (a digit dropped or added) shows as a corner width of nothing or less, or an
+        // angle no dovetail has: refuse rather than draw it. Both readings enter k, so name both.
+        if (w.lte(0)) {
+          return impossible(
+            AREA,
+            'measurement2',
+            `with ${m1} ${len(p.measurement1)} gives a corner width of ${len(w)} ${unit} (it must be more than 0): check ${m2} and ${m1}, and that each reading goes with its roll`,
+          );
+        }
+        if (outsideDovetailRange(angle)) {
+          return impossible(
+            AREA,
+            'measurement2',
+            `with ${m1} ${len(p.measurement1)} gives a dovetail angle of ${shownAngle(angle)}, outside ${DOVETAIL_ANGLE_RANGE.min}°–${DOVETAIL_ANGLE_RANGE.max}° (dovetails are usually 45°, 55° or 60°): check ${m2} and ${m1}, and that each reading goes with its roll`,
+          );
+        }
+        putAngle('angleDeg', angle);
+        steps.push(step('Dovetail angle', 'α = 2 · atan(1 / (k − 1))', `α = 2 · atan(1 / ${fixedText(k.minus(1), 7)})`, values.angleDeg, '°'));
         putLength('width', w);
         steps.push(step('Sharp-corner width', male ? 'a = x₁ − D₁ · k' : 'b = y₁ + D₁ · k', `${len(p.measurement1)} ${male ? '−' : '+'} ${len(p.rollDiameter1)} · ${fixedText(k, 7)}`, len(w), unit));
         break;
@@ -133,7 +184,7 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
         const r = p.pinDiameter.div(2);
         const centreAboveApex = r.div(sinDeg(halfBeta));
         steps.push(step('Pin centre above the apex', 'c = r / sin(β/2)', `c = ${len(r)} / sin ${formatDms(halfBeta)}`, len(centreAboveApex), unit));
-        if ((p.grooveWidth === undefined) === (p.measurement === undefined)) return invalid(AREA, 'grooveWidth', 'give either grooveWidth or measurement');
+        if ((p.grooveWidth === undefined) === (p.measurement === undefined)) return invalid(AREA, 'grooveWidth', 'give exactly one of the groove width and the pin height over the surface');
         let apexDepth: Dec;
         if (p.grooveWidth) {
           apexDepth = p.grooveWidth.div(2).mul(cot(halfBeta));
@@ -162,7 +213,7 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       }
       case 'taper-two-heights': {
         const dM = p.measurement2.minus(p.measurement1);
-        if (dM.isZero()) return impossible(AREA, 'measurement2', 'equals measurement1: the sides are parallel (no taper)');
+        if (dM.isZero()) return impossible(AREA, 'measurement2', 'equals the lower reading M₁: the sides are parallel (no taper)');
         const half = atanDeg(dM.abs().div(p.heightDifference.mul(2)));
         steps.push(step('Half angle', 'tan(α/2) = |M₂ − M₁| / (2 · ΔH)', `tan(α/2) = ${len(dM.abs())} / (2 · ${len(p.heightDifference)})`, formatDegrees(half), '°'));
         taperFromHalf(half);
@@ -171,9 +222,9 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       }
       case 'taper-discs': {
         const side = p.reference === 'side';
-        if (p.largeDisc.lte(p.smallDisc)) return invalid(AREA, 'largeDisc', 'must be larger than smallDisc');
+        if (p.largeDisc.lte(p.smallDisc)) return invalid(AREA, 'largeDisc', 'must be larger than the small disc d');
         const defined = [p.centreDistance, p.taperPerFoot, p.includedAngle].filter((v) => v !== undefined).length;
-        if (defined !== 1) return invalid(AREA, 'centreDistance', 'give exactly one of centreDistance, taperPerFoot, includedAngle');
+        if (defined !== 1) return invalid(AREA, 'centreDistance', 'give exactly one of the centre distance, the taper per foot and the angle');
         const halfDiff = p.largeDisc.minus(p.smallDisc).div(2);
         if (p.centreDistance) {
           const C = p.centreDistance;
@@ -213,7 +264,7 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       case 'taper-balls': {
         const R = p.largeBall.div(2);
         const r = p.smallBall.div(2);
-        if (R.lte(r)) return invalid(AREA, 'largeBall', 'must be larger than smallBall');
+        if (R.lte(r)) return invalid(AREA, 'largeBall', 'must be larger than the small ball');
         const centres = p.smallBallDepth.plus(r).minus(p.largeBallDepth.plus(R));
         steps.push(step('Centre distance of the balls', 's = (h₂ + r) − (h₁ + R)', `s = (${len(p.smallBallDepth)} + ${len(r)}) − (${len(p.largeBallDepth)} + ${len(R)})`, len(centres), unit));
         if (centres.lte(R.minus(r))) return impossible(AREA, 'smallBallDepth', 'puts the balls too close together for a taper: check the depths');

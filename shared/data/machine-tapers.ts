@@ -18,25 +18,36 @@ export interface MachineTaper {
   largeDiameter: string | null;
   /** Small-end diameter, when the source gives it. */
   smallDiameter: string | null;
-  /** Length of the taper, when the source gives it. */
+  /**
+   * Length of the taper, when the source gives it. For a 'published' taper the calculation shows it
+   * as given; a 'published-secondary' table's rounder lengths are worked out from the diameters.
+   */
   length: string | null;
-  /** Where the numbers come from. */
+  /** Where the numbers come from (for the tests and maintainers). */
   source: string;
+  /** What the page says the numbers rest on, in a machinist's words. */
+  basis: string;
   /** How well they are backed. */
   status: DataStatus;
 }
 
-const MORSE_SOURCE = 'Machinery\'s Handbook "Morse Taper Shanks" (engineersedge.com copy) and SCI General Catalog "Standard of Tapers — Morse Taper", REFERENCE.md §4.2';
-const MORSE: [string, string, string][] = [
-  // [TPF, gauge diameter A (in), small end of plug D (in)]
-  ['0.62460', '0.3561', '0.252'],
-  ['0.59858', '0.475', '0.369'],
-  ['0.59941', '0.700', '0.572'],
-  ['0.60235', '0.938', '0.778'],
-  ['0.62326', '1.231', '1.020'],
-  ['0.63151', '1.748', '1.475'],
-  ['0.62565', '2.494', '2.116'],
-  ['0.62400', '3.270', '2.750'],
+const MORSE_SOURCE =
+  'Machinery\'s Handbook "Morse Taper Shanks" (engineersedge.com copy; plug depth P as listed by sizes.com "Morse taper shanks and sockets") and SCI General Catalog "Standard of Tapers — Morse Taper", REFERENCE.md §4.2';
+/**
+ * Morse taper shanks. The plug depth P is the published fraction (2-9/16, 3-3/16 …), not worked
+ * back from A and D: those are rounded to 0.001 in, and (A − D) · 12 / TPF gives 5.1876 for No. 5
+ * and 7.2501 for No. 6 instead of 5-3/16 and 7-1/4.
+ */
+const MORSE: [string, string, string, string][] = [
+  // [TPF, gauge diameter A (in), small end of plug D (in), plug depth P (in)]
+  ['0.62460', '0.3561', '0.252', '2'],
+  ['0.59858', '0.475', '0.369', '2.125'],
+  ['0.59941', '0.700', '0.572', '2.5625'],
+  ['0.60235', '0.938', '0.778', '3.1875'],
+  ['0.62326', '1.231', '1.020', '4.0625'],
+  ['0.63151', '1.748', '1.475', '5.1875'],
+  ['0.62565', '2.494', '2.116', '7.25'],
+  ['0.62400', '3.270', '2.750', '10'],
 ];
 
 const BS_SOURCE = 'vintagemachinery.org wiki "Tapers" / "Dimensions of Standard Tapers", REFERENCE.md §4.3';
@@ -69,13 +80,14 @@ function jarno(n: number): MachineTaper {
     smallDiameter: new Dec(n).div(10).toString(),
     length: new Dec(n).div(2).toString(),
     source: 'US Army OD1645 (tpub Od16450080–0081): large end N/8, small end N/10, length N/2, 0.600 in/ft, REFERENCE.md §4.4',
+    basis: 'Jarno taper rule: large end N/8 in, small end N/10 in, length N/2 in, 0.600 in/ft',
     status: 'published',
   };
 }
 
 /** Standard machine tapers. */
 export const MACHINE_TAPERS: readonly MachineTaper[] = [
-  ...MORSE.map(([tpf, large, small], n): MachineTaper => ({
+  ...MORSE.map(([tpf, large, small, plugDepth], n): MachineTaper => ({
     id: `morse-${n}`,
     family: 'morse',
     name: `Morse No. ${n}`,
@@ -83,8 +95,9 @@ export const MACHINE_TAPERS: readonly MachineTaper[] = [
     taperPerFoot: tpf,
     largeDiameter: large,
     smallDiameter: small,
-    length: null,
+    length: plugDepth,
     source: MORSE_SOURCE,
+    basis: 'Morse taper shank dimensions as published in Machinery\'s Handbook ("Morse Taper Shanks")',
     status: 'published',
   })),
   ...BROWN_SHARPE.map(([n, large, small, length, tpf]): MachineTaper => ({
@@ -97,6 +110,7 @@ export const MACHINE_TAPERS: readonly MachineTaper[] = [
     smallDiameter: small,
     length,
     source: BS_SOURCE,
+    basis: 'Brown & Sharpe taper table (diameters given to 0.01 in, so the length is worked out from them)',
     status: 'published-secondary',
   })),
   ...Array.from({ length: 19 }, (_, i) => jarno(i + 2)),
@@ -110,6 +124,7 @@ export const MACHINE_TAPERS: readonly MachineTaper[] = [
     smallDiameter: null,
     length: null,
     source: 'US Army OD1645 (3-1/2 in/ft); Machinery\'s Handbook ("included angle … over 16 degrees"), REFERENCE.md §4.5',
+    basis: '7:24 steep taper (3-1/2 in per foot), as published for machine spindles',
     status: 'published',
   },
   {
@@ -122,6 +137,7 @@ export const MACHINE_TAPERS: readonly MachineTaper[] = [
     smallDiameter: null,
     length: null,
     source: 'US Army OD1645 (tpub Od16450081), sizes 7/0 to 10, REFERENCE.md §4.5',
+    basis: 'Standard taper pins, 1/4 in per foot on the diameter',
     status: 'published',
   },
   ...[4, 6, 80, 100, 120, 160, 200].map((n): MachineTaper => ({
@@ -134,6 +150,7 @@ export const MACHINE_TAPERS: readonly MachineTaper[] = [
     smallDiameter: null,
     length: null,
     source: 'ISO metric taper 1:20, gauge diameter = the number in mm (from memory, unverified; REFERENCE.md §4.5)',
+    basis: 'Metric taper 1:20, the gauge diameter being the number in mm; check it against your tooling before cutting',
     status: 'from-memory',
   })),
 ];

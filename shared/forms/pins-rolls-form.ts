@@ -9,6 +9,13 @@ import { savedForm } from './form-text';
 
 /** What is measured. */
 export type RollKind = 'dovetail' | 'v-groove' | 'dovetail-angle' | 'taper-two-heights' | 'taper-discs' | 'taper-balls';
+/** Every kind of measurement, in the order the page offers them. */
+export const ROLL_KIND_VALUES: readonly RollKind[] = ['dovetail', 'v-groove', 'dovetail-angle', 'taper-two-heights', 'taper-discs', 'taper-balls'];
+
+/** Whether a value (from an address, a saved set-up) is one of the kinds of measurement. */
+export function isRollKind(value: unknown): value is RollKind {
+  return (ROLL_KIND_VALUES as readonly unknown[]).includes(value);
+}
 /** Which side of a dovetail. */
 export type DovetailSide = 'male' | 'female';
 /** Work toward a reading ('cut') or back from one measured on the work ('check'). */
@@ -101,6 +108,9 @@ export function overPinsRequest(v: PinsRollsForm): OverPinsRequest {
         request: { kind: 'taper-balls', unit: v.unit, largeBall: v.largeBall, smallBall: v.smallBall, largeBallDepth: v.largeBallDepth, smallBallDepth: v.smallBallDepth },
         names: {},
       };
+    default:
+      // A kind no page offers (a mistyped address, a damaged saved set-up): the engine refuses it by name.
+      return { request: { kind: v.kind, unit: v.unit }, names: {} };
   }
 }
 

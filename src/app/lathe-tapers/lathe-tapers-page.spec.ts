@@ -40,13 +40,45 @@ describe('LatheTapersPage', () => {
     expect(page.el.querySelector('.no-results')).not.toBeNull();
   });
 
-  it('should say which size to leave out when the taper per foot is chosen with all three sizes filled', async () => {
+  it('should open the taper-per-foot way ready to answer, working out the small diameter', async () => {
     await page.open('/lathe-tapers?define=tpf');
-    expect(page.fieldErrors()).toMatch(/leave one of large diameter, small diameter and length empty/i);
-    expect(page.fieldErrors()).not.toMatch(/largeDiameter/);
-    await page.type('smallDiameter', '');
-    // REFERENCE.md §4.1: d = D − TPF·L/12 = 0.938 − 0.600 × 3.1875/12 = 0.7786 in (derived).
+    // The Morse No. 3 sizes stay, less the small diameter: REFERENCE.md §4.1, d = D − TPF·l/12
+    // = 0.938 − 0.600 × 3.1875/12 = 0.7786 in (derived).
+    expect(page.fieldErrors()).toBe('');
+    expect((page.el.querySelector('input[formcontrolname="smallDiameter"]') as HTMLInputElement).value).toBe('');
     expect(page.resultValue('Small diameter')).toBe('0.7786');
+  });
+
+  it('should open the included-angle way ready to answer when picked from the list', async () => {
+    await page.open();
+    await pick('The taper is given as', 'Included angle');
+    // 3° included: k = 2·tan 1°30' = 0.0523718; d = 0.938 − 0.0523718 × 3.1875 = 0.7711 in (derived, REFERENCE.md §4.1).
+    expect(page.fieldErrors()).toBe('');
+    expect(page.resultValue('Small diameter')).toBe('0.7711');
+  });
+
+  it('should say which size to leave out when all three are typed, in words, and still show each field\'s own error', async () => {
+    await page.open('/lathe-tapers?define=tpf');
+    await page.type('smallDiameter', '0.778');
+    expect(page.fieldErrors()).toMatch(/leave one of the large diameter, small diameter and taper length empty/i);
+    expect(page.fieldErrors()).not.toMatch(/largeDiameter|smallDiameter|taperPerFoot/);
+    // The long message takes its own room instead of running into the toggle below.
+    const length = page.el.querySelector('input[formcontrolname="length"]')!.closest('mat-form-field')!;
+    expect(length.querySelector('.mat-mdc-form-field-subscript-dynamic-size')).not.toBeNull();
+    await page.type('taperPerFoot', 'abc');
+    expect(page.fieldErrors()).toContain('Must be a decimal number');
+    await page.type('workLength', '');
+    await pickMethod('Tail-stock offset');
+    expect(page.fieldErrors()).toContain('Must be a decimal number');
+    expect(page.fieldErrors()).toContain('Is required for the tail-stock offset');
+  });
+
+  it.each([
+    ['morse-5', '5.1875'],
+    ['morse-6', '7.2500'],
+  ])('should show the published length of %s: %s in (Machinery\'s Handbook "Morse Taper Shanks" plug depth 5-3/16, 7-1/4)', async (id, length) => {
+    await page.open(`/lathe-tapers?standard=${id}`);
+    expect(page.resultValue('Taper length')).toBe(length);
   });
 
   it('should ask for the work length when the tail stock is set over', async () => {
@@ -76,4 +108,20 @@ describe('LatheTapersPage', () => {
       expect(splitStations('')).toEqual([]);
     });
   });
+
+  /** Opens the select labelled `label` and picks the option with this text. */
+  async function pick(label: string, text: string): Promise<void> {
+    const field = Array.from(page.el.querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')?.textContent?.trim() === label)!;
+    (field.querySelector('.mat-mdc-select-trigger') as HTMLElement).click();
+    await page.render();
+    const option = Array.from(document.querySelectorAll('mat-option')).find((o) => o.textContent?.trim() === text) as HTMLElement;
+    option.click();
+    await page.settle();
+  }
+
+  async function pickMethod(text: string): Promise<void> {
+    const button = Array.from(page.el.querySelectorAll('mat-button-toggle button')).find((b) => b.textContent?.trim() === text) as HTMLButtonElement;
+    button.click();
+    await page.settle();
+  }
 });

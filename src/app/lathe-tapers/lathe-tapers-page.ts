@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { type FormControl, type FormGroup, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
-import { startWith } from 'rxjs';
+import { type Subscription, distinctUntilChanged, map, skip, startWith } from 'rxjs';
 
 import { type LatheTaperResult, calculateLatheTaper } from '../../../shared/calc/lathe-taper';
-import { invalid, type CalcResult } from '../../../shared/calc/step';
+import { fail, invalid, type CalcResult } from '../../../shared/calc/step';
 import { MACHINE_TAPERS, type MachineTaper } from '../../../shared/data/machine-tapers';
 import { Dec } from '../../../shared/calc/decimal-math';
 import { formatLength } from '../../../shared/units/length-unit';
@@ -65,12 +65,36 @@ export function latheCalc(v: LatheTapersForm): CalcResult<LatheTaperResult> {
   // An empty definer would let the engine fall back to the diameters and name the wrong field.
   if (v.define === 'angle' && !v.includedAngle.trim()) return invalid(AREA, 'includedAngle', 'is required: type the included angle');
   if (v.define === 'tpf' && !v.taperPerFoot.trim()) return invalid(AREA, 'taperPerFoot', 'is required: type the taper per foot');
-  if (v.method === 'offset' && !v.workLength.trim()) return invalid(AREA, 'workLength', 'is required for the tail-stock offset');
-  // With the taper given, two of the sizes fix the third: all three filled would disagree.
-  if ((v.define === 'tpf' || v.define === 'angle') && [v.largeDiameter, v.smallDiameter, v.length].every((x) => x.trim() !== '')) {
-    return invalid(AREA, 'length', 'leave one of large diameter, small diameter and length empty: the taper and two of them give the third');
-  }
-  return calculateLatheTaper(latheRequest(v));
+  // The engine checks every field first, then that one of the three sizes is left for it to find,
+  // so a field's own error is never hidden behind the general one.
+  const result = calculateLatheTaper(latheRequest(v));
+  if (v.method !== 'offset' || v.workLength.trim()) return result;
+  const workLength = 'is required for the tail-stock offset';
+  return result.ok ? invalid(AREA, 'workLength', workLength) : fail(result.kind, AREA, { ...result.fields, workLength });
+}
+
+/**
+ * Whether the form gives the taper itself and also all three sizes, which the taper and any two of
+ * them would fix: a taper per foot, an included angle, or a standard that fixes only the taper.
+ */
+export function sizesOverGiven(v: LatheTapersForm): boolean {
+  const taperGiven = v.define === 'tpf' || v.define === 'angle' || (v.define === 'standard' && !standardHasSizes(v.standard));
+  return taperGiven && [v.largeDiameter, v.smallDiameter, v.length].every((x) => x.trim() !== '');
+}
+
+/**
+ * Opens a way of giving the taper ready to answer: when the taper and all three sizes would be
+ * given (the Morse No. 3 sizes kept from the standard), the small diameter is emptied for the
+ * taper to work out. Runs now and whenever the way or the standard changes. Call in an injection
+ * context, before the page's first calculation.
+ */
+function openComputable(form: FormGroup<{ [K in keyof LatheTapersForm]: FormControl<LatheTapersForm[K]> }>): Subscription {
+  const tidy = () => {
+    if (sizesOverGiven(form.getRawValue())) form.controls.smallDiameter.reset('');
+  };
+  tidy();
+  const way = () => `${form.controls.define.value} ${form.controls.standard.value}`;
+  return form.valueChanges.pipe(map(way), startWith(way()), distinctUntilChanged(), skip(1), takeUntilDestroyed()).subscribe(tidy);
 }
 
 /** The lathe-taper page: taper per foot, angles, tail-stock offset and diameters along the taper. */
@@ -108,6 +132,7 @@ export default class LatheTapersPage {
     tapers: MACHINE_TAPERS.filter((t) => t.family === family),
   }));
   protected readonly query = bindQueryState(this.form, 'lathe-taper');
+  private readonly computable = openComputable(this.form);
   protected readonly calc = liveCalc<LatheTapersForm, LatheTaperResult>(this.form, latheCalc);
   protected readonly controlMessage = controlMessage;
 

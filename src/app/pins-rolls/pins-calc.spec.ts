@@ -38,7 +38,7 @@ describe('pins-and-rolls form saved as a set-up', () => {
   });
 
   it('should take the reading to stop at for a dovetail saved while checking, as the page\'s target', () => {
-    const form: PinsRollsForm = { ...PINS_DEFAULTS, kind: 'dovetail', mode: 'check' };
+    const form: PinsRollsForm = { ...PINS_DEFAULTS, kind: 'dovetail', mode: 'check', reading: '2.2900' };
     const page = pinsCalc(form);
     const saved = setupResults('pins-rolls', form as unknown as Record<string, unknown>);
     expect(page.ok && saved.ok).toBe(true);
@@ -47,11 +47,24 @@ describe('pins-and-rolls form saved as a set-up', () => {
   });
 
   it('should work back from the reading for a dovetail saved while checking with no drawing size', () => {
-    const form: PinsRollsForm = { ...PINS_DEFAULTS, kind: 'dovetail', mode: 'check', width: '' };
+    const form: PinsRollsForm = { ...PINS_DEFAULTS, kind: 'dovetail', mode: 'check', reading: '2.2900', width: '' };
     const page = pinsCalc(form);
     const saved = setupResults('pins-rolls', form as unknown as Record<string, unknown>);
     expect(page.ok && saved.ok).toBe(true);
     if (!page.ok || !saved.ok) return;
     expect(saved.value['values']).toEqual(page.value.main.values);
+  });
+
+  it('should start a measured reading empty, not with a reading made up for one side', () => {
+    expect(PINS_DEFAULTS.reading).toBe('');
+    const r = pinsCalc({ ...PINS_DEFAULTS, mode: 'check', side: 'female' });
+    expect(r.ok || r.fields).toEqual({ reading: 'is required: type the reading you measured' });
+  });
+
+  it('should have the engine refuse a kind no page offers instead of failing on it', () => {
+    const r = pinsCalc({ ...PINS_DEFAULTS, kind: 'foo' as RollKind });
+    expect(r.ok || Object.keys(r.fields)).toEqual(['kind']);
+    const saved = setupResults('pins-rolls', { ...PINS_DEFAULTS, kind: 'foo' } as unknown as Record<string, unknown>);
+    expect(saved.ok).toBe(false);
   });
 });

@@ -12,7 +12,11 @@ import { type PinsRollsForm, checkReadingRequest, overPinsRequest } from '../../
 
 export type { DiscGiven, DovetailSide, PinsRollsForm, RollKind, RollMode } from '../../../shared/forms/pins-rolls-form';
 
-/** Default set-up: the 60° dovetail slide checked over 0.375 in rolls, and a worked example for every other kind. */
+/**
+ * Default set-up: the 60° dovetail slide checked over 0.375 in rolls, and a worked example for every
+ * other kind. The dovetail's measured reading starts empty: a made-up reading would be taken for
+ * the work's, and one over male rolls means nothing between female ones.
+ */
 export const PINS_DEFAULTS: PinsRollsForm = {
   unit: 'in',
   kind: 'dovetail',
@@ -22,7 +26,7 @@ export const PINS_DEFAULTS: PinsRollsForm = {
   rollDiameter: '0.375',
   width: '1.250',
   depth: '0.375',
-  reading: '2.2900',
+  reading: '',
   includedAngle: '90',
   pinDiameter: '0.500',
   grooveWidth: '1.000',

@@ -1,3 +1,6 @@
+import { Router } from '@angular/router';
+import { TestBed } from '@angular/core/testing';
+
 import { pageSpec } from '../workbench/testing/page-spec-harness';
 import PinsRollsPage, { trimDms } from './pins-rolls-page';
 
@@ -128,7 +131,8 @@ describe('PinsRollsPage', () => {
       // Machinery's Handbook 31 p. 701: K = 0.25/3, TPF = 24K/√(1 − K²) = 2.00698.
       expect(page.resultValue('Taper per foot')).toBe('2.00698');
       await page.type('largeDisc', '0.4');
-      expect(page.fieldErrors()).toContain('Must be larger than smallDisc');
+      expect(page.fieldErrors()).toContain('Must be larger than the small disc d');
+      expect(page.fieldErrors()).not.toMatch(/smallDisc/);
     });
 
     it('should find the disc centre distance for an angle', async () => {
@@ -146,6 +150,50 @@ describe('PinsRollsPage', () => {
     });
   });
 
+  describe('addresses and readings that do not fit', () => {
+    it.each(['/pins-rolls?kind=foo', '/pins-rolls?kind='])('should fall back to the dovetail for %s and tidy the address', async (url) => {
+      await page.open(url);
+      // The demo dovetail: REFERENCE.md §5.1, 60°, D 0.375, a 1.250 → 2.2745.
+      expect(page.resultValue('Reading over the rolls')).toBe('2.2745');
+      await new Promise((resolve) => setTimeout(resolve, 350));
+      expect(TestBed.inject(Router).url).toContain('kind=dovetail');
+    });
+
+    it('should not carry a reading over to the other side of a dovetail', async () => {
+      await page.open('/pins-rolls?mode=check&side=female');
+      // Nothing measured yet: ask for the reading rather than work from a made-up one.
+      expect((page.el.querySelector('input[formcontrolname="reading"]') as HTMLInputElement).value).toBe('');
+      expect(page.el.querySelector('.stop-left')).toBeNull();
+      expect(page.el.querySelector('.no-results')?.textContent).toContain('Type the reading you measured to see the results.');
+      await page.type('reading', '0.2300');
+      expect(page.resultValue('Left to cut on the width')).toBeDefined();
+      pickToggle('Male (tongue)');
+      await page.settle();
+      expect((page.el.querySelector('input[formcontrolname="reading"]') as HTMLInputElement).value).toBe('');
+      expect(page.resultValue('Left to cut on the width')).toBeUndefined();
+    });
+
+    it('should refuse a second reading that gives a negative corner width, under that reading', async () => {
+      await page.open('/pins-rolls?kind=dovetail-angle&measurement2=9.000');
+      // Derived: k = (9.000 − 2.2745)/0.125 = 53.804, a = 2.2745 − 0.375k = −17.9020 in.
+      expect(page.fieldErrors()).toContain('With x₁ 2.2745 gives a corner width of -17.9020 in (it must be more than 0): check x₂ and x₁');
+      expect(page.resultValue('Corner width a')).toBeUndefined();
+      expect(page.el.querySelector('sw-roll-drawing')).toBeNull();
+    });
+
+    it('should refuse a dovetail angle typed with an inch mark, saying what it was read as', async () => {
+      await page.open();
+      await page.type('angle', '0.25"');
+      expect(page.fieldErrors()).toContain(`Must be from 10° to 80° for a dovetail, got 0°00'00.25" (in an angle " marks seconds of arc, not inches)`);
+      expect(page.el.querySelector('.stop-value')).toBeNull();
+    });
+
+    it('should name the other roll in words when both rolls are the same size', async () => {
+      await page.open('/pins-rolls?kind=dovetail-angle&rollDiameter2=0.375');
+      expect(page.fieldErrors()).toContain('Must differ from the first roll diameter D₁');
+    });
+  });
+
   describe('trimDms', () => {
     it('should drop zero places only at the end', () => {
       expect(trimDms(`60°00'00"`)).toBe('60°');
@@ -153,6 +201,11 @@ describe('PinsRollsPage', () => {
       expect(trimDms(`1°26'16"`)).toBe(`1°26'16"`);
     });
   });
+
+  function pickToggle(text: string): void {
+    const button = Array.from(page.el.querySelectorAll('mat-button-toggle button')).find((b) => b.textContent?.trim() === text) as HTMLButtonElement;
+    button.click();
+  }
 
   function warningText(): string {
     return Array.from(page.el.querySelectorAll('sw-warnings')).map((w) => w.textContent ?? '').join(' ');

@@ -1,14 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { type FormControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatOption } from '@angular/material/core';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatSelect } from '@angular/material/select';
-import { startWith } from 'rxjs';
+import { type Subscription, distinctUntilChanged, skip, startWith } from 'rxjs';
 
+import { isRollKind } from '../../../shared/forms/pins-rolls-form';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -54,6 +55,29 @@ function num(text: string): number {
   return Number.isFinite(n) ? n : 0;
 }
 
+/**
+ * Puts a kind no page offers (a mistyped address, an old bookmark: ?kind=foo, ?kind=) back to the
+ * default, now and whenever it is set again; the address follows the form. Call in an injection
+ * context, before the page's first calculation.
+ */
+function keepKnownKind(kind: FormControl<RollKind>): Subscription {
+  const fix = (value: unknown) => {
+    if (!isRollKind(value)) kind.setValue(PINS_DEFAULTS.kind);
+  };
+  fix(kind.value);
+  return kind.valueChanges.pipe(takeUntilDestroyed()).subscribe(fix);
+}
+
+/**
+ * Empties the measured reading when the dovetail's side changes: a reading over male rolls means
+ * nothing between female ones (and the other way round). Call in an injection context.
+ */
+function clearReadingOnSideChange(side: FormControl<DovetailSide>, reading: FormControl<string>): Subscription {
+  return side.valueChanges.pipe(startWith(side.value), distinctUntilChanged(), skip(1), takeUntilDestroyed()).subscribe(() => {
+    if (reading.value !== '') reading.reset('');
+  });
+}
+
 /** The reading to stop at, shown large above the other results. */
 export interface StopReading {
   /** What the number is ("Stop at x" …). */
@@ -93,6 +117,8 @@ export default class PinsRollsPage {
   protected readonly kinds = ROLL_KINDS;
   protected readonly cautions = ROLL_CAUTIONS;
   protected readonly query = bindQueryState(this.form, 'pins-rolls');
+  private readonly kindGuard = keepKnownKind(this.form.controls.kind);
+  private readonly sideGuard = clearReadingOnSideChange(this.form.controls.side, this.form.controls.reading);
   protected readonly calc = liveCalc<PinsRollsForm, PinsOutcome>(this.form, pinsCalc);
   protected readonly controlMessage = controlMessage;
 
