@@ -5,7 +5,7 @@ import { type AngleBlocksForm, boxBlockAngles, toAngleBlocksRequest } from '../f
 import { type GaugeBlocksFormValues, boxIdOf, toGaugeStackRequest } from '../forms/gauge-blocks-form';
 import { type LatheTapersForm, latheRequest } from '../forms/lathe-taper-form';
 import { overPinsRequestFromInputs } from '../forms/pins-rolls-form';
-import { type SineBarFormValues, toSineBarRequest } from '../forms/sine-bar-form';
+import { type SineBarFormValues, toCompoundSineRequest, toSineBarRequest } from '../forms/sine-bar-form';
 import { type TaperFormValues, toTaperRequest } from '../forms/taper-form';
 import { type TeamBox, boxStackRequest } from './team-boxes';
 
@@ -37,7 +37,8 @@ export function savedRequest(kind: string, inputs: Record<string, unknown>, box:
       if (!has('mode')) return succeed(inputs);
       const form = savedForm<SineBarFormValues>(inputs);
       if (form.mode === 'table') return openOnPage('A table of sine-bar stacks');
-      if (form.mode === 'compound') return openOnPage('A compound sine plate');
+      // A compound plate: both stacks from the form (with a team box, rounded as the page rounds them).
+      if (form.mode === 'compound') return succeed({ ...toCompoundSineRequest(form) });
       // With one of the team's own boxes, the page works out the stack without a set and asks the
       // inventory for the blocks; the set-up's results give the stack.
       const request = toSineBarRequest(form);

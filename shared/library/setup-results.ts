@@ -2,10 +2,11 @@ import { calculateAngleBlocks } from '../calc/angle-blocks';
 import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
-import { calculateSineBar, unmakeableStack } from '../calc/sine-bar';
+import { calculateCompoundSinePlate, calculateSineBar, unmakeableStack } from '../calc/sine-bar';
 import { type CalcResult, type Step, blockCountStep } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
-import { labelOf, savedForm } from '../forms/form-text';
+import { labelOf, savedForm, sizeList } from '../forms/form-text';
+import type { SineBarFormValues } from '../forms/sine-bar-form';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 import { findAngleBlockSet } from '../data/angle-block-sets';
 import { findGaugeSet } from '../data/gauge-sets';
@@ -66,7 +67,7 @@ const ENGINES: Readonly<Partial<Record<string, Engine>>> = {
   'pins-rolls': calculateOverPins,
 };
 
-const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'blocks', 'lastDigit', 'tolerance', 'temperature', 'unit']);
+const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'blocks', 'blocksA', 'blocksB', 'lastDigit', 'tolerance', 'temperature', 'unit']);
 
 export { labelOf };
 
@@ -88,7 +89,9 @@ function withUnit(key: string, v: string, unit: string): string {
  * in it now); without it, such a set-up is answered on its calculator page only.
  */
 export function setupResults(kind: string, inputs: Record<string, unknown>, boxes?: TeamBoxes): SetupResults {
-  const engine = ENGINES[kind];
+  // A compound sine plate saved from its page has an engine of its own.
+  const compound = kind === 'sine-bar' && inputs['mode'] === 'compound';
+  const engine = compound ? (calculateCompoundSinePlate as Engine) : ENGINES[kind];
   if (!engine) return { ok: false, error: `No calculation is wired for "${kind}" set-ups yet; open the set-up in its calculator.` };
   const named = namedBox(kind, inputs);
   const found = named ? boxes?.get(named.id) : undefined;
@@ -98,7 +101,8 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
   const result = engine(request.value);
   if (!result.ok) return { ok: false, error: result.error };
   let value = result.value as Record<string, unknown>;
-  if (box && kind === 'sine-bar') value = sineBarWithBox(value, box, inputs['mode'] !== 'stack');
+  if (compound) value = compoundWithBlocks(value, inputs, box);
+  else if (box && kind === 'sine-bar') value = sineBarWithBox(value, box, inputs['mode'] !== 'stack');
   // Listed as the page shows it: the box by its name, not the blocks in it.
   const { blocks: _blocks, ...boxless } = request.value;
   const input = box ? { ...boxless, set: `box:${box.id}` } : request.value;
@@ -135,6 +139,31 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
   };
 }
 
+/**
+ * A compound plate's two stacks with their blocks — from the standard set or the team's box the
+ * form names, as the page picks them — and a warning for a stack the blocks cannot make.
+ */
+function compoundWithBlocks(value: Record<string, unknown>, inputs: Record<string, unknown>, box: TeamBox | null): Record<string, unknown> {
+  const form = savedForm<SineBarFormValues>(inputs);
+  const unit = String(value['unit']);
+  const warnings = Array.isArray(value['warnings']) ? [...(value['warnings'] as string[])] : [];
+  const blocksOf = (stack: string): string[] | null => {
+    if (Number(stack) === 0) return [];
+    const request = box ? boxStackRequest(box, { target: stack, wear: false }) : { target: stack, unit: unit as 'in' | 'mm', set: form.set, missing: sizeList(form.missing) };
+    const found = request ? calculateGaugeStack(request) : null;
+    return found?.ok ? found.value.blocks : null;
+  };
+  const out: Record<string, unknown> = { ...value, warnings };
+  if (!form.set || (boxIdOf(form.set) !== null && !box)) return out;
+  for (const name of ['A', 'B'] as const) {
+    const axis = value[`axis${name}`] as { stackHeight: string };
+    const blocks = blocksOf(axis.stackHeight);
+    if (blocks) out[`blocks${name}`] = blocks.join(' + ') || 'none';
+    else warnings.push(`The ${box ? 'box' : 'set'} cannot make stack ${name} (${axis.stackHeight} ${unit}).`);
+  }
+  return out;
+}
+
 /** The passes of a taper's answer, or null. */
 function passesOf(value: Record<string, unknown>): Array<{ pass: number; cut: string; reading: string }> | null {
   const passes = value['passes'];
@@ -148,6 +177,14 @@ function passesOf(value: Record<string, unknown>): Array<{ pass: number; cut: st
  */
 function figureLines(value: Record<string, unknown>, unit: string): ResultLine[] {
   const lines: ResultLine[] = [];
+  for (const name of ['A', 'B'] as const) {
+    const axis = value[`axis${name}`] as Partial<Record<string, string>> | undefined;
+    if (!axis || typeof axis !== 'object') continue;
+    lines.push({ label: `Stack ${name}`, value: `${axis['stackHeight']} ${unit}` });
+    lines.push({ label: `Angle ${name}`, value: `${axis['angleDms']} (${axis['angleDeg']}°)` });
+    lines.push({ label: `Roll distance ${name}`, value: `${axis['length']} ${unit}` });
+    if (typeof value[`blocks${name}`] === 'string') lines.push({ label: `Blocks ${name}`, value: String(value[`blocks${name}`]) });
+  }
   const passes = value['passes'];
   if (Array.isArray(passes) && passes.length > 0) lines.push({ label: 'Passes', value: `${passes.length} (the depth of each and the DRO reading after it below)` });
   const t = value['tolerance'] as Partial<Record<string, string>> | undefined;
@@ -196,6 +233,8 @@ function holdingOf(kind: string, inputs: Record<string, unknown>, value: Record<
  * (the taper page's holding, its angle-block set or sine plate and stack set) and the part length.
  */
 function setUpFields(kind: string, saved: Record<string, unknown>): readonly string[] {
+  // A compound plate's blocks come from the set the form names.
+  if (kind === 'sine-bar' && saved['mode'] === 'compound') return ['set', 'missing'];
   if (kind !== 'taper') return [];
   const holding = saved['holding'];
   return ['partLength', 'holding', ...(holding === 'sine-plate' ? ['plateLength', 'plateSet'] : holding === 'tilted-vise' ? [] : ['angleSet'])];
@@ -233,6 +272,7 @@ const LENGTH_INPUTS = new Set([
   'barLength', 'plateLength', 'stackHeight', 'target', 'width', 'depth', 'rollDiameter', 'rollDiameter1', 'rollDiameter2', 'pinDiameter',
   'measurement', 'measurement1', 'measurement2', 'heightDifference', 'largeDisc', 'smallDisc', 'centreDistance', 'largeBall', 'smallBall',
   'largeBallDepth', 'smallBallDepth', 'grooveWidth', 'largeDiameter', 'smallDiameter', 'length', 'workLength', 'reading',
+  'lengthA', 'lengthB', 'stackA', 'stackB', 'resolution',
 ]);
 
 /** Keys whose values are a set's id. */
@@ -242,8 +282,13 @@ const SET_KEYS = new Set(['set', 'angleSet', 'plateSet', 'standard', 'holding'])
 function labelIn(key: string, chamfer: boolean): string {
   if (chamfer && key === 'taperLength') return 'Leg on the top face';
   if (chamfer && key === 'removedAtEnd') return 'Leg on the end face';
-  return labelOf(key);
+  return AXIS_LABELS[key] ?? labelOf(key);
 }
+
+/** A compound plate's inputs, by the page's words. */
+const AXIS_LABELS: Readonly<Record<string, string>> = {
+  lengthA: 'Roll distance A', lengthB: 'Roll distance B', angleA: 'Angle A', angleB: 'Angle B', stackA: 'Stack A', stackB: 'Stack B', resolution: 'Stacks rounded to',
+};
 
 /** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
 function namedValue(kind: string, key: string, value: unknown, known: { id: number; name: string } | null): string {

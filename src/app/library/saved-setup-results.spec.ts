@@ -112,10 +112,35 @@ describe('a set-up saved from its calculator page', () => {
       expect(r.ok && r.box).toBeNull();
       expect(r.ok && r.stack).toBeNull();
     });
-    it.each([['table'], ['compound']])('should send a %s set-up to its page rather than answer something else', (mode) => {
-      const r = saved('sine-bar', { ...SINE_BAR_DEFAULTS, mode });
+    it('should send a table set-up to its page rather than answer something else', () => {
+      const r = saved('sine-bar', { ...SINE_BAR_DEFAULTS, mode: 'table' });
       expect(r.ok).toBe(false);
       expect(r.ok ? '' : r.error).toMatch(/open the set-up in its calculator/);
+    });
+    it('should answer a compound plate as its page does: both stacks, their blocks and the tilt of the top face', () => {
+      const form: SineBarFormValues = { ...SINE_BAR_DEFAULTS, mode: 'compound' };
+      const page = runSineBar(form);
+      const r = saved('sine-bar', form);
+      if (!page.ok || page.value.mode !== 'compound' || !r.ok) throw new Error('expected both to answer');
+      const line = (label: string) => r.lines.find((l) => l.label === label)?.value;
+      expect(line('Stack A')).toBe(`${page.value.compound.axisA.stackHeight} in`);
+      expect(line('Stack B')).toBe(`${page.value.compound.axisB.stackHeight} in`);
+      expect(line('Blocks A')).toBe(page.value.blocksA?.join(' + '));
+      expect(line('Blocks B')).toBe(page.value.blocksB?.join(' + '));
+      // cos φ = cos θA · cos θB with the angles the rounded stacks make: θA = asin(1.2519 / 5),
+      // θB = asin(0.8682 / 5) → φ = 17.5526° (derived; Math.asin/cos/acos as the reference library).
+      const made = (h: number) => Math.asin(h / 5);
+      expect(((Math.acos(Math.cos(made(1.2519)) * Math.cos(made(0.8682))) * 180) / Math.PI).toFixed(4)).toBe('17.5526');
+      expect(line('Resultant tilt (°)')).toBe(page.value.compound.resultantTiltDeg);
+      expect(page.value.compound.resultantTiltDeg).toBe('17.5526');
+    });
+    it("should pick a compound plate's blocks from the team's box, without its missing block", () => {
+      const r = setupResults('sine-bar', { ...SINE_BAR_DEFAULTS, mode: 'compound', set: 'box:7' }, boxes(gaugeBox(7)));
+      if (!r.ok) throw new Error(r.error);
+      const blocksA = (r.lines.find((l) => l.label === 'Blocks A')?.value ?? '').split(' + ');
+      expect(tenThousandths(blocksA)).toBe(Math.round(Number((r.lines.find((l) => l.label === 'Stack A')?.value ?? '').split(' ')[0]) * 10_000));
+      expect(blocksA).not.toContain('0.1007');
+      expect(r.box).toEqual({ id: 7, name: 'Inch 81-piece set, cabinet 2' });
     });
   });
 

@@ -6,7 +6,7 @@ import type { SineBarSceneInput } from './sine-bar-scene';
 import type { SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
 export { sizeList } from '../../../shared/forms/form-text';
-export { toSineBarRequest, type SineBarFormValues } from '../../../shared/forms/sine-bar-form';
+export { toCompoundSineRequest, toSineBarRequest, type SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
 /** Defaults from the demo scenario: a 14°30' face inspected on a 5 in sine plate with the 81-piece set. */
 export const SINE_BAR_DEFAULTS: SineBarFormValues = {

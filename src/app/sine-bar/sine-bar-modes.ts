@@ -7,7 +7,7 @@ import {
 } from '../../../shared/calc/sine-bar';
 import { type CalcResult, type Step, invalid, succeed } from '../../../shared/calc/step';
 import type { ResultItem } from '../workbench/result-list';
-import { type SineBarFormValues, sizeList, sineBarResultItems, toSineBarRequest } from './sine-bar-form';
+import { type SineBarFormValues, sizeList, sineBarResultItems, toCompoundSineRequest, toSineBarRequest } from './sine-bar-form';
 import type { SineBarSceneInput } from './sine-bar-scene';
 
 /** What the page works out: one setting (from an angle or a stack), a table over a range, or a compound plate. */
@@ -124,22 +124,7 @@ export function runSineBar(v: SineBarFormValues): CalcResult<SineBarOutcome> {
   }
   if (mode === 'compound') {
     // With a set, each stack is rounded to the box's finest step so the blocks can make it.
-    let resolution: string | undefined;
-    if (v.set) {
-      const boxed = resolveBox('Compound sine plate', { set: v.set, missing: sizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
-      if (boxed.ok) resolution = boxed.value.step.toString();
-    }
-    const byAngles = v.compoundBy !== 'stacks';
-    const c = calculateCompoundSinePlate({
-      unit: v.unit as 'in' | 'mm',
-      lengthA: v.barLength,
-      lengthB: v.lengthB,
-      angleA: byAngles ? v.angle : undefined,
-      angleB: byAngles ? v.angleB : undefined,
-      stackA: byAngles ? undefined : v.stackHeight,
-      stackB: byAngles ? undefined : v.stackB,
-      resolution,
-    });
+    const c = calculateCompoundSinePlate(toCompoundSineRequest(v));
     if (!c.ok) return c;
     const a = blocksFor(v, c.value.axisA.stackHeight);
     if (!a.ok) return a;
