@@ -101,6 +101,17 @@ describe('TaperPage', () => {
     expect(page.resultValue('Depth to stop')).toBe('0.2479');
   });
 
+  it('should carry the sizes of the last answer into the boxes a switch of "Defined by" shows', async () => {
+    await page.open();
+    // The demo wedge: 7°30' over 2.5 in on 0.75 in stock; t = 0.75 − 2.5 · tan 7.5° = 0.4209 in (derived).
+    expect(page.resultValue('End thickness')).toBe('0.4209');
+    page.fixture.componentInstance['form'].controls.given.setValue('angle-end');
+    await page.render();
+    expect((page.el.querySelector('input[formcontrolname="endThickness"]') as HTMLInputElement).value).toBe('0.4209');
+    // The same part, now defined by its angle and end thickness: the same depth to stop (2.5 · sin 7.5° = 0.3263 in, derived).
+    expect(page.resultValue('Depth to stop')).toBe('0.3263');
+  });
+
   it('should name the chamfer\'s leg when it is missing', async () => {
     await page.open('/taper?shape=chamfer&given=angle-end');
     expect(page.el.querySelector('.no-results')?.textContent).toMatch(/type the leg on the end face to see the results/i);

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -84,6 +84,29 @@ export default class TaperPage {
   });
   /** Which pass the drawing shows (0: the whole cut). */
   protected readonly selectedPass = signal(0);
+  /** The last answer there was, so a switch of "Defined by" can carry its sizes into the new boxes. */
+  private lastAnswer: TaperOutcome | null = null;
+  private readonly keepsAnswer = effect(() => {
+    const r = this.calc.value();
+    if (r) this.lastAnswer = r;
+  });
+  private readonly carriesSizes = this.form.controls.given.valueChanges.pipe(takeUntilDestroyed()).subscribe((given) => {
+    // The part is the same; only what is typed changes: a newly shown, empty box gets the size the
+    // last answer worked out (the end size as the chamfer's leg for a chamfer).
+    const r = this.lastAnswer;
+    if (!r) return;
+    const use = givenFields(given);
+    const sizes: Array<[keyof TaperFormValues, boolean, string]> = [
+      ['angle', use.angle, r.angleDms],
+      ['taperLength', use.taperLength, r.taperLength],
+      ['endThickness', use.end, (this.form.controls.shape.value === 'chamfer' ? r.removedAtEnd : r.endThickness) ?? ''],
+      ['faceLength', use.faceLength, r.faceLength],
+    ];
+    for (const [name, used, value] of sizes) {
+      const control = this.form.controls[name];
+      if (used && control.value.trim() === '' && value) control.setValue(value);
+    }
+  });
 
   protected readonly givenOptions = computed(() => (this.chamfer() ? CHAMFER_GIVEN_OPTIONS : TAPER_GIVEN_OPTIONS));
   protected readonly holdingOptions = HOLDING_OPTIONS;
