@@ -97,7 +97,7 @@ describe('setupResults', () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     // h = 1.75 · sin 12°15′ = 0.37131 → 0.3713 in; ⌈0.3713 / 0.06⌉ = 7 passes, six of 0.0600 and a last of 0.0113 (derived).
-    expect(r.lines.find((l) => l.label === 'Passes')?.value).toMatch(/^7 /);
+    expect(r.lines.find((l) => l.label === 'Passes')?.value).toBe('7, each with its DRO reading below');
     expect(r.passes).toHaveLength(7);
     expect(r.passes![0]).toEqual({ pass: 1, cut: '0.0600', reading: '0.0600' });
     expect(r.passes![6]).toEqual({ pass: 7, cut: '0.0113', reading: '0.3713' });

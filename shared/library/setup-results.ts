@@ -186,7 +186,7 @@ function figureLines(value: Record<string, unknown>, unit: string): ResultLine[]
     if (typeof value[`blocks${name}`] === 'string') lines.push({ label: `Blocks ${name}`, value: String(value[`blocks${name}`]) });
   }
   const passes = value['passes'];
-  if (Array.isArray(passes) && passes.length > 0) lines.push({ label: 'Passes', value: `${passes.length} (the depth of each and the DRO reading after it below)` });
+  if (Array.isArray(passes) && passes.length > 0) lines.push({ label: 'Passes', value: `${passes.length}, each with its DRO reading below` });
   const t = value['tolerance'] as Partial<Record<string, string>> | undefined;
   if (t && typeof t === 'object' && t['worstCase']) {
     lines.push({ label: `Tolerance, worst case (grade ${t['grade']})`, value: `±${t['worstCase']} ${unit} (±${t['worstCaseUm']} µm)` });
