@@ -92,10 +92,13 @@ export type TaperParsed = z.output<typeof taperRequestSchema>;
 // ---------------------------------------------------------------------------------------------
 // Gauge blocks.
 
+/** Most blocks of one size the stack solver takes (no stack needs more; a box may hold more shims). */
+export const MAX_SOLVER_BLOCKS_OF_A_SIZE = 20;
+
 /** One entry of a custom block list: a size, or a size with how many of it the box holds. */
 export const blockEntrySchema = z.union([
   decimalValue,
-  z.object({ size: decimalValue, count: optional(z.number().int().min(0).max(20)) }),
+  z.object({ size: decimalValue, count: optional(z.number().int().min(0).max(MAX_SOLVER_BLOCKS_OF_A_SIZE)) }),
 ]);
 
 /** ISO 3650 grades for which the tolerance table holds values. */

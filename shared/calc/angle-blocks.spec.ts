@@ -71,6 +71,12 @@ describe('calculateAngleBlocks', () => {
     }
   });
 
+  it('should make an angle equal to all the blocks together', () => {
+    // 1° + 27′ + 3″ + 3″ = 1°27′06″ = 5226″ (derived), typed with seconds.
+    const r = value(calculateAngleBlocks({ blocks: ['1°', "27'", '3"', '3"'], angle: '1°27\'6"' }));
+    expect([r.count, r.exact]).toEqual([4, true]);
+  });
+
   it('should say a block is used more often than the set has it, or is not in the set at all', () => {
     // The 16-piece set has one 15° block and no 27° block (REFERENCE.md §6).
     const twice = calculateAngleBlocks({ set: 'angle-16', combination: [{ angle: '15°' }, { angle: '15°' }] });

@@ -247,7 +247,8 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
 
     if (!p.angle) return invalid(AREA, 'angle', 'is required (or give a combination to total)');
     if (!blockSeconds) return invalid(AREA, 'set', 'give a set id (e.g. angle-13-npl) or a blocks list');
-    const targetSeconds = p.angle.mul(3600);
+    // In seconds, rounded far below any block: 6″ typed is 0.00166…° and must not exceed the set by its last digit.
+    const targetSeconds = p.angle.mul(3600).toDecimalPlaces(9);
     const reach = (blockSeconds as number[]).reduce((a, b) => a + b, 0);
     if (targetSeconds.gt(reach)) {
       return impossible(
@@ -260,8 +261,7 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
     if (signed.length === 0) return impossible(AREA, 'angle', 'no combination of these blocks makes a positive angle');
     const achievedSeconds = signed.reduce((a, b) => a + b, 0);
     const achieved = new Dec(achievedSeconds).div(3600);
-    // In seconds, rounded far below any block: 15″ typed is 0.0041666…° and must not miss by its last digit.
-    const error = new Dec(achievedSeconds).minus(targetSeconds).toDecimalPlaces(9);
+    const error = new Dec(achievedSeconds).minus(targetSeconds);
     const exact = error.isZero();
     const used = signed.map(use);
     const text = used.map((u, i) => `${u.direction === 'reverse' ? '− ' : i ? '+ ' : ''}${u.angle}`).join(' ');

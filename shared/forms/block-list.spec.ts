@@ -64,6 +64,8 @@ describe('readBlockList: angle blocks', () => {
   it('refuses a fraction of a second, a right angle and text', () => {
     expect(readBlockList('angle-blocks', 'arcsec', '0.5"')).toEqual({ ok: false, error: expect.stringContaining('whole seconds') });
     expect(readBlockList('angle-blocks', 'arcsec', '90°')).toEqual({ ok: false, error: expect.stringContaining('90° is not an angle block') });
+    // 360° = 1,296,000″: said in degrees, not as a number of seconds.
+    expect(readBlockList('angle-blocks', 'arcsec', '360°')).toEqual({ ok: false, error: expect.stringContaining('360° is not an angle block') });
     expect(readBlockList('angle-blocks', 'arcsec', 'one degree')).toEqual({ ok: false, error: expect.stringContaining("e.g. 1°, 27' or 3\" x 2") });
   });
 });

@@ -53,13 +53,15 @@ export function blockLabel(unit: InventoryUnit, size: string): string {
 
 /** What is wrong with a block size of a set of this type and unit, or null. */
 export function blockSizeError(type: InventoryType, unit: InventoryUnit, size: string): string | null {
-  if (!DECIMAL_TEXT.test(size) || !new Dec(size).gt(0)) return `"${size}" is not a positive size.`;
-  const d = new Dec(size);
   if (type === 'angle-blocks') {
+    if (!/^\d{1,12}(\.\d+)?$/.test(size) || !new Dec(size).gt(0)) return `"${size}" is not a positive size.`;
+    const d = new Dec(size);
     if (!d.isInteger()) return `An angle block's size is whole seconds of arc; "${size}" is not.`;
     if (d.gte(LARGEST_ANGLE_ARCSEC)) return `${angleLabel(d.toNumber())} is not an angle block: they are under 90°.`;
     return null;
   }
+  if (!DECIMAL_TEXT.test(size) || !new Dec(size).gt(0)) return `"${size}" is not a positive size.`;
+  const d = new Dec(size);
   const longest = LONGEST_GAUGE[unit];
   if (longest !== undefined && d.gt(longest)) return `${size} ${unit} is longer than any gauge block (at most ${longest} ${unit}).`;
   return null;

@@ -4,7 +4,7 @@
  * the set-up sheet and the release check load that box and solve with what is in it now — the
  * same blocks the calculator page and the inventory route use.
  */
-import type { GaugeStackRequest } from '../api/calc';
+import { type GaugeStackRequest, MAX_SOLVER_BLOCKS_OF_A_SIZE } from '../api/calc';
 import { GAUGE_GRADES, type InventorySetDto } from '../api/inventory';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 
@@ -62,7 +62,8 @@ export function boxStackRequest(box: Omit<TeamBox, 'id' | 'type' | 'name'>, q: {
   return {
     target: q.target,
     unit: box.unit as GaugeStackRequest['unit'],
-    blocks: usable.map((b) => ({ size: b.size, count: b.available })),
+    // A box may hold more of a size (shims) than any stack uses; the solver takes at most its limit.
+    blocks: usable.map((b) => ({ size: b.size, count: Math.min(b.available, MAX_SOLVER_BLOCKS_OF_A_SIZE) })),
     grade: grade as GaugeStackRequest['grade'],
     wearBlocks,
   };

@@ -181,6 +181,17 @@ describe('/api/inventories', () => {
       expect(made.body).toMatchObject({ count: 4, exact: true });
     });
 
+    it('should build stacks from a box that holds more of one size than any stack uses (shims)', async () => {
+      const shims = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Shim drawer', unit: 'in', blocks: [{ size: '0.05', count: 30 }, { size: '0.1', count: 1 }, { size: '1', count: 1 }] }).expect(201);
+      // 1.150 = 1 + 0.100 + 0.050 (derived: the fewest blocks).
+      const stack = await c.machinist.agent.get(`/api/inventories/gauge-sets/${shims.body.id}/stack?target=1.15`).expect(200);
+      expect(stack.body).toMatchObject({ count: 3, total: '1.1500' });
+      // 2.150 = 1 + 0.100 + 21 × 0.050 would need more of one size than a stack is built from (20 at
+      // most; 2.100 is the longest stack, derived).
+      await c.machinist.agent.get(`/api/inventories/gauge-sets/${shims.body.id}/stack?target=2.1`).expect(200);
+      await c.machinist.agent.get(`/api/inventories/gauge-sets/${shims.body.id}/stack?target=2.15`).expect(422);
+    });
+
     it('should refuse a gauge block longer than ISO 3650 covers', async () => {
       // ISO 3650 covers gauge blocks up to 1000 mm nominal length.
       const long = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Long', unit: 'mm', blocks: [{ size: '500', count: 1 }, { size: '1200', count: 1 }] }).expect(400);

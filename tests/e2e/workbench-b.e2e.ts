@@ -151,7 +151,7 @@ describe('angle-blocks page', () => {
     // REFERENCE.md §6 [DER]: 17°35′ with the 13-piece set by hand is 27 − 9 − 1 and 27′ + 9′ − 1′,
     // six blocks; the exact search must make the angle exactly with no more than that.
     await expectResult(page, 'Angle the blocks make', `17°35'00"`);
-    expect(await result(page, 'Error')).toBe('0.00 ″');
+    expect(await result(page, 'Error')).toBe('0.00″');
     const count = Number((await result(page, 'Number of blocks')).split(' ')[0]);
     expect(count).toBeLessThanOrEqual(6);
     const svg = page.locator('sw-angle-stack-drawing svg');

@@ -160,6 +160,9 @@ describe('BatchRunPage', () => {
       .flush({ error: 'End thickness must be a decimal number such as 0.1645.', fields: { 'values.end-thickness': 'Must be a decimal number such as 0.1645.' } }, { status: 400, statusText: 'Bad Request' });
     await settle();
     expect(el().querySelector('form mat-hint.error')?.textContent).toContain('Must be a decimal number');
+    // Put right, the reading is no longer marked wrong.
+    await type('End thickness', '0.5858');
+    expect(el().querySelector('form mat-hint.error')).toBeNull();
     button('Cancel')!.click();
     await settle();
     expect(el().querySelector('form')).toBeNull();

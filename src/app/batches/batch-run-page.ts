@@ -106,10 +106,19 @@ export default class BatchRunPage {
 
   protected setValue(key: string, value: string): void {
     this.entry.update((e) => ({ ...e, values: { ...e.values, [key]: value } }));
+    this.clearFieldError(`values.${key}`);
   }
 
   protected setField(field: 'touchOff' | 'droAtStop' | 'note', value: string): void {
     this.entry.update((e) => ({ ...e, [field]: value }));
+    this.clearFieldError(field);
+  }
+
+  /** The server's word on a field no longer stands once the field is changed. */
+  private clearFieldError(field: string): void {
+    if (!(field in this.fieldErrors())) return;
+    const { [field]: _gone, ...rest } = this.fieldErrors();
+    this.fieldErrors.set(rest);
   }
 
   /** The readings as first recorded, in the run's check order: "End thickness 0.5805, DRO at stop -0.1632". */

@@ -72,7 +72,9 @@ describe('InventoryPage', () => {
     type('form.create input[name="name"]', 'Long blocks, cabinet 3');
     submit();
     fixture.detectChanges();
-    expect(el().querySelector('form.create [role="alert"]')?.textContent).toContain('Line 2');
+    // Said once, under the list; nothing sent.
+    expect(el().querySelector('form.create [role="alert"]')).toBeNull();
+    expect(el().querySelector('form.create mat-hint')?.textContent).toContain('Line 2');
     Array.from(el().querySelectorAll('form.create mat-button-toggle button')).find((b) => b.textContent?.includes('mm'))!.dispatchEvent(new Event('click'));
     type('form.create textarea', '100 to 500 by 100\n125 x 2');
     expect(el().querySelector('form.create mat-hint')?.textContent).toContain('6 sizes, 7 blocks, 100 mm to 500 mm');

@@ -234,10 +234,8 @@ export default class InventoryPage {
       this.createError.set('List the blocks in the box, one size per line.');
       return;
     }
-    if (!read.ok) {
-      this.createError.set(read.error);
-      return;
-    }
+    // A wrong line is already said under the list.
+    if (!read.ok) return;
     this.send(type, { name: this.newName().trim(), blocks: read.blocks, ...(type === 'gauge-blocks' ? { unit: this.newUnit() } : {}) });
   }
 

@@ -15,6 +15,14 @@ describe('LatheTapersPage', () => {
     expect(svg?.textContent).toContain(`α/2 = 1°26'16"`);
   });
 
+  it('should fall back to the standard taper for a choice no page offers (?define=foo)', async () => {
+    await page.open('/lathe-tapers?define=foo&method=bar');
+    // Morse No. 3, the default: 0.60235 in/ft (REFERENCE.md §4.2).
+    expect(page.resultValue('Taper per foot')).toBe('0.60235');
+    expect((page.fixture.componentInstance['form'].controls.define.value)).toBe('standard');
+    expect((page.fixture.componentInstance['form'].controls.method.value)).toBe('compound');
+  });
+
   it('should give the tail-stock offset from the URL (REFERENCE.md §4.1, Rose: 1 in/ft, work 3 ft → 1-1/2 in)', async () => {
     await page.open('/lathe-tapers?define=tpf&taperPerFoot=1&largeDiameter=&smallDiameter=&length=&workLength=36&method=offset&stations=');
     expect(page.resultValue('Tail-stock offset')).toBe('1.5000');

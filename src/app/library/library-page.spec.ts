@@ -101,6 +101,12 @@ describe('LibraryPage', () => {
     expect((await answer({ total: 60 })).has('ownerId')).toBe(false);
   });
 
+  it('should mark a draft that revises a released set-up with the version it revises', async () => {
+    await answer({ setups: [{ ...setup(3, 'Revised wedge', 'draft'), releasedVersion: 2 }, setup(4, 'New wedge', 'draft')], total: 2 });
+    const statuses = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('td.mat-column-status')).map((td) => td.textContent?.trim());
+    expect(statuses).toEqual(['Draftrevising v2', 'Draft']);
+  });
+
   it('should say so when nothing matches', async () => {
     await answer({ setups: [], total: 0 });
     expect((fixture.nativeElement as HTMLElement).querySelector('.empty')?.textContent).toContain('No set-ups match these filters.');
