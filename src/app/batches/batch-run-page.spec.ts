@@ -110,6 +110,8 @@ describe('BatchRunPage', () => {
     // The fresh form for part 3 shows no box as wrong before anything is typed or sent.
     expect(el().querySelectorAll('mat-form-field.mat-form-field-invalid')).toHaveLength(0);
     expect(field('End thickness').value).toBe('');
+    // The cursor waits in the next part's first reading.
+    expect(document.activeElement).toBe(field('End thickness'));
   });
 
   it('should show a closed run read-only', async () => {

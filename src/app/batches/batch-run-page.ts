@@ -1,5 +1,5 @@
 import { DatePipe, formatDate } from '@angular/common';
-import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input, numberAttribute, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, Injector, LOCALE_ID, afterNextRender, computed, inject, input, numberAttribute, signal, viewChild } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import { FormsModule, NgForm } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -40,6 +40,8 @@ export default class BatchRunPage {
   private readonly api = inject(BatchesApi);
   private readonly auth = inject(Auth);
   private readonly locale = inject(LOCALE_ID);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  private readonly injector = inject(Injector);
 
   /** Route parameter `:id`. */
   readonly id = input.required({ transform: numberAttribute });
@@ -197,6 +199,8 @@ export default class BatchRunPage {
         this.fill(partNo === null ? { ...EMPTY, touchOff: e.touchOff } : EMPTY);
         this.saving.set(false);
         this.saved.set(partNo === null ? `Part ${res.part?.partNo ?? writing} recorded.` : `Part ${partNo} corrected.`);
+        // Ready for the next part: the cursor in its first reading (the touch-off carries over).
+        afterNextRender(() => this.host.nativeElement.querySelector<HTMLInputElement>('#part-entry input[name^="v-"]')?.focus(), { injector: this.injector });
       },
       error: (err: unknown) => {
         this.saving.set(false);

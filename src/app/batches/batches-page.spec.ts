@@ -75,4 +75,14 @@ describe('BatchesPage', () => {
     const req = http.expectOne((r) => r.method === 'POST' && r.url === '/api/batches');
     expect(req.request.body).toEqual({ setupId: 4, partCount: 12 });
   });
+
+  it('should send the name given to the run, trimmed', async () => {
+    const label = el().querySelector('input[name=label]') as HTMLInputElement;
+    label.value = '  Lot 7, second shift ';
+    label.dispatchEvent(new Event('input'));
+    await settle();
+    startButton().click();
+    const req = http.expectOne((r) => r.method === 'POST' && r.url === '/api/batches');
+    expect(req.request.body).toEqual({ setupId: 4, partCount: 8, label: 'Lot 7, second shift' });
+  });
 });

@@ -41,6 +41,11 @@ import { BatchesApi } from './batches-api';
                    [attr.aria-invalid]="!!partCountError()" aria-describedby="parts-error" />
             @if (partCountError(); as pe) { <mat-hint id="parts-error" class="error">{{ pe }}</mat-hint> }
           </mat-form-field>
+          <mat-form-field appearance="outline" class="grow" subscriptSizing="dynamic">
+            <mat-label>Run name (optional)</mat-label>
+            <input matInput name="label" maxlength="120" [ngModel]="label()" (ngModelChange)="label.set($event)" />
+            <mat-hint>E.g. the lot or order; empty: job × parts</mat-hint>
+          </mat-form-field>
           <button mat-flat-button type="submit" [disabled]="!setupId() || !!partCountError()"><mat-icon>play_arrow</mat-icon> Start run</button>
         </form>
         @if (startError(); as e) { <p class="error" role="alert">{{ e }}</p> }
@@ -103,6 +108,8 @@ export default class BatchesPage {
     const parsed = batchCreateBody.shape.partCount.safeParse(this.partCount());
     return parsed.success ? null : (parsed.error.issues[0]?.message ?? 'Say how many parts the batch has.');
   });
+  /** The run's name as typed (empty: the server names it after the job and the part count). */
+  protected readonly label = signal('');
   protected readonly startError = signal<string | null>(null);
   protected readonly listError = signal<string | null>(null);
   protected readonly mayRun = computed(() => !!this.auth.user() && this.auth.user()?.role !== 'apprentice');
@@ -121,7 +128,8 @@ export default class BatchesPage {
     const partCount = this.partCount();
     if (!setupId || partCount === null || this.partCountError()) return;
     this.startError.set(null);
-    this.api.start({ setupId, partCount }).subscribe({
+    const label = this.label().trim();
+    this.api.start({ setupId, partCount, ...(label ? { label } : {}) }).subscribe({
       next: (run) => void this.router.navigate(['/batches', run.id]),
       error: (err: unknown) => this.startError.set(apiErrorDetail(err)),
     });
