@@ -56,6 +56,12 @@ describe('taperScene', () => {
     // Text turns along (12.8, 17.07): atan(17.07 / 12.8) = 53.14° from the rounded view points
     // (53.13° = 90° − α exactly, off by the 0.01 rounding of the view coordinates).
     expect(scene.endDim?.label.rotate).toBe(53.14);
+    // The text stands clear of the dimension line by more than the extension lines run past it (5),
+    // so a short end dimension's text is not crossed by them.
+    const [x1, y1, x2, y2] = (scene.endDim?.line.match(/-?\d+(\.\d+)?/g) ?? []).map(Number) as [number, number, number, number];
+    const { x, y } = scene.endDim!.label;
+    const off = Math.abs((x2 - x1) * (y1 - y) - (x1 - x) * (y2 - y1)) / Math.hypot(x2 - x1, y2 - y1);
+    expect(off).toBeGreaterThanOrEqual(9 - 0.02);
   });
 
   it('should split the material at the shown pass and label that pass', () => {

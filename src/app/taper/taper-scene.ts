@@ -1,4 +1,4 @@
-import { type AngleArcGeometry, type DimensionGeometry, type Label, angleArc, dimensionLine } from '../drawing/dimension';
+import { type AngleArcGeometry, DIMENSION_STYLE, type DimensionGeometry, type Label, angleArc, dimensionLine } from '../drawing/dimension';
 import { chordAtLevel, clipToLevel, hatchPath, polygonPath, polylinePath, segmentsPath } from '../drawing/shapes';
 import { type PlacedLabel, boxInside, boxesTouch, firstClear, labelBox as boxOfText } from '../drawing/label-room';
 import { type Bounds, type Point, boundsOf, fitView, round2 } from '../drawing/view-fit';
@@ -198,7 +198,8 @@ export function taperScene(input: TaperSceneInput, width: number): TaperScene {
   const origin = v({ x: 0, y: 0 });
 
   const depthDim = dimensionLine(depthA, faceEndV, depthOffset, input.labels.depthToStop);
-  const endDim = d < T - 1e-9 ? dimensionLine(faceEndV, v(endBottom), 30, input.labels.endThickness) : null;
+  // The end dimension is short beside its text: the text keeps clear of the extension lines' overshoot.
+  const endDim = d < T - 1e-9 ? dimensionLine(faceEndV, v(endBottom), 30, input.labels.endThickness, { ...DIMENSION_STYLE, labelGap: DIMENSION_STYLE.extensionOvershoot + 4 }) : null;
   const arc = angleArc(origin, arcRadius, 0, input.angleDeg, input.labels.angle);
   const view = { width: fit.width, height: fit.height };
 
