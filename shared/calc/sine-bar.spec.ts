@@ -100,6 +100,12 @@ describe('calculateSineBar', () => {
       const forStack = bar({ unit: 'in', barLength: 5, stackHeight: '0.0009', set: 'inch-81' });
       expect(forStack.warnings).toContain('The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference.');
     });
+
+    it('should question a typed stack finer than the gauge-block step', () => {
+      // Inch gauge blocks step by 0.0001 in (REFERENCE.md §3.2): 0.00001 in cannot be built from them.
+      expect(bar({ unit: 'in', barLength: 5, stackHeight: '0.00001' }).warnings).toContain('A 0.00001 in stack is finer than the gauge-block step (0.0001 in): check the stack as built.');
+      expect(bar({ unit: 'in', barLength: 5, stackHeight: '1.2519' }).warnings).toEqual([]);
+    });
   });
 
   it('should show the unrounded stack in the work to three places past the resolution, not thirty digits', () => {

@@ -174,6 +174,10 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
     steps.push(step('Sensitivity', 'Δθ = ΔH / (L · cos θ)', `Δθ = ${resolution.toString()} / (${len(L)} · cos ${formatDms(setting.achieved)})`, fixedText(sens, 2), '″'));
 
     const warnings = [...barLengthWarnings(L, unit), ...steepWarnings(setting.wanted)];
+    // A typed stack finer than the blocks step cannot have been built from them.
+    if (p.stackHeight !== undefined && !p.stackHeight.mod(resolution).isZero()) {
+      warnings.push(`A ${p.stackHeight.toString()} ${unit} stack is finer than the gauge-block step (${resolution.toString()} ${unit}): check the stack as built.`);
+    }
     let blocks: string[] | null = null;
     if (box) {
       if (setting.stack.isZero()) {
