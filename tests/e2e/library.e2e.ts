@@ -145,8 +145,10 @@ describe('set-up library, end to end', () => {
     const page = machinist.page;
     await page.goto(`/library/${setupId}`);
     await page.getByLabel('Parts').fill('3');
+    await page.getByLabel('Run name (optional)').fill('Lot C, first shift');
     await page.getByRole('button', { name: 'Start a batch run' }).click();
     await page.waitForURL(/\/batches\/\d+$/);
+    await page.getByRole('heading', { name: /Lot C, first shift/ }).waitFor();
     // Part 2 is mistyped (0.5805 for 0.5850) and corrected once the run is full.
     for (const [i, value] of ['0.5856', '0.5805', '0.5871'].entries()) {
       await page.getByLabel('DRO at stop').fill('-0.1632');

@@ -65,6 +65,8 @@ export default class SetupDetailPage {
   );
   protected readonly draft = signal<{ name: string; job: string; notes: string; checks: SetupCheck[] }>({ name: '', job: '', notes: '', checks: [] });
   protected readonly partCount = signal(8);
+  /** The run's name as typed (empty: the server names it after the job and the part count). */
+  protected readonly runLabel = signal('');
   protected readonly startError = signal<string | null>(null);
 
   protected readonly units = CHECK_UNITS;
@@ -298,7 +300,8 @@ export default class SetupDetailPage {
     const s = this.setup();
     if (!s) return;
     this.startError.set(null);
-    this.batches.start({ setupId: s.id, partCount: this.partCount() }).subscribe({
+    const label = this.runLabel().trim();
+    this.batches.start({ setupId: s.id, partCount: this.partCount(), ...(label ? { label } : {}) }).subscribe({
       next: (run) => void this.router.navigate(['/batches', run.id]),
       error: (err: unknown) => this.startError.set(apiErrorMessage(err)),
     });
