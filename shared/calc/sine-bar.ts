@@ -399,6 +399,16 @@ export function calculateCompoundSinePlate(input: CompoundSineRequest | unknown)
   });
 }
 
+/** The warning for the rows of a table of stacks whose stack the box cannot make. */
+export function unmakeableRows(count: number): string {
+  return `The box cannot make the stack of ${count} ${count === 1 ? 'row' : 'rows'} (no blocks listed): check the missing blocks or change the range.`;
+}
+
+/** The warning for a compound plate's stack (axis A or B) the box cannot make. */
+export function unmakeableAxis(axis: 'A' | 'B', stack: string, unit: string): string {
+  return `The box cannot make stack ${axis} (${stack} ${unit}).`;
+}
+
 /**
  * The box cannot give a sine bar's stack: what to do instead (for a stack typed in, changing the
  * angle is no answer). Said by the engine for a standard set, and for a team's box by its page

@@ -2,7 +2,7 @@ import { calculateAngleBlocks } from '../calc/angle-blocks';
 import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
-import { calculateCompoundSinePlate, calculateSineBar, unmakeableStack } from '../calc/sine-bar';
+import { calculateCompoundSinePlate, calculateSineBar, unmakeableAxis, unmakeableStack } from '../calc/sine-bar';
 import { type CalcResult, type Step, blockCountStep } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { labelOf, savedForm, sizeList } from '../forms/form-text';
@@ -13,7 +13,7 @@ import { findGaugeSet } from '../data/gauge-sets';
 import { findMachineTaper } from '../data/machine-tapers';
 import { HOLDING_OPTIONS, type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
-import { type TeamBox, type TeamBoxes, boxStackRequest, namedBox } from './team-boxes';
+import { type TeamBox, type TeamBoxes, boxStackBlocks, namedBox } from './team-boxes';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -148,10 +148,10 @@ function compoundWithBlocks(value: Record<string, unknown>, inputs: Record<strin
   const unit = String(value['unit']);
   const warnings = Array.isArray(value['warnings']) ? [...(value['warnings'] as string[])] : [];
   const blocksOf = (stack: string): string[] | null => {
+    if (box) return boxStackBlocks(box, stack);
     if (Number(stack) === 0) return [];
-    const request = box ? boxStackRequest(box, { target: stack, wear: false }) : { target: stack, unit: unit as 'in' | 'mm', set: form.set, missing: sizeList(form.missing) };
-    const found = request ? calculateGaugeStack(request) : null;
-    return found?.ok ? found.value.blocks : null;
+    const found = calculateGaugeStack({ target: stack, unit: unit as 'in' | 'mm', set: form.set, missing: sizeList(form.missing) });
+    return found.ok ? found.value.blocks : null;
   };
   const out: Record<string, unknown> = { ...value, warnings };
   if (!form.set || (boxIdOf(form.set) !== null && !box)) return out;
@@ -159,7 +159,7 @@ function compoundWithBlocks(value: Record<string, unknown>, inputs: Record<strin
     const axis = value[`axis${name}`] as { stackHeight: string };
     const blocks = blocksOf(axis.stackHeight);
     if (blocks) out[`blocks${name}`] = blocks.join(' + ') || 'none';
-    else warnings.push(`The ${box ? 'box' : 'set'} cannot make stack ${name} (${axis.stackHeight} ${unit}).`);
+    else warnings.push(unmakeableAxis(name, axis.stackHeight, unit));
   }
   return out;
 }
@@ -206,10 +206,8 @@ function sineBarWithBox(value: Record<string, unknown>, box: TeamBox, forAngle: 
   const warnings = Array.isArray(value['warnings']) ? (value['warnings'] as string[]) : [];
   if (box.unit !== unit) return { ...value, warnings: [...warnings, `The team's box "${box.name}" holds ${box.unit} blocks; this set-up is in ${unit}, so no blocks are picked from it.`] };
   if (Number(stack) === 0) return { ...value, blocks: [], blockCount: 0 };
-  const request = boxStackRequest(box, { target: stack, wear: false });
-  const found = request ? calculateGaugeStack(request) : null;
-  if (!found?.ok) return { ...value, warnings: [...warnings, unmakeableStack(stack, unit, forAngle)] };
-  const blocks = found.value.blocks;
+  const blocks = boxStackBlocks(box, stack);
+  if (!blocks) return { ...value, warnings: [...warnings, unmakeableStack(stack, unit, forAngle)] };
   const steps = Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [];
   return {
     ...value,

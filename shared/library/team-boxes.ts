@@ -6,6 +6,7 @@
  */
 import { type GaugeStackRequest, MAX_SOLVER_BLOCKS_OF_A_SIZE } from '../api/calc';
 import { GAUGE_GRADES, type InventorySetDto } from '../api/inventory';
+import { calculateGaugeStack } from '../calc/gauge-stack';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 
 /** A team box: its name and the blocks in it, with how many of each may be used. */
@@ -67,4 +68,15 @@ export function boxStackRequest(box: Omit<TeamBox, 'id' | 'type' | 'name'>, q: {
     grade: grade as GaugeStackRequest['grade'],
     wearBlocks,
   };
+}
+
+/**
+ * The fewest blocks from a box for a stack (largest first), as the inventory route picks them: none
+ * for a zero stack, null when the box cannot make it.
+ */
+export function boxStackBlocks(box: Omit<TeamBox, 'id' | 'type' | 'name'>, stack: string): string[] | null {
+  if (Number(stack) === 0) return [];
+  const request = boxStackRequest(box, { target: stack, wear: false });
+  const found = request ? calculateGaugeStack(request) : null;
+  return found?.ok ? found.value.blocks : null;
 }

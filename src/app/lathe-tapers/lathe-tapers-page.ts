@@ -18,6 +18,7 @@ import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
 import { DerivationPanel } from '../workbench/derivation-panel';
 import { controlMessage } from '../workbench/field-errors';
+import { keepKnownChoice } from '../workbench/known-choice';
 import { liveCalc } from '../workbench/live-calc';
 import { bindQueryState } from '../workbench/query-state';
 import { type ResultItem, ResultList } from '../workbench/result-list';
@@ -97,15 +98,6 @@ function openComputable(form: FormGroup<{ [K in keyof LatheTapersForm]: FormCont
   return form.valueChanges.pipe(map(way), startWith(way()), distinctUntilChanged(), skip(1), takeUntilDestroyed()).subscribe(tidy);
 }
 
-/** Puts a value no choice offers back to the default, now and whenever it is set again (call in an injection context). */
-function keepKnown<T extends string>(control: FormControl<T>, known: readonly T[], fallback: T): Subscription {
-  const fix = (value: unknown) => {
-    if (!(known as readonly unknown[]).includes(value)) control.setValue(fallback);
-  };
-  fix(control.value);
-  return control.valueChanges.pipe(takeUntilDestroyed()).subscribe(fix);
-}
-
 /** The lathe-taper page: taper per foot, angles, tail-stock offset and diameters along the taper. */
 @Component({
   selector: 'sw-lathe-tapers-page',
@@ -142,8 +134,8 @@ export default class LatheTapersPage {
   }));
   protected readonly query = bindQueryState(this.form, 'lathe-taper');
   // A choice no page offers (a mistyped address: ?define=foo) goes back to the default.
-  private readonly knownDefine = keepKnown(this.form.controls.define, ['standard', 'tpf', 'angle', 'diameters'], LATHE_DEFAULTS.define);
-  private readonly knownMethod = keepKnown(this.form.controls.method, ['compound', 'offset'], LATHE_DEFAULTS.method);
+  private readonly knownDefine = keepKnownChoice(this.form.controls.define, (v) => ['standard', 'tpf', 'angle', 'diameters'].includes(v as string), LATHE_DEFAULTS.define);
+  private readonly knownMethod = keepKnownChoice(this.form.controls.method, (v) => v === 'compound' || v === 'offset', LATHE_DEFAULTS.method);
   private readonly computable = openComputable(this.form);
   protected readonly calc = liveCalc<LatheTapersForm, LatheTaperResult>(this.form, latheCalc);
   protected readonly controlMessage = controlMessage;

@@ -15,6 +15,7 @@ import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
 import { DerivationPanel } from '../workbench/derivation-panel';
 import { controlMessage } from '../workbench/field-errors';
+import { keepKnownChoice } from '../workbench/known-choice';
 import { liveCalc } from '../workbench/live-calc';
 import { bindQueryState } from '../workbench/query-state';
 import { type ResultItem, ResultList } from '../workbench/result-list';
@@ -55,18 +56,6 @@ function num(text: string): number {
   return Number.isFinite(n) ? n : 0;
 }
 
-/**
- * Puts a kind no page offers (a mistyped address, an old bookmark: ?kind=foo, ?kind=) back to the
- * default, now and whenever it is set again; the address follows the form. Call in an injection
- * context, before the page's first calculation.
- */
-function keepKnownKind(kind: FormControl<RollKind>): Subscription {
-  const fix = (value: unknown) => {
-    if (!isRollKind(value)) kind.setValue(PINS_DEFAULTS.kind);
-  };
-  fix(kind.value);
-  return kind.valueChanges.pipe(takeUntilDestroyed()).subscribe(fix);
-}
 
 /**
  * Empties the measured reading when the dovetail's side changes: a reading over male rolls means
@@ -117,7 +106,7 @@ export default class PinsRollsPage {
   protected readonly kinds = ROLL_KINDS;
   protected readonly cautions = ROLL_CAUTIONS;
   protected readonly query = bindQueryState(this.form, 'pins-rolls');
-  private readonly kindGuard = keepKnownKind(this.form.controls.kind);
+  private readonly kindGuard = keepKnownChoice(this.form.controls.kind, isRollKind, PINS_DEFAULTS.kind);
   private readonly sideGuard = clearReadingOnSideChange(this.form.controls.side, this.form.controls.reading);
   protected readonly calc = liveCalc<PinsRollsForm, PinsOutcome>(this.form, pinsCalc);
   protected readonly controlMessage = controlMessage;

@@ -3,7 +3,7 @@ import { Dec } from '../../../shared/calc/decimal-math';
 import { fewestBlocks, formatBlock, resolveBox } from '../../../shared/calc/gauge-stack';
 import {
   type CompoundSineResult, type SineBarResult, type SineTableResult, type SineTableRow, calculateCompoundSinePlate, calculateSineBar,
-  calculateSineTable,
+  calculateSineTable, unmakeableAxis, unmakeableRows,
 } from '../../../shared/calc/sine-bar';
 import { type CalcResult, type Step, invalid, succeed } from '../../../shared/calc/step';
 import type { ResultItem } from '../workbench/result-list';
@@ -118,7 +118,7 @@ export function runSineBar(v: SineBarFormValues): CalcResult<SineBarOutcome> {
     const t = calculateSineTable(toSineTableRequest(v));
     if (!t.ok) return t;
     const warnings = t.value.unreachable
-      ? [`The box cannot make the stack of ${t.value.unreachable} ${t.value.unreachable === 1 ? 'row' : 'rows'} (no blocks listed): check the missing blocks or change the range.`]
+      ? [unmakeableRows(t.value.unreachable)]
       : [];
     return succeed({ mode, table: t.value, warnings, steps: t.value.steps });
   }
@@ -131,8 +131,8 @@ export function runSineBar(v: SineBarFormValues): CalcResult<SineBarOutcome> {
     const b = blocksFor(v, c.value.axisB.stackHeight);
     if (!b.ok) return b;
     const warnings = [...c.value.warnings];
-    if (v.set && a.value === null) warnings.push(`The box cannot make stack A (${c.value.axisA.stackHeight} ${c.value.unit}).`);
-    if (v.set && b.value === null) warnings.push(`The box cannot make stack B (${c.value.axisB.stackHeight} ${c.value.unit}).`);
+    if (v.set && a.value === null) warnings.push(unmakeableAxis('A', c.value.axisA.stackHeight, c.value.unit));
+    if (v.set && b.value === null) warnings.push(unmakeableAxis('B', c.value.axisB.stackHeight, c.value.unit));
     return succeed({ mode, compound: c.value, blocksA: a.value, blocksB: b.value, warnings, steps: c.value.steps });
   }
   const r = calculateSineBar(toSineBarRequest({ ...v, mode }));

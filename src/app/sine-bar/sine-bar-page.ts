@@ -9,9 +9,8 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 
-import { calculateGaugeStack } from '../../../shared/calc/gauge-stack';
-import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, unmakeableStack } from '../../../shared/calc/sine-bar';
-import { type TeamBox, boxStackRequest, teamBoxOf } from '../../../shared/library/team-boxes';
+import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, unmakeableAxis, unmakeableRows, unmakeableStack } from '../../../shared/calc/sine-bar';
+import { type TeamBox, boxStackBlocks, teamBoxOf } from '../../../shared/library/team-boxes';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { type BoxStackQuery, bindOwnBoxes, boxIdOf, boxStackState, excludedNote } from '../gauge-blocks/own-boxes';
 import { InventoryApi } from '../inventory/inventory-api';
@@ -133,13 +132,6 @@ export default class SineBarPage {
     const box = this.loadedBox();
     return box && box.id === boxIdOf(this.setValue()) ? box : null;
   });
-  /** The fewest blocks from the chosen box for a stack, or null when it cannot make it. */
-  private blocksFromBox(box: TeamBox, stack: string): string[] | null {
-    if (Number(stack) === 0) return [];
-    const request = boxStackRequest(box, { target: stack, wear: false });
-    const found = request ? calculateGaugeStack(request) : null;
-    return found?.ok ? found.value.blocks : null;
-  }
   /** The table of stacks, or null; with the team's box, each row's blocks from it. */
   protected readonly table = computed(() => {
     const o = this.calc.value();
@@ -147,7 +139,7 @@ export default class SineBarPage {
     if (!this.ownBox()) return o.table;
     const box = this.chosenBox();
     const rows = o.table.rows.map((row) => {
-      const blocks = box ? this.blocksFromBox(box, row.stackHeight) : null;
+      const blocks = box ? boxStackBlocks(box, row.stackHeight) : null;
       return { ...row, blocks, count: blocks ? blocks.length : null };
     });
     return { ...o.table, rows, unreachable: box ? rows.filter((r) => r.blocks === null).length : 0 };
@@ -158,21 +150,21 @@ export default class SineBarPage {
     if (o?.mode !== 'compound') return null;
     if (!this.ownBox()) return o;
     const box = this.chosenBox();
-    const blocksA = box ? this.blocksFromBox(box, o.compound.axisA.stackHeight) : null;
-    const blocksB = box ? this.blocksFromBox(box, o.compound.axisB.stackHeight) : null;
+    const blocksA = box ? boxStackBlocks(box, o.compound.axisA.stackHeight) : null;
+    const blocksB = box ? boxStackBlocks(box, o.compound.axisB.stackHeight) : null;
     return { ...o, blocksA, blocksB };
   });
   /** What the team's box cannot make in the table or the compound plate (the box once loaded). */
   protected readonly boxWarnings = computed(() => {
     if (!this.ownBox() || !this.chosenBox()) return [];
     const t = this.table();
-    if (t?.unreachable) return [`The box cannot make the stack of ${t.unreachable} ${t.unreachable === 1 ? 'row' : 'rows'} (no blocks listed): check the missing blocks or change the range.`];
+    if (t?.unreachable) return [unmakeableRows(t.unreachable)];
     const c = this.compound();
     if (!c) return [];
     const unit = c.compound.unit;
     return [
-      ...(c.blocksA === null ? [`The box cannot make stack A (${c.compound.axisA.stackHeight} ${unit}).`] : []),
-      ...(c.blocksB === null ? [`The box cannot make stack B (${c.compound.axisB.stackHeight} ${unit}).`] : []),
+      ...(c.blocksA === null ? [unmakeableAxis('A', c.compound.axisA.stackHeight, unit)] : []),
+      ...(c.blocksB === null ? [unmakeableAxis('B', c.compound.axisB.stackHeight, unit)] : []),
     ];
   });
   /** Whether the rows' blocks can be said (a standard set, or the team's box once loaded). */
