@@ -67,8 +67,19 @@ describe('dimension geometry', () => {
       const g = angleArc({ x: 100, y: 100 }, 50, 0, 90, '90°');
       expect(g.arc).toBe('M150,100A50,50,0,0,0,100,50');
       expect(g.arrows).toBe('M150,100L153,90L147,90ZM100,50L110,53L110,47Z');
-      // 61·cos 45° = 43.1335
-      expect(g.label).toEqual({ x: 143.13, y: 56.87, rotate: 0, text: '90°' });
+      // The text '90°' is about 3·0.62·14 = 26.04 wide and 14 high. At 69 out along 45° its centre
+      // is 48.79 from the centre each way and its nearest corner (35.77, 41.79) is 55.01 away, the
+      // first whole step clear of radius 50 + gap 5 (at 68: 54.0).
+      expect(g.label).toEqual({ x: 148.79, y: 51.21, rotate: 0, text: '90°' });
+    });
+
+    it('should put a small angle\'s text beyond its arc, not across the arc and its arrows', () => {
+      const g = angleArc({ x: 0, y: 0 }, 60, 0, 3, '3°00\'00"');
+      // 8 characters: about 69.4 wide. On the bisector (1.5°) the box must start past 60 + 5.
+      const left = g.label.x - (8 * 0.62 * 14) / 2;
+      expect(left).toBeGreaterThanOrEqual(65 - 0.5);
+      expect(left).toBeLessThan(67);
+      expect(g.label.y).toBeCloseTo(-Math.tan((1.5 * Math.PI) / 180) * g.label.x, 1);
     });
 
     it('should accept the ends in either order', () => {

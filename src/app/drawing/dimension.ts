@@ -144,10 +144,15 @@ export function polarPoint(center: Point, radius: number, deg: number): Point {
   return { x: center.x + radius * Math.cos(r), y: center.y - radius * Math.sin(r) };
 }
 
+/** Font size of an angle arc's text in view units (as `.arc-text` in dimension-mark.ts). */
+const ARC_TEXT_SIZE = 14;
+
 /**
  * An arc marking the angle between the directions `fromDeg` and `toDeg` (degrees, counter-clockwise
- * as seen on screen, 0° pointing right) about `center`, with arrows at both ends and the label
- * `labelGap` outside the arc's middle.
+ * as seen on screen, 0° pointing right) about `center`, with arrows at both ends and the label on
+ * the arc's bisector, moved out until its text (estimated, as label-room.ts does, 0.62 of the size
+ * a character, centred on its point) stays `labelGap` clear of the arc: a small angle's text no
+ * longer lies across its own arc and arrows.
  */
 export function angleArc(center: Point, radius: number, fromDeg: number, toDeg: number, text: string, style: DimensionStyle = DIMENSION_STYLE): AngleArcGeometry {
   if (!(radius > 0)) throw new Error(`angleArc: radius must be > 0, got ${radius}`);
@@ -169,6 +174,19 @@ export function angleArc(center: Point, radius: number, fromDeg: number, toDeg: 
   const tHi = tangentAt(hi);
   arrowHead(arrows, start, outside ? tLo : { x: -tLo.x, y: -tLo.y }, style);
   arrowHead(arrows, polarPoint(center, radius, hi), outside ? { x: -tHi.x, y: -tHi.y } : tHi, style);
-  const mid = polarPoint(center, radius + style.labelGap + 6, (lo + hi) / 2);
+  const halfW = ([...text].length * 0.62 * ARC_TEXT_SIZE) / 2;
+  const halfH = ARC_TEXT_SIZE / 2;
+  const clearOfArc = (p: Point): boolean => {
+    // The nearest point of the text's box to the centre.
+    const dx = Math.max(0, Math.abs(p.x - center.x) - halfW);
+    const dy = Math.max(0, Math.abs(p.y - center.y) - halfH);
+    return Math.hypot(dx, dy) >= radius + style.labelGap;
+  };
+  let distance = radius + style.labelGap + 6;
+  let mid = polarPoint(center, distance, (lo + hi) / 2);
+  while (!clearOfArc(mid) && distance < radius + 4 * (halfW + halfH)) {
+    distance += 1;
+    mid = polarPoint(center, distance, (lo + hi) / 2);
+  }
   return { arc: arc.toString(), arrows: arrows.toString(), label: { x: round2(mid.x), y: round2(mid.y), rotate: 0, text } };
 }

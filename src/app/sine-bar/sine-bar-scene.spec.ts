@@ -55,6 +55,26 @@ describe('sineBarScene', () => {
     expect(ys[0] - ys[1]).toBeGreaterThanOrEqual(16);
   });
 
+  it('should keep the top block label clear of the stack height\'s top extension line', () => {
+    const thin = sineBarScene({ ...INPUT, blocks: [{ size: 2.45, label: '2.450' }, { size: 0.05, label: '0.050' }] }, 640);
+    const topLine = corners(thin.heightDim?.extensionLines ?? '').map((p) => p.y);
+    const top = Math.min(...topLine);
+    // 13-unit figures drawn 4 below their point reach 0.7·13 − 4 = 5.1 above it.
+    expect(thin.blocks[1].labelY - 5.1).toBeGreaterThan(top);
+  });
+
+  it('should close four labels up a little to keep them between the stack\'s top and bottom lines', () => {
+    // 1.2519 in = 1.000 + 0.101 + 0.1009 + 0.050 at 14.5°: a short stack for four labels.
+    // At 548 units wide (the page beside its form) the stack is about 56 units tall.
+    const four = sineBarScene({ ...INPUT, angleDeg: 14.4775, stackHeight: 1.2519, blocks: [1, 0.101, 0.1009, 0.05].map((size) => ({ size, label: String(size) })) }, 548);
+    const lines = corners(four.heightDim?.extensionLines ?? '').map((p) => p.y);
+    const ys = four.blocks.map((b) => b.labelY);
+    // Figures 13 units high with the baseline 4 below the point reach 5.1 above it and 4 below it.
+    expect(Math.min(...ys) - 5.1).toBeGreaterThan(Math.min(...lines));
+    expect(Math.max(...ys) + 4).toBeLessThan(Math.max(...lines));
+    for (let i = 1; i < ys.length; i += 1) expect(ys[i - 1] - ys[i]).toBeGreaterThanOrEqual(13 - 0.01);
+  });
+
   it('should dimension L along the bar and H beside the stack', () => {
     expect(scene.lengthDim.label).toMatchObject({ text: '5.0000 in', rotate: -30 });
     expect(scene.heightDim?.label).toMatchObject({ text: '2.5000 in', rotate: -90 });

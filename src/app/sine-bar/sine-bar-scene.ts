@@ -52,8 +52,17 @@ const MARGIN = 56;
 const MARGIN_RIGHT = 100;
 /** Distance from the block labels' left edge to the stack-height dimension (a 6-figure label is about 48 units). */
 const HEIGHT_DIM_GAP = 62;
+/**
+ * How far a block label's point keeps inside the stack's top and bottom lines. Its figures (13
+ * units, baseline 4 below the point) reach about 0.7·13 = 9.1 above the baseline: 5.1 above the
+ * point and 4 below it, each with 2 to spare for the text's halo.
+ */
+const LABEL_CLEAR_OF_TOP_LINE = 7.5;
+const LABEL_CLEAR_OF_BOTTOM_LINE = 6.5;
 /** Gap between stacked block labels, view units (one line of 13-unit text). */
 const LABEL_GAP = 16;
+/** The closest block labels come when the stack is short for them: figures 9.1 high, about 4 apart. */
+const LABEL_GAP_TIGHT = 13;
 
 /**
  * Lays out a sine bar on its rolls, to scale: the surface plate at y = 0, the low roll of
@@ -98,8 +107,16 @@ export function sineBarScene(input: SineBarSceneInput, width: number): SineBarSc
     return { rect, mid, label: b.label };
   });
   // Labels go right of the stack, top block first on screen, spread so thin blocks stay readable.
+  // The stack-height dimension's top extension line runs right from the stack's top face through
+  // the label column, so the top label starts a text's half height and a little below it.
   const order = raw.map((_, i) => i).reverse();
-  const spread = spreadPositions(order.map((i) => raw[i].mid.y), LABEL_GAP, v({ x: 0, y: 0 }).y - 4);
+  // The bottom extension line likewise; when the labels do not fit between the two at a full
+  // line's gap, they close up to a little more than the text's height first.
+  const belowTopLine = v({ x: 0, y: H }).y + LABEL_CLEAR_OF_TOP_LINE;
+  const aboveBottomLine = v({ x: 0, y: 0 }).y - LABEL_CLEAR_OF_BOTTOM_LINE;
+  const room = (aboveBottomLine - belowTopLine) / Math.max(1, raw.length - 1);
+  const gap = Math.min(LABEL_GAP, Math.max(LABEL_GAP_TIGHT, room));
+  const spread = spreadPositions(order.map((i) => Math.max(raw[i].mid.y, belowTopLine)), gap, aboveBottomLine);
   const labelX = round2(v({ x: right, y: 0 }).x + 36);
   const blocks: DrawnBlock[] = raw.map((b, i) => {
     const labelY = spread[order.indexOf(i)];

@@ -33,14 +33,15 @@ import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene
         <path class="level" [attr.d]="s.stopLevel" />
         <path class="level" [attr.d]="s.touchOffLevel" />
         <path class="level" [attr.d]="s.levelLine" />
+        <!-- The cutter under the dimensions: a short face's length can lie across it and stays readable. -->
+        <path class="cutter" [attr.d]="s.cutterFlutes" />
+        <path class="cutter shank" [attr.d]="s.cutterShank" />
         <g [swAngleArc]="s.angleArc" />
         <g [swDimension]="s.faceDim" />
         <g [swDimension]="s.depthDim" class="depth" />
         @if (s.endDim; as endDim) {
           <g [swDimension]="endDim" />
         }
-        <path class="cutter" [attr.d]="s.cutterFlutes" />
-        <path class="cutter shank" [attr.d]="s.cutterShank" />
         <circle class="touch-off" [attr.cx]="s.touchOff.x" [attr.cy]="s.touchOff.y" r="5" />
         <text [attr.class]="'note ' + s.touchOffAnchor" [attr.x]="s.touchOffLabel.x" [attr.y]="s.touchOffLabel.y">{{ s.touchOffLabel.text }}</text>
         @if (s.passLabel; as label) {
