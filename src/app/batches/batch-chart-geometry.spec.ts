@@ -45,4 +45,23 @@ describe('chartGeometry', () => {
     expect(g.xTicks.map((t) => t.label)).toEqual(['1', '2', '3', '4', '5', '6', '7', '8']);
     expect(g.yTicks.every((t) => /^\d\.\d{4}$/.test(t.label))).toBe(true);
   });
+
+  it('should draw a few parts with full-size dots and a longer run with dots that stay apart', () => {
+    expect(chartGeometry(stats([[1, '0.5856', true]]), 8).marks).toMatchObject({ r: 5, trace: 1.5 });
+    for (const parts of [40, 60, 100]) {
+      const g = chartGeometry(stats(Array.from({ length: parts }, (_, i): [number, string, boolean] => [i + 1, '0.5855', true])), parts);
+      const spacing = g.points[1]!.x - g.points[0]!.x;
+      // Two neighbours' dots, outlines included, do not meet.
+      expect(2 * g.marks.r + g.marks.outline).toBeLessThanOrEqual(spacing);
+      expect(g.marks.r).toBeGreaterThanOrEqual(1.5);
+    }
+  });
+
+  it('should draw a long run as its trace with only the failed parts dotted', () => {
+    const long = Array.from({ length: 300 }, (_, i): [number, string, boolean] => [i + 1, i === 150 ? '0.5870' : '0.5855', i !== 150]);
+    const g = chartGeometry(stats(long), 300);
+    expect(g.marks.r).toBe(0);
+    expect(g.marks.failR).toBeGreaterThanOrEqual(3);
+    expect(g.xTicks.length).toBeLessThanOrEqual(11);
+  });
 });

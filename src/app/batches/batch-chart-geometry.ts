@@ -33,6 +33,12 @@ export interface ChartGeometry {
   readonly xTicks: ReadonlyArray<{ readonly x: number; readonly label: string }>;
   readonly yTicks: ReadonlyArray<{ readonly y: number; readonly label: string }>;
   readonly plot: { readonly left: number; readonly right: number; readonly top: number; readonly bottom: number };
+  /**
+   * Marker sizes for the run's length: a few parts get 5-unit dots, a longer run smaller ones, so
+   * neighbours do not merge into one band; a long run shows its trace with only the failed parts
+   * dotted (`r` 0). A failed part's dot stays big enough to find.
+   */
+  readonly marks: { readonly r: number; readonly failR: number; readonly outline: number; readonly trace: number };
 }
 
 /** The default chart size (it scales with its container). */
@@ -62,6 +68,12 @@ export function chartGeometry(stats: CheckStats, partCount: number, box: ChartBo
   const step = Math.max(1, Math.ceil(lastPart / 10));
   const xTicks = Array.from({ length: lastPart }, (_, i) => i + 1).filter((n) => n === 1 || n % step === 0).map((n) => ({ x: x(n), label: String(n) }));
   const yTicks = y.ticks(5).map((v) => ({ y: y(v), label: v.toFixed(decimals) }));
+  // A dot's radius at most 0.4 of the spacing of two parts, so neighbours stay apart (5 units up
+  // to about 40 parts). Closer than 4 units (a run of more than about 115 parts) the passing parts
+  // are the trace alone and only the failed ones are dotted.
+  const spacing = lastPart > 1 ? x(2) - x(1) : Infinity;
+  const r = spacing < 4 ? 0 : Math.round(Math.min(5, Math.max(1.5, 0.4 * spacing)) * 100) / 100;
+  const marks = { r, failR: Math.max(r, 3), outline: r >= 4 || r === 0 ? 1.5 : 0.1 * spacing, trace: r >= 4 ? 1.5 : 1 };
   return {
     viewBox: `0 0 ${width} ${height}`,
     band: { x: plot.left, y: y(high), width: plot.right - plot.left, height: Math.max(0, y(low) - y(high)) },
@@ -72,5 +84,6 @@ export function chartGeometry(stats: CheckStats, partCount: number, box: ChartBo
     xTicks,
     yTicks,
     plot,
+    marks,
   };
 }

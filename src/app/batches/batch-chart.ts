@@ -24,9 +24,13 @@ import { chartGeometry } from './batch-chart-geometry';
         @if (g.firstY !== null) {
           <line class="first" [attr.x1]="g.plot.left" [attr.x2]="g.plot.right" [attr.y1]="g.firstY" [attr.y2]="g.firstY" />
         }
-        <path class="trace" [attr.d]="g.path" />
+        <path class="trace" [attr.d]="g.path" [attr.stroke-width]="g.marks.trace" />
         @for (p of g.points; track p.partNo) {
-          <circle [class.fail]="!p.pass" [attr.cx]="p.x" [attr.cy]="p.y" r="5"><title>Part {{ p.partNo }}: {{ p.value }}</title></circle>
+          @if (!p.pass || g.marks.r > 0) {
+            <circle [class.fail]="!p.pass" [attr.cx]="p.x" [attr.cy]="p.y" [attr.r]="p.pass ? g.marks.r : g.marks.failR" [attr.stroke-width]="g.marks.outline">
+              <title>Part {{ p.partNo }}: {{ p.value }}{{ p.pass ? '' : ' (out of tolerance)' }}</title>
+            </circle>
+          }
         }
       </svg>
       <div class="legend"><span class="key band-key"></span> tolerance band <span class="key nominal-key"></span> nominal <span class="key first-key"></span> first part</div>
@@ -41,8 +45,8 @@ import { chartGeometry } from './batch-chart-geometry';
     .tick { font-size: 11px; fill: var(--mat-sys-on-surface-variant); }
     .nominal { stroke: var(--mat-sys-primary); stroke-width: 1.5; }
     .first { stroke: var(--mat-sys-tertiary); stroke-dasharray: 5 4; }
-    .trace { fill: none; stroke: var(--mat-sys-on-surface); stroke-width: 1.5; }
-    circle { fill: var(--mat-sys-primary); stroke: var(--mat-sys-surface); stroke-width: 1.5; }
+    .trace { fill: none; stroke: var(--mat-sys-on-surface); }
+    circle { fill: var(--mat-sys-primary); stroke: var(--mat-sys-surface); }
     circle.fail { fill: var(--mat-sys-error); }
     .legend { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); display: flex; gap: 6px; align-items: center; flex-wrap: wrap; }
     .key { display: inline-block; width: 18px; height: 10px; margin-left: 8px; }
