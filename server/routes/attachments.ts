@@ -57,6 +57,9 @@ function utf8Name(name: string): string {
   return decoded.includes('\uFFFD') ? name : decoded;
 }
 
+/** Longest list of file names a history entry keeps (then "and N more"). */
+const MAX_FILE_LIST = 600;
+
 const WITH_UPLOADER = [{ model: User, as: 'uploadedBy', attributes: ['id', 'name'] }];
 
 /**
@@ -65,10 +68,22 @@ const WITH_UPLOADER = [{ model: User, as: 'uploadedBy', attributes: ['id', 'name
  * for a lead to release — as an edit of its inputs does. The set-up row is locked for the change,
  * so an edit at the same moment waits and then finds the new version.
  */
-async function recordFileChange(setupId: number, action: 'attached' | 'detached', user: User, change: FieldChange, transaction: Transaction): Promise<void> {
+async function recordFileChange(setupId: number, action: 'attached' | 'detached', user: User, file: { id: number; fileName: string }, transaction: Transaction): Promise<void> {
   const setup = await Setup.findByPk(setupId, { transaction, lock: transaction.LOCK.UPDATE });
   if (!setup) throw new HttpError(404, 'No set-up with that id.');
-  const changes = [change];
+  // The files before and after, so each version's entry says which files it had, not only the one.
+  const now = await Attachment.findAll({ where: { setupId }, attributes: ['id', 'fileName'], order: [['id', 'ASC']], transaction });
+  const before = action === 'attached' ? now.filter((a) => a.id !== file.id) : [...now, file].sort((a, b) => a.id - b.id);
+  const names = (list: ReadonlyArray<{ fileName: string }>): string => {
+    let text = '';
+    for (const [i, a] of list.entries()) {
+      const next = text ? `${text}, ${a.fileName}` : a.fileName;
+      if (next.length > MAX_FILE_LIST) return `${text} and ${list.length - i} more`;
+      text = next;
+    }
+    return text;
+  };
+  const changes: FieldChange[] = [{ field: 'attachments', from: names(before), to: names(now) }];
   if (setup.status === 'released') {
     changes.push({ field: 'status', from: 'released', to: 'draft' });
     await setup.update({ status: 'draft', releasedAt: null, releasedById: null, version: setup.version + 1 }, { transaction });
@@ -123,7 +138,7 @@ export function createAttachmentsRouter({ sequelize, storage, maxBytes }: Attach
           { teamId: setup.teamId, setupId: setup.id, storageKey: key, thumbnailKey: thumbKey, fileName, contentType: checked.contentType, size: checked.size, sha256: checked.sha256, width: checked.width, height: checked.height, uploadedById: user.id },
           { transaction },
         );
-        await recordFileChange(setup.id, 'attached', user, { field: 'attachments', from: '', to: fileName }, transaction);
+        await recordFileChange(setup.id, 'attached', user, { id: row.id, fileName }, transaction);
         return row.id;
       });
     } catch (err) {
@@ -174,7 +189,7 @@ export function createAttachmentsRouter({ sequelize, storage, maxBytes }: Attach
     if (setup.status === 'archived') throw new HttpError(409, 'This set-up is archived and read-only.');
     await sequelize.transaction(async (transaction) => {
       await attachment.destroy({ transaction });
-      await recordFileChange(setup.id, 'detached', user, { field: 'attachments', from: attachment.fileName, to: '' }, transaction);
+      await recordFileChange(setup.id, 'detached', user, attachment, transaction);
     });
     await storage.delete(attachment.storageKey);
     if (attachment.thumbnailKey) await storage.delete(attachment.thumbnailKey);

@@ -191,12 +191,15 @@ describe('set-up attachments (disk storage)', () => {
     await c.machinist.agent.put(`/api/setups/${id}`).set('X-CSRF-Token', c.machinist.token).send({ name: 'Renamed', kind: 'taper', inputs: taper, version: v }).expect(409);
     const revs = (await c.machinist.agent.get(`/api/setups/${id}/revisions`).expect(200)).body.revisions as Array<{ action: string; status: string; changes: Array<{ field: string; from: string; to: string }> }>;
     expect(revs[0]).toMatchObject({ action: 'attached', status: 'draft' });
-    expect(revs[0]!.changes).toEqual([{ field: 'attachments', from: '', to: 'second.pdf' }, { field: 'status', from: 'released', to: 'draft' }]);
+    // The entry lists the files before and after, so the version's files can be read from it.
+    expect(revs[0]!.changes).toEqual([{ field: 'attachments', from: 'first.png', to: 'first.png, second.pdf' }, { field: 'status', from: 'released', to: 'draft' }]);
 
     // Removing a file from a released set-up does the same, a lead's removal too.
     const again = await c.lead.agent.post(`/api/setups/${id}/release`).set('X-CSRF-Token', c.lead.token).expect(200);
     await c.lead.agent.delete(`/api/setups/${id}/attachments/${first.body.id}`).set('X-CSRF-Token', c.lead.token).expect(204);
     expect((await c.lead.agent.get(`/api/setups/${id}`).expect(200)).body).toMatchObject({ status: 'draft', version: (again.body.version as number) + 1 });
+    const removed = (await c.lead.agent.get(`/api/setups/${id}/revisions`).expect(200)).body.revisions[0];
+    expect(removed).toMatchObject({ action: 'detached', changes: [{ field: 'attachments', from: 'first.png, second.pdf', to: 'second.pdf' }, { field: 'status', from: 'released', to: 'draft' }] });
     // No batch can start on it until it is released again.
     const refused = await c.lead.agent.post('/api/batches').set('X-CSRF-Token', c.lead.token).send({ setupId: id, partCount: 2 }).expect(409);
     expect(refused.body.error).toContain('Only a released set-up can be run');

@@ -101,6 +101,8 @@ describe('set-up library, end to end', () => {
     expect(await asked).toContain('it becomes a draft again until you or another lead release it');
     await page.getByText('clamped-in-vise.png', { exact: true }).waitFor();
     await page.locator('.status-draft').waitFor();
+    // The history says, in words, which files the new version has.
+    await page.locator('.history .change', { hasText: 'Files: wedge-drawing.png → wedge-drawing.png, clamped-in-vise.png' }).waitFor();
     await page.getByRole('button', { name: 'Release' }).click();
     await page.locator('.status-released').waitFor();
     await screenshot(page, 'library-detail-desktop');

@@ -23,6 +23,7 @@ import { Auth } from '../core/auth';
 import { ErrorNotice } from '../core/error-notice';
 import { BatchesApi } from '../batches/batches-api';
 import { checkFromResult, checkKey, DEFAULT_TOLERANCE } from './check-suggestions';
+import { historyFieldLabel } from './history-field';
 import { attachmentUrl, exportUrl, KIND_AREAS, LibraryApi, sheetUrl, STATUS_LABELS, thumbnailUrl } from './library-api';
 
 /** Largest upload the page lets through before asking the server (the server has the final say). */
@@ -49,6 +50,8 @@ export default class SetupDetailPage {
 
   protected readonly setup = signal<SetupDto | null>(null);
   protected readonly revisions = signal<RevisionDto[]>([]);
+  /** A history entry's field in words. */
+  protected readonly fieldLabel = historyFieldLabel;
   protected readonly attachments = signal<AttachmentDto[]>([]);
   protected readonly runs = signal<BatchRunDto[]>([]);
   protected readonly loadError = signal<string | null>(null);
