@@ -3,12 +3,12 @@ import {
   angleBlocksRequestSchema,
   compoundSineRequestSchema,
   gaugeStackRequestSchema,
-  latheTaperRequestSchema,
   overPinsRequestSchema,
   sineBarRequestSchema,
   sineTableRequestSchema,
   taperRequestSchema,
 } from '../../shared/api/calc';
+import { latheTaperEngineSchema } from '../../shared/calc/lathe-taper';
 
 /**
  * OpenAPI 3.1 paths for the public calculation API (/api/calc). Request bodies are generated from
@@ -159,9 +159,9 @@ const responses = {
   latheTaper: object(
     {
       unit: { enum: ['in', 'mm'] },
-      taperPerFoot: decimalString,
-      taperPerInch: decimalString,
-      ratio: { type: 'string', description: '"1:x"' },
+      taperPerFoot: { ...decimalString, description: 'Taper per foot on the diameter, in/ft (for mm work the same ratio × 12; the page shows mm work by its ratio instead)' },
+      taperPerInch: { ...decimalString, description: 'Diameter change per unit of length: in/in, or mm per mm for mm work' },
+      ratio: { type: 'string', description: '"1:x", x to 3 decimals (diameter change 1 over a length of x)' },
       includedAngleDeg: decimalString,
       includedAngleDms: dmsString,
       halfAngleDeg: decimalString,
@@ -246,8 +246,8 @@ export const calcPaths = {
   '/api/calc/angle-blocks': post('Angle blocks: fewest blocks for an angle, or the angle of a combination', 'Blocks add with marks in line and subtract when reversed.', angleBlocksRequestSchema, responses.angleBlocks, 'No combination makes a positive angle'),
   '/api/calc/lathe-taper': post(
     'Lathe taper conversions and tail-stock offset',
-    'Give one of taperPerFoot, taperPerInch, ratio, includedAngle, halfAngle, standard — or largeDiameter, smallDiameter and length.',
-    latheTaperRequestSchema,
+    'Give one of taperPerFoot, taperPerInch, ratio ("1:20"), includedAngle, halfAngle, standard — or largeDiameter, smallDiameter and length. Warnings say when the tail-stock offset is more than a tail stock usually sets over, when the taper is too steep for the offset method, and when the cone is very flat.',
+    latheTaperEngineSchema,
     responses.latheTaper,
     'The taper comes to a point within the given length',
   ),

@@ -96,6 +96,29 @@ describe('calculateAngleBlocks', () => {
     expect(r.achievedAngleDms).toBe('17°35\'00"');
   });
 
+  it('should say reversed blocks that equal the added ones cancel to 0°, and keep "outweigh" for more', () => {
+    // 45° − 30° − 15° = 0° from the 16-piece set; 1° − 1° from two custom 1° blocks (lab sheet rule, REFERENCE.md §6).
+    for (const input of [
+      { set: 'angle-16', combination: [{ angle: '45°' }, { angle: '30°', reversed: true }, { angle: '15°', reversed: true }] },
+      { blocks: ['1°', '1°'], combination: [{ angle: '1°' }, { angle: '1°', reversed: true }] },
+    ]) {
+      const r = value(calculateAngleBlocks(input));
+      expect(r.achievedAngleDms).toBe('0°00\'00"');
+      expect(r.warnings).toEqual(['The reversed blocks cancel the added ones: the combination makes 0°, a level face.']);
+    }
+    // 30° − 45° = −15°: the reversed block does outweigh the added one.
+    const over = value(calculateAngleBlocks({ set: 'angle-16', combination: [{ angle: '30°' }, { angle: '45°', reversed: true }] }));
+    expect(over.warnings).toEqual(['The reversed blocks outweigh the added ones: the combination leans the other way.']);
+  });
+
+  it('should give block angles in decimal degrees to 6 places, so each whole arc-second reads apart', () => {
+    // Angle blocks come in whole seconds: 1″ = 1/3600° = 0.000278°, 3″ = 0.000833° (derived). At
+    // 0.0001° they would read 0.0003° and 0.0008° (1.08″ and 2.88″): the 6 places are deliberate.
+    const r = value(calculateAngleBlocks({ set: 'angle-16', combination: [{ angle: '3"' }, { angle: '1"', reversed: true }] }));
+    expect(r.blocks.map((b) => b.angleDeg)).toEqual(['0.000833', '0.000278']);
+    expect(r.achievedAngleDeg).toBe('0.000556');
+  });
+
   it('should match an exhaustive search on random small sets (property)', () => {
     fc.assert(
       fc.property(fc.uniqueArray(fc.integer({ min: 1, max: 400 }), { minLength: 1, maxLength: 7 }), fc.integer({ min: 1, max: 900 }), (blocks, target) => {

@@ -17,7 +17,10 @@ import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step
 export interface AngleBlockUse {
   /** The block's angle as DMS. */
   angle: string;
-  /** The block's angle, decimal degrees. */
+  /**
+   * The block's angle, decimal degrees to 6 places (0.000001°): blocks come in whole seconds of
+   * arc, and at 0.0001° (0.36″) a 1″ or 3″ block would read 1.08″ or 2.88″.
+   */
   angleDeg: string;
   /** 'add' (marks in line) or 'reverse' (turned end for end: subtracts). */
   direction: 'add' | 'reverse';
@@ -27,7 +30,7 @@ export interface AngleBlockUse {
 export interface AngleBlocksResult {
   /** Set id, or null for a custom set. */
   set: string | null;
-  /** The wanted angle (null when totalling a given combination). */
+  /** The wanted angle, decimal degrees to 6 places (null when totalling a given combination). */
   targetDeg: string | null;
   /** The wanted angle as DMS. */
   targetDms: string | null;
@@ -35,7 +38,7 @@ export interface AngleBlocksResult {
   blocks: AngleBlockUse[];
   /** Number of blocks. */
   count: number;
-  /** The angle the blocks make, decimal degrees. */
+  /** The angle the blocks make, decimal degrees to 6 places (whole seconds, as for each block). */
   achievedAngleDeg: string;
   /** The angle the blocks make, DMS. */
   achievedAngleDms: string;
@@ -229,7 +232,8 @@ export function calculateAngleBlocks(input: AngleBlocksRequest | unknown): CalcR
       }
       const text = used.map((u, i) => `${u.direction === 'reverse' ? '− ' : i ? '+ ' : ''}${u.angle}`).join(' ');
       steps.push(step('Angle of the combination', 'θ = Σ added − Σ reversed', text, formatDms(total), ''));
-      if (total.lte(0)) warnings.push('The reversed blocks outweigh the added ones: the combination leans the other way.');
+      if (total.isZero()) warnings.push('The reversed blocks cancel the added ones: the combination makes 0°, a level face.');
+      else if (total.lt(0)) warnings.push('The reversed blocks outweigh the added ones: the combination leans the other way.');
       return succeed({
         set: p.set ?? null,
         targetDeg: null,

@@ -63,6 +63,24 @@ describe('calculateGaugeStack', () => {
     });
   });
 
+  describe('wear blocks', () => {
+    it('should name the wear blocks at both ends of both stacks, apart from the set\'s own block of that size', () => {
+      // 2.75 = 0.050 + 2.650 + 0.050 with the two 0.050 in wear blocks; by the last digit 2.650 is
+      // 2.000 + 0.600 + 0.050, which uses the 81-piece set's own 0.050 block too (derived).
+      const r = stack({ target: '2.75', set: 'inch-81', wearBlocks: '0.050' });
+      expect(r.lastDigit?.blocks).toEqual(['0.050', '2.000', '0.600', '0.050', '0.050']);
+      expect(r.lastDigit?.labels).toEqual(['0.050 wear', '2.000', '0.600', '0.050', '0.050 wear']);
+      // Wear blocks go on the two ends of the stack (common practice); the rest largest first.
+      expect(r.labels[0]).toBe('0.050 wear');
+      expect(r.labels[r.labels.length - 1]).toBe('0.050 wear');
+      expect(r.labels.slice(1, -1)).toEqual(r.blocks.slice(1, -1));
+      expect(r.steps.find((s) => s.label === 'Fewest blocks')?.substituted).toBe(`n = count of (${r.labels.join(' + ')})`);
+      // Without wear blocks the labels are the sizes.
+      const plain = stack({ target: '2.75', set: 'inch-81' });
+      expect(plain.labels).toEqual(plain.blocks);
+    });
+  });
+
   describe('last-digit teaching answer', () => {
     it('should reproduce the NPL hand stack for G3: 1.005 + 1.04 + 1.30 + 5 + 50 (NPL FAQ)', () => {
       const r = stack({ target: '58.345', set: 'metric-112' });

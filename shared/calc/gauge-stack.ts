@@ -174,6 +174,8 @@ export function lastDigitBlocks(box: GaugeBox, target: Dec): Dec[] | null {
 export interface StackAnswer {
   /** Block sizes in wringing order, largest first (wear blocks, when used, at both ends). */
   blocks: string[];
+  /** The same blocks as the result text names them: a wear block says so ("0.050 wear"). */
+  labels: string[];
   /** Number of blocks, wear blocks included. */
   count: number;
   /** Sum of the blocks (equals the target). */
@@ -263,11 +265,22 @@ function blockTolerance(size: Dec, unit: LengthUnit, grade: GaugeGrade): Dec | n
   return band ? new Dec(band.te[grade]) : null;
 }
 
-/** Builds the answer for a stack: blocks in wringing order with wear blocks at both ends. */
+/**
+ * Builds the answer for a stack: blocks in wringing order with the wear blocks at both ends (they
+ * take the wear of wringing and of the work, so the set's own blocks are spared — common
+ * practice), named as wear blocks in `labels` so a set's own block of the same size is told apart.
+ */
 function answer(blocks: Dec[], box: GaugeBox, wear: Dec | undefined): StackAnswer {
+  const sized = blocks.map((b) => formatBlock(b, box));
   const all = wear ? [wear, ...blocks, wear] : blocks;
   const total = all.reduce((a, b) => a.plus(b), new Dec(0));
-  return { blocks: all.map((b) => formatBlock(b, box)), count: all.length, total: formatStack(total, box) };
+  const wearLabel = wear ? `${formatBlock(wear, box)} wear` : '';
+  return {
+    blocks: all.map((b) => formatBlock(b, box)),
+    labels: wear ? [wearLabel, ...sized, wearLabel] : sized,
+    count: all.length,
+    total: formatStack(total, box),
+  };
 }
 
 /**
@@ -311,7 +324,7 @@ export function calculateGaugeStack(input: GaugeStackRequest | unknown): CalcRes
       remainder = next;
     }
     const fewestAnswer = answer(fewest, box, wear);
-    steps.push(blockCountStep(fewestAnswer.blocks, fewestAnswer.count));
+    steps.push(blockCountStep(fewestAnswer.labels, fewestAnswer.count));
     const lastDigit = lastDigitBlocks(box, core);
     const lastDigitAnswer = lastDigit ? answer(lastDigit, box, wear) : null;
     const warnings: string[] = [];

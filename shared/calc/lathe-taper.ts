@@ -1,8 +1,9 @@
+import { z } from 'zod';
 import { formatDegrees, formatDms } from '../angle/angle-text';
-import { latheTaperRequestSchema, parseRequest, type LatheTaperRequest } from '../api/calc';
+import { MAX_LENGTH, latheTaperRequestSchema, optional, parseRequest, type LatheTaperRequest } from '../api/calc';
 import { findMachineTaper, MACHINE_TAPERS, type MachineTaper } from '../data/machine-tapers';
 import { convertLength, formatLength, type LengthUnit } from '../units/length-unit';
-import { Dec, atanDeg, exactText, fixedText, tanDeg } from './decimal-math';
+import { Dec, EXACT_DIGITS, atanDeg, exactText, fixedText, tanDeg } from './decimal-math';
 import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
 
 /**
@@ -71,6 +72,79 @@ export const LATHE_TAPER_CAUTIONS: readonly string[] = [
 
 const AREA = 'Lathe taper';
 
+/** "1:20", " 1 : 20 ", "7:24", "1:0.5". */
+const RATIO_TEXT = /^\s*(\d+(?:\.\d*)?|\.\d+)\s*:\s*(\d+(?:\.\d*)?|\.\d+)\s*$/;
+/** "20", " 20.5 ". */
+const BARE_NUMBER = /^\s*[+-]?(\d+(\.\d*)?|\.\d+)\s*$/;
+
+/**
+ * A taper ratio as the trade writes it, "1:20" or "1 : 20" (diameter change 1 over length 20; "7:24"
+ * works too), or a bare number x read as 1:x (20 → 1:20). A bare number below 1 is refused: 0.05
+ * would be 1:0.05, a 168.58° cone, where the sender almost surely meant 1:20 (0.05 as the taper per
+ * unit length). Parsed as the two sides a:b.
+ */
+export const taperRatioValue = z
+  .union([z.number(), z.string()], { error: 'must be a taper ratio such as "1:20"' })
+  .transform((value, ctx) => {
+    const refuse = (message: string) => {
+      ctx.addIssue({ code: 'custom', message });
+      return z.NEVER;
+    };
+    const sides = typeof value === 'string' ? RATIO_TEXT.exec(value) : null;
+    if (sides) {
+      const [a, b] = [new Dec(sides[1]), new Dec(sides[2])];
+      if (a.lte(0) || b.lte(0)) return refuse(`must have both sides greater than 0, such as "1:20", got "${sides[0].trim()}"`);
+      if (b.div(a).gt(MAX_LENGTH)) return refuse(`must be at most 1:${MAX_LENGTH}`);
+      return { a, b };
+    }
+    if (typeof value === 'string' && !BARE_NUMBER.test(value)) {
+      return refuse(`must be a taper ratio such as "1:20" (a diameter change of 1 over a length of 20), got "${value.trim()}"`);
+    }
+    const x = new Dec(typeof value === 'string' ? value.trim() : value);
+    if (!x.isFinite() || x.lte(0)) return refuse('must be a taper ratio such as "1:20"; a bare number x means 1:x and must be greater than 0');
+    if (x.gt(MAX_LENGTH)) return refuse(`must be at most 1:${MAX_LENGTH}`);
+    if (x.lt(1)) {
+      const text = x.toString();
+      const meant = new Dec(1).div(x).toDecimalPlaces(3).toString();
+      return refuse(
+        `is unclear as a bare number below 1: ${text} would be read as 1:${text}, a diameter change of 1 over a length of ${text}. ` +
+          `Write the ratio with its colon ("1:${meant}" for a taper of 1 in ${meant}, or "1:${text}" if that is meant), or give ${text} as the taper per inch`,
+      );
+    }
+    return { a: new Dec(1), b: x };
+  });
+
+/**
+ * The lathe-taper request as the engine (and so POST /api/calc/lathe-taper) reads it: the shared
+ * schema, with the ratio read as the trade writes it ({@link taperRatioValue}).
+ */
+export const latheTaperEngineSchema = latheTaperRequestSchema.extend({
+  ratio: optional(taperRatioValue).describe(
+    'Taper ratio as the trade writes it: "1:20" (diameter change 1 over length 20), "1 : 20" or "7:24". A bare number x means 1:x (20 → 1:20); one below 1 is refused as unclear (write "1:0.5", or send the taper per inch).',
+  ),
+});
+
+/**
+ * Most tail stocks set over about 1/2 in (13 mm) at most (common practice, from memory: the
+ * set-over scale on the tail stock rarely reads further). Past it, the compound rest or a taper
+ * attachment turns the taper.
+ */
+export const TAILSTOCK_OFFSET_LIMIT_IN = new Dec('0.5');
+
+/**
+ * Half angle (the tilt of the work on the centres), degrees, above which the offset method is not
+ * used: the centres then bear on the edges of the centre holes (common practice, from memory: the
+ * offset method is for slight tapers, up to about 10° included).
+ */
+export const OFFSET_HALF_ANGLE_LIMIT = new Dec(5);
+
+/**
+ * Included angle, degrees, above which a "taper" is a very flat cone, nearer a face than a taper:
+ * the flattest cones in common use, drill points and countersinks, stay below about 140° (common
+ * practice, from memory).
+ */
+export const FLAT_CONE_INCLUDED_ANGLE = new Dec(150);
+
 /** The ways of giving the taper, in words for messages. */
 const DEFINER_WORDS = {
   taperPerFoot: 'the taper per foot',
@@ -89,12 +163,15 @@ const DEFINER_WORDS = {
  */
 export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcResult<LatheTaperResult> {
   return guarded<LatheTaperResult>(AREA, () => {
-    const parsed = parseRequest(AREA, latheTaperRequestSchema, input);
+    const parsed = parseRequest(AREA, latheTaperEngineSchema, input);
     if (!parsed.ok) return parsed;
     const p = parsed.value;
     const unit = p.unit;
     const len = (x: Dec) => formatLength(x, unit);
     const steps: Step[] = [];
+    // A metric job reads the taper per mm of length and as a ratio, never per inch or per foot.
+    const metric = unit === 'mm';
+    const perUnit = metric ? 'Taper per mm of length' : 'Taper per inch';
     const definers = (['taperPerFoot', 'taperPerInch', 'ratio', 'includedAngle', 'halfAngle', 'standard'] as const).filter((f) => p[f] !== undefined);
     if (definers.length > 1) return invalid(AREA, definers[1], `conflicts with ${DEFINER_WORDS[definers[0]]}: define the taper one way only`);
     let D = p.largeDiameter;
@@ -110,28 +187,29 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
       }
       if (D.lte(d)) return invalid(AREA, 'largeDiameter', 'must be larger than the small diameter');
       k = D.minus(d).div(l);
-      steps.push(step('Taper per inch', 'k = (D − d) / l', `k = (${len(D)} − ${len(d)}) / ${len(l)}`, fixedText(k, 6), `${unit}/${unit}`));
+      steps.push(step(perUnit, 'k = (D − d) / l', `k = (${len(D)} − ${len(d)}) / ${len(l)}`, fixedText(k, 6), `${unit}/${unit}`));
     } else {
       if (D && d && l) return invalid(AREA, 'length', 'leave one of the large diameter, small diameter and taper length empty when the taper is given');
       if (definer === 'taperPerFoot') {
         k = (p.taperPerFoot as Dec).div(12);
-        steps.push(step('Taper per inch', 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), `${unit}/${unit}`));
+        steps.push(step(perUnit, 'k = TPF / 12', `k = ${(p.taperPerFoot as Dec).toString()} / 12`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'taperPerInch') {
         k = p.taperPerInch as Dec;
       } else if (definer === 'ratio') {
-        k = new Dec(1).div(p.ratio as Dec);
-        steps.push(step('Taper per inch', 'k = 1 / x (ratio 1:x)', `k = 1 / ${(p.ratio as Dec).toString()}`, fixedText(k, 6), `${unit}/${unit}`));
+        const { a, b } = p.ratio as { a: Dec; b: Dec };
+        k = a.div(b);
+        steps.push(step(perUnit, 'k = a / b (ratio a:b)', `k = ${a.toString()} / ${b.toString()}`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'includedAngle') {
         k = tanDeg((p.includedAngle as Dec).div(2)).mul(2);
-        steps.push(step('Taper per inch', 'k = 2 · tan(α / 2)', `k = 2 · tan(${formatDms(p.includedAngle as Dec)} / 2)`, fixedText(k, 6), `${unit}/${unit}`));
+        steps.push(step(perUnit, 'k = 2 · tan(α / 2)', `k = 2 · tan(${formatDms(p.includedAngle as Dec)} / 2)`, fixedText(k, 6), `${unit}/${unit}`));
       } else if (definer === 'halfAngle') {
         k = tanDeg(p.halfAngle as Dec).mul(2);
-        steps.push(step('Taper per inch', 'k = 2 · tan(α/2)', `k = 2 · tan ${formatDms(p.halfAngle as Dec)}`, fixedText(k, 6), `${unit}/${unit}`));
+        steps.push(step(perUnit, 'k = 2 · tan(α/2)', `k = 2 · tan ${formatDms(p.halfAngle as Dec)}`, fixedText(k, 6), `${unit}/${unit}`));
       } else {
         standard = findMachineTaper(p.standard as string) ?? null;
         if (!standard) return invalid(AREA, 'standard', `unknown taper "${p.standard}"; see GET /api/calc/machine-tapers`);
         k = new Dec(standard.taperPerFoot).div(12);
-        steps.push(step(`Taper per inch (${standard.name})`, 'k = TPF / 12', `k = ${standard.taperPerFoot} / 12`, fixedText(k, 6), `${unit}/${unit}`));
+        steps.push(step(`${perUnit} (${standard.name})`, 'k = TPF / 12', `k = ${standard.taperPerFoot} / 12`, fixedText(k, 6), `${unit}/${unit}`));
         if (!D && !d && !l) {
           const from = (x: string | null) => (x === null ? undefined : convertLength(new Dec(x), standard!.unit, unit));
           D = from(standard.largeDiameter);
@@ -166,16 +244,40 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
     const tpf = k.mul(12);
     const half = atanDeg(k.div(2));
     const included = half.mul(2);
-    // A taper given by its taper per foot (or a standard's) needs no step back to it.
-    if (definer !== 'taperPerFoot' && definer !== 'standard') steps.push(step('Taper per foot', 'TPF = 12 · k', `TPF = 12 · ${fixedText(k, 6)}`, fixedText(tpf, 5), 'in/ft'));
-    steps.push(step('Half angle (compound setting)', 'α/2 = atan(TPF / 24)', `α/2 = atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(half), '°'));
-    steps.push(step('Included angle', 'α = 2 · atan(TPF / 24)', `α = 2 · atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(included), '°'));
+    const ratio = `1:${fixedText(new Dec(1).div(k), 3)}`;
+    if (metric) {
+      // Metric drawings give a taper as a ratio 1:x; the angles follow from k itself.
+      if (definer !== 'ratio') steps.push(step('Taper ratio', '1 : x, x = 1 / k', `x = 1 / ${fixedText(k, 6)}`, ratio, ''));
+      steps.push(step('Half angle (compound setting)', 'α/2 = atan(k / 2)', `α/2 = atan(${fixedText(k, 6)} / 2)`, formatDegrees(half), '°'));
+      steps.push(step('Included angle', 'α = 2 · atan(k / 2)', `α = 2 · atan(${fixedText(k, 6)} / 2)`, formatDegrees(included), '°'));
+    } else {
+      // A taper given by its taper per foot (or a standard's) needs no step back to it.
+      if (definer !== 'taperPerFoot' && definer !== 'standard') steps.push(step('Taper per foot', 'TPF = 12 · k', `TPF = 12 · ${fixedText(k, 6)}`, fixedText(tpf, 5), 'in/ft'));
+      steps.push(step('Half angle (compound setting)', 'α/2 = atan(TPF / 24)', `α/2 = atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(half), '°'));
+      steps.push(step('Included angle', 'α = 2 · atan(TPF / 24)', `α = 2 · atan(${fixedText(tpf, 5)} / 24)`, formatDegrees(included), '°'));
+    }
     let offset: Dec | null = null;
     const warnings: string[] = [];
+    // The limits below are compared without the last digits' noise: 10° in comes back 10.000…01°.
+    const settledHalf = half.toSignificantDigits(EXACT_DIGITS);
     if (p.workLength) {
       offset = k.mul(p.workLength).div(2);
-      steps.push(step('Tail-stock offset', 'offset = TPF · L / 24 = k · L / 2', `offset = ${fixedText(k, 6)} · ${len(p.workLength)} / 2`, len(offset), unit));
+      steps.push(step('Tail-stock offset', metric ? 'offset = k · L / 2' : 'offset = TPF · L / 24 = k · L / 2', `offset = ${fixedText(k, 6)} · ${len(p.workLength)} / 2`, len(offset), unit));
       if (l && p.workLength.lt(l)) warnings.push('The work length between centres is shorter than the taper length.');
+      if (offset.toSignificantDigits(EXACT_DIGITS).gt(convertLength(TAILSTOCK_OFFSET_LIMIT_IN, 'in', unit))) {
+        warnings.push(
+          `The tail-stock offset, ${len(offset)} ${unit}, is more than a tail stock can usually be set over (about ${metric ? '13 mm' : '1/2 in'}, common practice): turn this taper with the compound rest or a taper attachment.`,
+        );
+      }
+      if (settledHalf.gt(OFFSET_HALF_ANGLE_LIMIT)) {
+        warnings.push(
+          `At ${formatDms(included)} included the taper is too steep for the tail-stock offset method: the work would lean about ${formatDms(half)} on the centres and bear on the edges of its centre holes. Turn it with the compound rest (common practice: the offset method is for slight tapers, up to about 10° included).`,
+        );
+      }
+    }
+    if (settledHalf.mul(2).gt(FLAT_CONE_INCLUDED_ANGLE)) {
+      const read = definer === 'ratio' ? ` The ratio ${ratio} means a diameter change of 1 over a length of ${fixedText(new Dec(1).div(k), 3)}; a taper of 1 in 20 is written 1:20.` : '';
+      warnings.push(`An included angle of ${formatDms(included)} is a very flat cone, nearer a face than a taper (common cones stay below about 140°): check the taper was meant this way.${read}`);
     }
     const stations: TaperStation[] = [];
     if (p.stations && p.stations.length > 0) {
@@ -192,7 +294,7 @@ export function calculateLatheTaper(input: LatheTaperRequest | unknown): CalcRes
       unit,
       taperPerFoot: fixedText(tpf, 5),
       taperPerInch: fixedText(k, 6),
-      ratio: `1:${fixedText(new Dec(1).div(k), 3)}`,
+      ratio,
       includedAngleDeg: formatDegrees(included),
       includedAngleDms: formatDms(included),
       halfAngleDeg: formatDegrees(half),

@@ -24,6 +24,15 @@ describe('calculateOverPins', () => {
       expect(pins({ kind: 'dovetail', unit: 'in', side: 'female', angle: 60, rollDiameter: 0.5, width: 2.5 }).measurement).toBe('1.1340');
       expect(pins({ kind: 'dovetail', unit: 'in', side: 'female', angle: 60, rollDiameter: 0.5, measurement: '1.13397' }).width).toBe('2.5000');
     });
+    it('should round an exact half up: the 0.375 in roll on a 60° flank touches 0.28125 → 0.2813 in up (0.1875 · (1 + cos 60°), derived)', () => {
+      // cos 60° comes out 0.4999…9 at the working precision; the half must still round up, as 0.99985 → 0.9999 does.
+      const r = value(calculateOverPins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: 0.375, width: 1.25, depth: 0.375 }));
+      expect(r.values.contactHeight).toBe('0.2813');
+      expect(r.exact.contactHeight).toBe('0.28125');
+      // 3 mm roll: 1.5 · 1.5 = 2.25 mm exactly; 0.0375 in roll: 0.028125 → 0.0281 (below a half at 4 places, derived).
+      expect(pins({ kind: 'dovetail', unit: 'mm', side: 'male', angle: 60, rollDiameter: 3, width: 50, depth: 10 }).contactHeight).toBe('2.250');
+      expect(pins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: '0.0375', width: 1, depth: 0.375 }).contactHeight).toBe('0.0281');
+    });
     it('should give c = 0.2165 in for h = 0.375 in at 60°', () => {
       expect(pins({ kind: 'dovetail', unit: 'in', side: 'male', angle: 60, rollDiameter: 0.25, width: 2, depth: 0.375 }).flankRun).toBe('0.2165');
     });
@@ -90,7 +99,6 @@ describe('calculateOverPins', () => {
     it('should name fields in words, never by their request names', () => {
       const messages = [
         fields({ ...twoRolls, rollDiameter2: '0.375', measurement2: '2.6' }).rollDiameter2,
-        fields({ kind: 'taper-two-heights', unit: 'in', measurement1: 1, measurement2: 1, heightDifference: 1 }).measurement2,
         fields({ kind: 'taper-discs', unit: 'in', largeDisc: 0.4, smallDisc: 0.5, centreDistance: 3 }).largeDisc,
         fields({ kind: 'taper-discs', unit: 'in', largeDisc: 1, smallDisc: 0.5 }).centreDistance,
         fields({ kind: 'taper-balls', unit: 'in', largeBall: 0.5, smallBall: 1, largeBallDepth: 0, smallBallDepth: 2 }).largeBall,
@@ -99,7 +107,6 @@ describe('calculateOverPins', () => {
       ];
       expect(messages).toEqual([
         'must differ from the first roll diameter D₁',
-        'equals the lower reading M₁: the sides are parallel (no taper)',
         'must be larger than the small disc d',
         'give exactly one of the centre distance, the taper per foot and the angle',
         'must be larger than the small ball',
@@ -116,6 +123,11 @@ describe('calculateOverPins', () => {
       expect(r.dms.halfAngleDeg).toBe('3°34\'35"');
       expect(r.values.includedAngleDeg).toBe('7.1527');
       expect(r.values.taperPerFoot).toBe('1.50000');
+    });
+    it('should read equal readings as parallel sides: 0° and no taper per foot, with a note (atan 0 = 0, derived)', () => {
+      const r = value(calculateOverPins({ kind: 'taper-two-heights', unit: 'in', measurement1: '1.2500', measurement2: '1.25', heightDifference: 2 }));
+      expect([r.values.includedAngleDeg, r.dms.includedAngleDeg, r.values.halfAngleDeg, r.values.taperPerFoot]).toEqual(['0.0000', '0°00\'00"', '0.0000', '0.00000']);
+      expect(r.warnings).toEqual(['The readings are equal: the sides are parallel (no taper).']);
     });
     it('should read a Jarno taper from rolls at 1.5000 and 1.4500 one inch apart (derived)', () => {
       expect(pins({ kind: 'taper-two-heights', unit: 'in', measurement1: 1.5, measurement2: 1.45, heightDifference: 1 }).taperPerFoot).toBe('0.60000');

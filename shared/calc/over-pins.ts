@@ -1,7 +1,7 @@
 import { formatDegrees, formatDms } from '../angle/angle-text';
 import { overPinsRequestSchema, parseRequest, type OverPinsParsed, type OverPinsRequest } from '../api/calc';
 import { formatLength, type LengthUnit } from '../units/length-unit';
-import { Dec, asinDeg, atanDeg, cosDeg, exactText, fixedText, sinDeg, sqrt, tanDeg } from './decimal-math';
+import { Dec, EXACT_DIGITS, asinDeg, atanDeg, cosDeg, exactText, fixedText, sinDeg, sqrt, tanDeg } from './decimal-math';
 import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
 
 /**
@@ -65,6 +65,16 @@ function hasSecondsMark(typed: unknown): boolean {
 }
 
 /**
+ * A trigonometric result with the last digits' noise taken off: kept to the significant digits of
+ * the `exact` values, as those show it. cos 60° comes out 0.4999…9 at the working precision, so
+ * 0.1875 · (1 + cos 60°) is 0.2812499…9 and would print as 0.2812 instead of 0.28125 → 0.2813
+ * (half up, as everywhere else).
+ */
+function settled(x: Dec): Dec {
+  return x.toSignificantDigits(EXACT_DIGITS);
+}
+
+/**
  * Measurement over pins or rolls and the reverse, chosen by `kind`: dovetail, dovetail-angle,
  * v-groove, taper-two-heights, taper-discs, taper-balls.
  */
@@ -74,7 +84,7 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
     if (!parsed.ok) return parsed;
     const p = parsed.value;
     const unit = p.unit;
-    const len = (x: Dec) => formatLength(x, unit);
+    const len = (x: Dec) => formatLength(settled(x), unit);
     const values: Record<string, string> = {};
     const dms: Record<string, string> = {};
     const exact: Record<string, string> = {};
@@ -85,14 +95,14 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       exact[name] = exactText(x);
     };
     const putAngle = (name: string, x: Dec) => {
-      values[name] = formatDegrees(x);
-      dms[name] = formatDms(x);
+      values[name] = formatDegrees(settled(x));
+      dms[name] = formatDms(settled(x));
       exact[name] = exactText(x);
     };
     const taperFromHalf = (half: Dec) => {
       putAngle('halfAngleDeg', half);
       putAngle('includedAngleDeg', half.mul(2));
-      const tpf = tanDeg(half).mul(24);
+      const tpf = settled(tanDeg(half).mul(24));
       values.taperPerFoot = fixedText(tpf, 5);
       exact.taperPerFoot = exactText(tpf);
       steps.push(step('Included angle', 'α = 2 · (α/2)', `α = 2 · ${formatDegrees(half)}°`, values.includedAngleDeg, '°'));
@@ -213,11 +223,15 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
       }
       case 'taper-two-heights': {
         const dM = p.measurement2.minus(p.measurement1);
-        if (dM.isZero()) return impossible(AREA, 'measurement2', 'equals the lower reading M₁: the sides are parallel (no taper)');
+        // Equal readings: the sides are parallel, which an inspector checking a parallel part wants to see as 0°.
         const half = atanDeg(dM.abs().div(p.heightDifference.mul(2)));
         steps.push(step('Half angle', 'tan(α/2) = |M₂ − M₁| / (2 · ΔH)', `tan(α/2) = ${len(dM.abs())} / (2 · ${len(p.heightDifference)})`, formatDegrees(half), '°'));
         taperFromHalf(half);
-        warnings.push(dM.isNeg() ? 'The work narrows toward the second (upper) reading.' : 'The work widens toward the second (upper) reading.');
+        warnings.push(
+          dM.isZero()
+            ? 'The readings are equal: the sides are parallel (no taper).'
+            : dM.isNeg() ? 'The work narrows toward the second (upper) reading.' : 'The work widens toward the second (upper) reading.',
+        );
         break;
       }
       case 'taper-discs': {
@@ -236,13 +250,13 @@ export function calculateOverPins(input: OverPinsRequest | unknown): CalcResult<
             const denom = new Dec(1).minus(K.mul(K).mul(2));
             if (denom.lte(0)) return impossible(AREA, 'centreDistance', 'gives an angle of 90° or more between the sides');
             const tpf = K.mul(24).mul(root).div(denom);
-            values.taperPerFoot = fixedText(tpf, 5);
+            values.taperPerFoot = fixedText(settled(tpf), 5);
             exact.taperPerFoot = exactText(tpf);
             steps.push(step('Taper per foot (one side square)', 'T = 24K√(1 − K²) / (1 − 2K²)', `K = ${fixedText(K, 8)}`, values.taperPerFoot, 'in/ft'));
             putAngle('includedAngleDeg', asinDeg(K).mul(2));
           } else {
             const tpf = K.mul(24).div(root);
-            values.taperPerFoot = fixedText(tpf, 5);
+            values.taperPerFoot = fixedText(settled(tpf), 5);
             exact.taperPerFoot = exactText(tpf);
             steps.push(step('Taper per foot', 'T = 24K / √(1 − K²)', `K = ${fixedText(K, 8)}`, values.taperPerFoot, 'in/ft'));
             putAngle('halfAngleDeg', asinDeg(K));

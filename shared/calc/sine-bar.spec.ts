@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { Dec } from './decimal-math';
-import { calculateCompoundSinePlate, calculateSineBar, calculateSineTable, type SineBarResult } from './sine-bar';
+import { resolveBox, type GaugeBox } from './gauge-stack';
+import { calculateCompoundSinePlate, calculateSineBar, calculateSineTable, compoundStackBlocks, type SineBarResult } from './sine-bar';
 import type { CalcResult } from './step';
 
 function value<T>(r: CalcResult<T>): T {
@@ -72,6 +73,18 @@ describe('calculateSineBar', () => {
       expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 30 }).sensitivityArcSec).div(3600).toDecimalPlaces(5).toString()).toBe('0.00132');
       expect(new Dec(bar({ unit: 'in', barLength: 5, angle: 60 }).sensitivityArcSec).div(3600).toDecimalPlaces(5).toString()).toBe('0.00229');
     });
+    it('should say in the work that the sensitivity is taken at the angle the stack makes (derived)', () => {
+      // 89° on a 5 in bar: H = 5 · sin 89° = 4.99924 → 4.9992 in; θ′ = asin(4.9992 / 5) = 88.97505° (88°58'30");
+      // Δθ = 0.0001 / (5 · cos 88.97505°) rad = 230.62″ there (at the wanted 89° it would be 236.37″) — python3, derived.
+      const steep = bar({ unit: 'in', barLength: 5, angle: 89 });
+      const sens = steep.steps.find((st) => st.label === 'Sensitivity')!;
+      expect([sens.formula, sens.substituted, sens.value]).toEqual(['Δθ = ΔH / (L · cos θ′)', 'Δθ = 0.0001 / (5.0000 · cos 88°58\'30")', '230.62']);
+      expect(steep.steps.find((st) => st.label === 'Angle the stack makes')?.formula).toBe('θ′ = asin(H / L)');
+      expect(steep.sensitivityArcSec).toBe('230.62');
+      // From a typed stack the angle is θ itself, so the work says θ.
+      const typed = bar({ unit: 'in', barLength: 5, stackHeight: '2.5' }).steps.find((st) => st.label === 'Sensitivity')!;
+      expect([typed.formula, typed.substituted]).toEqual(['Δθ = ΔH / (L · cos θ)', 'Δθ = 0.0001 / (5.0000 · cos 30°00\'00")']);
+    });
     it('should advise the complement above 45°', () => {
       expect(bar({ unit: 'in', barLength: 5, angle: 60 }).warnings.join(' ')).toMatch(/complement, 30°00'00"/);
       expect(bar({ unit: 'in', barLength: 5, angle: 30 }).warnings).toEqual([]);
@@ -80,6 +93,37 @@ describe('calculateSineBar', () => {
       const r = bar({ unit: 'mm', barLength: 100, angle: 10, set: 'metric-112' });
       expect(r.resolution).toBe('0.0005');
       expect(r.stackHeight).toBe('17.365');
+    });
+  });
+
+  describe('angles smaller than one step of the stack', () => {
+    const tiny = (r: { warnings: string[] }) => r.warnings.filter((w) => /smaller than one step/.test(w));
+    it('should warn, naming the step in arc-seconds, when the bar lies flat (derived)', () => {
+      // 2.5 in bar: 2.5 · sin 0.001° = 0.0000436 in → 0.0000; one 0.0001 in step makes asin(0.0001 / 2.5) = 8.25″ (python3, derived).
+      const flat = bar({ unit: 'in', barLength: 2.5, angle: 0.001, set: 'inch-81' });
+      expect([flat.stackHeight, flat.errorArcSec, flat.blocks]).toEqual(['0.0000', '-3.60', []]);
+      expect(tiny(flat)).toEqual([
+        'The angle asked for (0°00\'03.6") is smaller than one step of the stack: 0.0001 in on this 2.5000 in bar makes 8.25″, so the bar lies flat or on the smallest stack (0.0001 in) and the angle made is out by up to half that step.',
+      ]);
+    });
+    it('should warn when the stack rounds up to its smallest step (derived)', () => {
+      // 5 in bar: 5 · sin 0.001° = 0.0000873 in → 0.0001 in, which makes asin(0.0001 / 5) = 4.13″ (python3, derived): +0.53″.
+      const one = bar({ unit: 'in', barLength: 5, angle: 0.001 });
+      expect([one.stackHeight, one.errorArcSec]).toEqual(['0.0001', '0.53']);
+      expect(tiny(one)).toHaveLength(1);
+      expect(tiny(one)[0]).toContain('0.0001 in on this 5.0000 in bar makes 4.13″');
+      // 100 mm bar, metric-112 (0.0005 mm step): asin(0.0005 / 100) = 1.03″ (derived).
+      expect(tiny(bar({ unit: 'mm', barLength: 100, angle: '0°0\'1"', set: 'metric-112' }))[0]).toContain('0.0005 mm on this 100.000 mm bar makes 1.03″');
+    });
+    it('should not warn for a level bar, an angle of a step or more, or a typed stack', () => {
+      expect(tiny(bar({ unit: 'in', barLength: 5, angle: 0 }))).toEqual([]);
+      expect(tiny(bar({ unit: 'in', barLength: 5, angle: 0.01 }))).toEqual([]);
+      expect(tiny(bar({ unit: 'in', barLength: 5, stackHeight: '0.0001' }))).toEqual([]);
+    });
+    it('should name the axis of a compound plate', () => {
+      const r = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 2.5, angleA: 10, angleB: 0.001 }));
+      expect(tiny(r)).toHaveLength(1);
+      expect(tiny(r)[0]).toMatch(/^Angle B \(0°00'03\.6"\) is smaller than one step of stack B: 0\.0001 in on this 2\.5000 in plate makes 8\.25″, so the plate lies flat/);
     });
   });
 
@@ -206,5 +250,62 @@ describe('calculateCompoundSinePlate', () => {
     const r = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, stackA: '2.5', stackB: 1 }));
     expect(r.axisA.angleDeg).toBe('30.0000');
     expect(r.axisB.angleDeg).toBe('11.5370');
+  });
+
+  it('should name the axis in each steep-angle warning, so 60° on both axes gives two different ones', () => {
+    const r = value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, angleA: 60, angleB: 60 }));
+    expect(r.warnings).toHaveLength(2);
+    expect(r.warnings[0]).toMatch(/^Angle A is above 45°.*complement of angle A, 30°00'00"/);
+    expect(r.warnings[1]).toMatch(/^Angle B is above 45°.*complement of angle B, 30°00'00"/);
+    expect(value(calculateCompoundSinePlate({ unit: 'in', lengthA: 5, angleA: 10, angleB: 60 })).warnings).toEqual([expect.stringMatching(/^Angle B is above 45°/)]);
+  });
+});
+
+describe('compoundStackBlocks: both stacks from one box at once', () => {
+  const box = (choice: Parameters<typeof resolveBox>[1]): GaugeBox => value(resolveBox('test', choice));
+  const custom = (...sizes: string[]) => box({ blocks: sizes.map((s) => new Dec(s)), unit: 'in' });
+  const sum = (blocks: readonly string[]) => blocks.reduce((t, b) => t.plus(b), new Dec(0)).toString();
+  /** Every block used at most as often as the box holds it. */
+  const fitsBox = (b: GaugeBox, used: readonly string[]) => {
+    const left = b.pieces.map((p) => p.toString());
+    return used.every((u) => {
+      const at = left.findIndex((p) => new Dec(p).eq(u));
+      if (at < 0) return false;
+      left.splice(at, 1);
+      return true;
+    });
+  };
+
+  it('should build stack B from what stack A leaves in the 81-piece set (14°30\' on both axes)', () => {
+    // 5 · sin 14.5° = 1.2519 in on each axis (derived); the set holds one block of each size.
+    const inch81 = box({ set: 'inch-81' });
+    const r = compoundStackBlocks(inch81, '1.2519', '1.2519', 'in');
+    expect(r.warnings).toEqual([]);
+    expect([sum(r.blocksA!), sum(r.blocksB!)]).toEqual(['1.2519', '1.2519']);
+    expect(fitsBox(inch81, [...r.blocksA!, ...r.blocksB!])).toBe(true);
+  });
+
+  it('should build stack A from what stack B leaves when the other order fails', () => {
+    // A 1.25 = 1 + 0.25 takes the only 1.000 that B needs; B first leaves 0.5 + 0.4 + 0.35 = 1.25 for A (by hand).
+    const r = compoundStackBlocks(custom('1', '0.25', '0.5', '0.4', '0.35'), '1.25', '1', 'in');
+    expect(r).toEqual({ blocksA: ['0.500', '0.400', '0.350'], blocksB: ['1.000'], warnings: [] });
+  });
+
+  it('should say plainly when the box can make each stack but not both at once, listing no shared block', () => {
+    // Only the 0.1009 block gives the last digit 9 once 0.1001–0.1008 are missing; two stacks of 1.2519 need it twice (by hand).
+    const missing = ['0.1001', '0.1002', '0.1003', '0.1004', '0.1005', '0.1006', '0.1007', '0.1008'].map((s) => new Dec(s));
+    const r = compoundStackBlocks(box({ set: 'inch-81', missing }), '1.2519', '1.2519', 'in');
+    expect(r.blocksA).toEqual(['1.000', '0.101', '0.1009', '0.050']);
+    expect(r.blocksB).toBeNull();
+    expect(r.warnings).toEqual([
+      'The box cannot make both stacks at once: with stack A (1.2519 in) built from 1.000 + 0.101 + 0.1009 + 0.050, the blocks left cannot make stack B (1.2519 in), and building stack B first does not help either. Take the blocks for one of the stacks from a second set.',
+    ]);
+    expect(compoundStackBlocks(custom('1', '0.25', '0.5'), '1.25', '1.25', 'in').warnings[0]).toMatch(/^The box cannot make both stacks at once/);
+  });
+
+  it('should name a stack the box cannot make even alone, and need no block for a zero stack', () => {
+    expect(compoundStackBlocks(custom('1', '0.25', '0.5'), '1.25', '0.3', 'in')).toEqual({ blocksA: ['1.000', '0.250'], blocksB: null, warnings: ['The box cannot make stack B (0.3 in).'] });
+    expect(compoundStackBlocks(custom('1'), '0', '1', 'in')).toEqual({ blocksA: [], blocksB: ['1.000'], warnings: [] });
+    expect(compoundStackBlocks(null, '0.5', '0', 'in')).toEqual({ blocksA: null, blocksB: [], warnings: ['The box cannot make stack A (0.5 in).'] });
   });
 });

@@ -39,7 +39,7 @@ export interface SineBarResult {
   achievedAngleDms: string;
   /** achieved − wanted, arc-seconds (2 decimals). */
   errorArcSec: string;
-  /** Angle change for one resolution step of the stack, arc-seconds. */
+  /** Angle change for one resolution step of the stack at the angle the stack makes, arc-seconds. */
   sensitivityArcSec: string;
   /** The step the stack is rounded to. */
   resolution: string;
@@ -104,14 +104,33 @@ function boxAndResolution(
   return succeed({ box, resolution: p.resolution ?? box?.step ?? unitResolution(p.unit) });
 }
 
-function steepWarnings(theta: Dec): string[] {
+/** Above 45°: set the complement instead. `axis` names the plate's axis (A or B) on a compound plate. */
+function steepWarnings(theta: Dec, axis?: 'A' | 'B'): string[] {
   const out: string[] = [];
   if (theta.gt(45)) {
+    const complement = formatDms(new Dec(90).minus(theta));
     out.push(
-      `Above 45° a stack error moves the angle more and more (dθ = dH / (L·cos θ)); published practice limits sine bars to about 45°. Consider setting the complement, ${formatDms(new Dec(90).minus(theta))}, against an angle plate or square (common practice).`,
+      axis
+        ? `Angle ${axis} is above 45°: a stack error moves the angle more and more (dθ = dH / (L·cos θ)); published practice limits sine plates to about 45°. Consider setting the complement of angle ${axis}, ${complement}, against an angle plate or square (common practice).`
+        : `Above 45° a stack error moves the angle more and more (dθ = dH / (L·cos θ)); published practice limits sine bars to about 45°. Consider setting the complement, ${complement}, against an angle plate or square (common practice).`,
     );
   }
   return out;
+}
+
+/**
+ * An angle asked for that is smaller than the angle one step of the stack makes, asin(step / L):
+ * the stack rounds to nothing or to one step, so the bar lies flat or on the smallest stack. `what`
+ * names the angle and its stack ("Stack A" on a compound plate).
+ */
+function tinyAngleWarnings(L: Dec, theta: Dec, resolution: Dec, unit: LengthUnit, what = { angle: 'The angle asked for', stack: 'the stack', bar: 'bar' }): string[] {
+  if (theta.lte(0) || resolution.gte(L)) return [];
+  const stepAngle = asinDeg(resolution.div(L));
+  if (!theta.lt(stepAngle)) return [];
+  const step = `${resolution.toString()} ${unit}`;
+  return [
+    `${what.angle} (${formatDms(theta, 1)}) is smaller than one step of ${what.stack}: ${step} on this ${formatLength(L, unit)} ${unit} ${what.bar} makes ${fixedText(stepAngle.mul(3600), 2)}″, so the ${what.bar} lies flat or on the smallest stack (${step}) and the angle made is out by up to half that step.`,
+  ];
 }
 
 /** Between these lengths (in inches) a bar or plate is of a usual size; outside, a unit or typing slip is likely. */
@@ -170,10 +189,16 @@ export function calculateSineBar(input: SineBarRequest | unknown): CalcResult<Si
       steps.push(step('Angle', 'θ = asin(H / L)', `θ = asin(${res(H)} / ${len(L)})`, formatDegrees(theta), '°'));
       steps.push(step('Angle (DMS)', 'θ', formatDegrees(theta) + '°', formatDms(theta, 1), ''));
     }
+    // At the angle the stack makes (θ′ from a wanted angle; from a typed stack that is θ itself).
     const sens = sensitivity(L, setting.achieved, resolution);
-    steps.push(step('Sensitivity', 'Δθ = ΔH / (L · cos θ)', `Δθ = ${resolution.toString()} / (${len(L)} · cos ${formatDms(setting.achieved)})`, fixedText(sens, 2), '″'));
+    const at = p.angle !== undefined ? 'θ′' : 'θ';
+    steps.push(step('Sensitivity', `Δθ = ΔH / (L · cos ${at})`, `Δθ = ${resolution.toString()} / (${len(L)} · cos ${formatDms(setting.achieved)})`, fixedText(sens, 2), '″'));
 
-    const warnings = [...barLengthWarnings(L, unit), ...steepWarnings(setting.wanted)];
+    const warnings = [
+      ...barLengthWarnings(L, unit),
+      ...steepWarnings(setting.wanted),
+      ...(p.angle !== undefined ? tinyAngleWarnings(L, p.angle, resolution, unit) : []),
+    ];
     // A typed stack finer than the blocks step cannot have been built from them.
     if (p.stackHeight !== undefined && !p.stackHeight.mod(resolution).isZero()) {
       warnings.push(`A ${p.stackHeight.toString()} ${unit} stack is finer than the gauge-block step (${resolution.toString()} ${unit}): check the stack as built.`);
@@ -391,8 +416,10 @@ export function calculateCompoundSinePlate(input: CompoundSineRequest | unknown)
       warnings: [
         ...barLengthWarnings(p.lengthA, unit, 'lower plate'),
         ...(p.lengthB && !p.lengthB.eq(p.lengthA) ? barLengthWarnings(p.lengthB, unit, 'upper plate') : []),
-        ...steepWarnings(a.value.wanted),
-        ...steepWarnings(b.value.wanted),
+        ...steepWarnings(a.value.wanted, 'A'),
+        ...steepWarnings(b.value.wanted, 'B'),
+        ...(p.angleA !== undefined ? tinyAngleWarnings(p.lengthA, p.angleA, resolution, unit, { angle: 'Angle A', stack: 'stack A', bar: 'plate' }) : []),
+        ...(p.angleB !== undefined ? tinyAngleWarnings(p.lengthB ?? p.lengthA, p.angleB, resolution, unit, { angle: 'Angle B', stack: 'stack B', bar: 'plate' }) : []),
       ],
       steps,
     });
@@ -417,4 +444,53 @@ export function unmakeableAxis(axis: 'A' | 'B', stack: string, unit: string): st
 export function unmakeableStack(stack: string, unit: string, forAngle: boolean): string {
   const fix = forAngle ? 'raise both rolls on equal stacks and build the difference, or change the angle slightly' : 'raise both rolls on equal stacks and build the difference';
   return `The box cannot make a ${stack} ${unit} stack; ${fix}.`;
+}
+
+/** The blocks for both stacks of a compound plate (largest first), and what the box cannot give. */
+export interface CompoundBlocks {
+  /** Blocks of stack A; null when the box cannot make it. */
+  blocksA: string[] | null;
+  /** Blocks of stack B; null when the box cannot make it (or not beside stack A). */
+  blocksB: string[] | null;
+  /** Why a stack has no blocks. */
+  warnings: string[];
+}
+
+/** The box less the blocks one stack takes, or null when nothing is left. */
+function boxWithout(box: GaugeBox, used: readonly Dec[]): GaugeBox | null {
+  if (used.length === 0) return box;
+  const left = resolveBox('Compound sine plate', { blocks: box.pieces, missing: [...used], unit: box.unit });
+  return left.ok ? left.value : null;
+}
+
+/**
+ * Both stacks of a compound plate stand under it at the same time, so they take different blocks
+ * of the one box: stack B is built from what stack A leaves in it; failing that, stack A from what
+ * stack B leaves. When the box can make each stack alone but not both at once, stack A keeps its
+ * blocks, stack B gets none and a warning says so. `box` is the standard set (less its missing
+ * blocks) or the team's box as the solver sees it; null for a box with no usable block. The
+ * compound plate's page and a saved compound set-up's results both pick their blocks here.
+ */
+export function compoundStackBlocks(box: GaugeBox | null, stackA: string, stackB: string, unit: LengthUnit): CompoundBlocks {
+  const make = (from: GaugeBox | null, stack: string): Dec[] | null => {
+    const H = new Dec(stack);
+    if (H.isZero()) return [];
+    return from ? fewestBlocks(from, H) : null;
+  };
+  const text = (blocks: Dec[] | null): string[] | null => (blocks ? blocks.map((b) => formatBlock(b, { unit })) : null);
+  const alone = { a: make(box, stackA), b: make(box, stackB) };
+  if (!alone.a || !alone.b || !box) {
+    const warnings = [...(alone.a ? [] : [unmakeableAxis('A', stackA, unit)]), ...(alone.b ? [] : [unmakeableAxis('B', stackB, unit)])];
+    return { blocksA: text(alone.a), blocksB: text(alone.b), warnings };
+  }
+  const bAfterA = make(boxWithout(box, alone.a), stackB);
+  if (bAfterA) return { blocksA: text(alone.a), blocksB: text(bAfterA), warnings: [] };
+  const aAfterB = make(boxWithout(box, alone.b), stackA);
+  if (aAfterB) return { blocksA: text(aAfterB), blocksB: text(alone.b), warnings: [] };
+  return { blocksA: text(alone.a), blocksB: null, warnings: [unmakeableBothStacks(stackA, stackB, unit, text(alone.a) ?? [])] };
+}
+
+/** The warning for a compound plate whose box can make each stack alone but not both at once. */
+export function unmakeableBothStacks(stackA: string, stackB: string, unit: string, blocksA: readonly string[]): string {
+  return `The box cannot make both stacks at once: with stack A (${stackA} ${unit}) built from ${blocksA.join(' + ')}, the blocks left cannot make stack B (${stackB} ${unit}), and building stack B first does not help either. Take the blocks for one of the stacks from a second set.`;
 }

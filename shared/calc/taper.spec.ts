@@ -73,6 +73,43 @@ describe('calculateTaper', () => {
       expect(r.warnings.join(' ')).toMatch(/knife edge/);
     });
 
+    it('should warn of a knife edge whenever the end thickness reads zero at the unit\'s resolution (derived)', () => {
+      // t = T − L·tan α: 1 − 1·tan 45° = 0 exactly; 10 − 5.7735·tan 60° = 0.0000047 mm → 0.000 mm;
+      // 1 − 0.99996·tan 45° = 0.00004 in → 0.0000 in (derived).
+      const cases = [
+        { unit: 'in', thickness: 1, angle: 45, taperLength: 1 },
+        { unit: 'mm', thickness: 10, angle: 60, taperLength: 5.7735 },
+        { unit: 'in', thickness: 1, angle: 45, taperLength: 0.99996 },
+      ];
+      for (const input of cases) {
+        const r = value(calculateTaper(input));
+        expect({ input, end: Number(r.endThickness), knifeEdge: r.warnings.some((w) => /it leaves a knife edge/.test(w)) }).toEqual({ input, end: 0, knifeEdge: true });
+      }
+      // Exactly zero (as typed, or 45° over a length equal to the thickness) keeps the exact wording.
+      expect(value(calculateTaper(cases[0])).warnings).toContain('The taper runs out exactly at the bottom edge of the end: it leaves a knife edge.');
+      expect(value(calculateTaper(cases[2])).warnings).toContain('The taper runs out at the bottom edge of the end, to within 0.0001 in: it leaves a knife edge.');
+      // 0.0001 in left (1 − 0.9999·tan 45°, derived) is still a part, not a knife edge.
+      expect(value(calculateTaper({ unit: 'in', thickness: 1, angle: 45, taperLength: 0.9999 })).warnings.join(' ')).not.toMatch(/knife edge/);
+    });
+
+    it('should warn when the taper is too small to cut at the unit\'s resolution, with no pass of 0.0000', () => {
+      // 1 in · tan 0.001° = 0.0000175 in and 1 in · sin 0.001° = 0.0000175 in: both read 0.0000 (derived).
+      const r = value(calculateTaper({ unit: 'in', thickness: 1, angle: 0.001, taperLength: 1, depthPerPass: 0.05 }));
+      expect([r.removedAtEnd, r.depthToStop]).toEqual(['0.0000', '0.0000']);
+      expect(r.warnings).toContain('The taper is too small to cut at 0.0001 in: it takes 0.0000 in off the end and the depth to stop reads 0.0000 in, so there is nothing to remove. Check the angle and the lengths.');
+      expect(r.passes).toEqual([]);
+      // 1 in · sin 0.01° = 0.000175 in reads 0.0002 in: small, but something to cut (derived).
+      expect(value(calculateTaper({ unit: 'in', thickness: 1, angle: 0.01, taperLength: 1 })).warnings.join(' ')).not.toMatch(/too small/);
+    });
+
+    it('should count the passes on the depth to stop as read, so no last pass cuts 0.0000', () => {
+      // h = 2.5 · sin 7.5° = 0.326317 in, read 0.3263 (derived): two passes of 0.16315 reach it; a third
+      // would cut the 0.000017 in left over, shown as 0.0000.
+      const r = value(calculateTaper({ unit: 'in', thickness: 0.75, angle: "7°30'", taperLength: 2.5, depthPerPass: 0.16315 }));
+      expect(r.passes.map((p) => p.reading)).toEqual(['0.1632', '0.3263']);
+      expect(r.passes.map((p) => p.cut)).not.toContain('0.0000');
+    });
+
     it('should add the cutter diameter to the table travel', () => {
       const r = value(calculateTaper({ unit: 'in', thickness: 0.75, angle: 5, taperLength: 3, cutterDiameter: 0.5 }));
       expect(r.tableTravel).toBe('3.5115');
@@ -100,6 +137,16 @@ describe('calculateTaper', () => {
       // d = 2.5 · tan 7°30′ = 0.329131 in against 0.32911 in of stock (derived): both read 0.3291 at 4 places.
       const r = calculateTaper({ unit: 'in', thickness: '0.32911', angle: "7°30'", taperLength: '2.5' });
       expect(r.ok || r.fields.taperLength).toMatch(/^needs 0\.32913 in off the end but the stock is 0\.32911 in thick/);
+      // 1.00004 · tan 45° = 1.00004 in against 1 in of stock (derived): the stock at the resolution,
+      // the cut to the place where they differ — 1.0000, not 1.00000.
+      const past = calculateTaper({ unit: 'in', thickness: 1, angle: 45, taperLength: '1.00004' });
+      expect(past.ok || past.fields.taperLength).toMatch(/^needs 1\.00004 in off the end but the stock is 1\.0000 in thick/);
+      // An end thickness of 1.00007 on 1.00006 stock: both read 1.0001 at 4 places.
+      const end = calculateTaper({ unit: 'in', thickness: '1.00006', endThickness: '1.00007', taperLength: 2 });
+      expect(end.ok || end.fields.endThickness).toBe('must be less than the thickness 1.00006 in');
+      const face = calculateTaper({ unit: 'in', thickness: 2, taperLength: '1.00007', faceLength: '1.00006' });
+      expect(face.ok || face.fields.faceLength).toBe('must be longer than the taper length 1.00007 in');
+      expect(calculateTaper({ unit: 'in', thickness: 2, taperLength: '1.5', faceLength: '1.2' })).toMatchObject({ fields: { faceLength: 'must be longer than the taper length 1.5000 in' } });
       const plain = calculateTaper({ unit: 'in', thickness: 0.5, angle: 30, taperLength: 3 });
       // 3 · tan 30° = 1.7321 in (derived).
       expect(plain.ok || plain.fields.taperLength).toMatch(/^needs 1\.7321 in off the end but the stock is 0\.5000 in thick/);

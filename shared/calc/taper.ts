@@ -1,6 +1,6 @@
 import { formatDegrees, formatDms } from '../angle/angle-text';
 import { parseRequest, taperRequestSchema, type TaperRequest } from '../api/calc';
-import { formatLength, type LengthUnit } from '../units/length-unit';
+import { UNIT_DECIMALS, formatLength, unitResolution, type LengthUnit } from '../units/length-unit';
 import { Dec, atanDeg, exactText, sinDeg, sqrt, tanDeg, cosDeg } from './decimal-math';
 import { guarded, impossible, invalid, step, succeed, type CalcResult, type Step } from './step';
 
@@ -85,18 +85,30 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
     const unit = p.unit;
     const shape = p.shape ?? 'taper';
     const len = (x: Dec) => formatLength(x, unit);
-    /** Two lengths as text, with more decimals (up to 8) when they would otherwise read the same. */
+    /** Whether a length reads zero at the unit's resolution (0.0000 in, 0.000 mm). */
+    const readsZero = (x: Dec) => new Dec(len(x)).isZero();
+    /**
+     * Two lengths for a message, each at the unit's resolution; when they would read the same
+     * there, each is carried (up to 8 places) to where they differ, with no trailing zeros past the
+     * resolution: 1.00004 against 1.0000, not 1.00000.
+     */
     const apart = (a: Dec, b: Dec): [string, string] => {
-      let places = len(a).split('.')[1]?.length ?? 0;
-      while (places < 8 && a.toFixed(places) === b.toFixed(places) && !a.eq(b)) places += 1;
-      return len(a) === len(b) ? [a.toFixed(places), b.toFixed(places)] : [len(a), len(b)];
+      if (len(a) !== len(b) || a.eq(b)) return [len(a), len(b)];
+      let places = UNIT_DECIMALS[unit];
+      while (places < 8 && a.toFixed(places) === b.toFixed(places)) places += 1;
+      const shown = (x: Dec) => {
+        let p = places;
+        while (p > UNIT_DECIMALS[unit] && new Dec(x.toFixed(p - 1)).eq(x.toFixed(p))) p -= 1;
+        return x.toFixed(p);
+      };
+      return [shown(a), shown(b)];
     };
     const T = p.thickness;
     if (shape === 'taper' && !T) return invalid(AREA, 'thickness', 'is required for a taper');
     if (p.endThickness && p.removedAtEnd) return invalid(AREA, 'removedAtEnd', 'give endThickness or removedAtEnd, not both');
     if (p.endThickness && !T) return invalid(AREA, 'thickness', 'is required when endThickness is given');
     if (T && p.endThickness && p.endThickness.gte(T)) {
-      return impossible(AREA, 'endThickness', `must be less than the thickness ${len(T)} ${unit}`);
+      return impossible(AREA, 'endThickness', `must be less than the thickness ${apart(T, p.endThickness)[0]} ${unit}`);
     }
     const given = { angle: p.angle, taperLength: p.taperLength, removed: p.removedAtEnd ?? (p.endThickness && T ? T.minus(p.endThickness) : undefined), faceLength: p.faceLength };
     const names = ['angle', 'taperLength', shape === 'chamfer' ? 'removedAtEnd' : 'endThickness', 'faceLength'];
@@ -136,14 +148,14 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
       alpha = atanDeg(d.div(L));
       steps.push(step('Angle', 'α = atan(d / L)', `α = atan(${len(d)} / ${len(L)})`, formatDegrees(alpha), '°'));
     } else if (l && f) {
-      if (f.lte(l)) return impossible(AREA, 'faceLength', `must be longer than the taper length ${len(l)} ${unit}`);
+      if (f.lte(l)) return impossible(AREA, 'faceLength', `must be longer than the taper length ${apart(l, f)[0]} ${unit}`);
       L = l;
       d = sqrt(f.mul(f).minus(L.mul(L)));
       alpha = atanDeg(d.div(L));
       steps.push(step('Stock removed at the end', 'd = √(F² − L²)', `d = √(${len(f)}² − ${len(L)}²)`, len(d), unit));
       steps.push(step('Angle', 'α = atan(d / L)', `α = atan(${len(d)} / ${len(L)})`, formatDegrees(alpha), '°'));
     } else if (r && f) {
-      if (f.lte(r)) return impossible(AREA, 'faceLength', `must be longer than the stock removed at the end, ${len(r)} ${unit}`);
+      if (f.lte(r)) return impossible(AREA, 'faceLength', `must be longer than the stock removed at the end, ${apart(r, f)[0]} ${unit}`);
       d = r;
       L = sqrt(f.mul(f).minus(d.mul(d)));
       alpha = atanDeg(d.div(L));
@@ -153,7 +165,8 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
       return invalid(AREA, 'body', `give exactly two of ${names.join(', ')}`);
     }
 
-    if (T && d.gt(T)) {
+    // Past the stock by more than the last digits of the trigonometry (40 digits; `exact` keeps 30).
+    if (T && d.minus(T).gt('1e-24')) {
       // The cut plane meets the bottom face before the end: say where.
       const runOut = T.mul(L).div(d);
       const field = given.taperLength ? 'taperLength' : given.angle ? 'angle' : names[2];
@@ -161,13 +174,13 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
         AREA,
         field,
         // Two figures that round alike are shown to the place where they differ.
-        `needs ${apart(d, T)[0]} ${unit} off the end but the stock is ${apart(d, T)[1]} ${unit} thick: the cut runs out through the bottom face ${len(runOut)} ${unit} from where the taper starts`,
+        `needs ${apart(d, T)[0]} ${unit} off the end but the stock is ${apart(d, T)[1]} ${unit} thick: the cut runs out through the bottom face ${apart(runOut, L)[0]} ${unit} from where the taper starts`,
       );
     }
 
     const F = sqrt(L.mul(L).plus(d.mul(d)));
     const h = L.mul(d).div(F);
-    const t = T ? T.minus(d) : null;
+    const t = T ? Dec.max(T.minus(d), 0) : null;
     if (!(given.faceLength && given.taperLength) && !(given.faceLength && given.removed)) {
       steps.push(step('Face length (aligned dimension)', 'F = L / cos α = √(L² + d²)', `F = √(${len(L)}² + ${len(d)}²)`, len(F), unit));
     }
@@ -184,12 +197,15 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
     );
 
     const passes: TaperPass[] = [];
+    // Nothing to cut at the resolution: the depth to stop (never more than d) reads zero.
+    const tooSmall = readsZero(h);
     if (p.depthPerPass) {
-      const n = h.div(p.depthPerPass).ceil().toNumber();
+      // Counted on the depth as read (0.20001 in is two passes of 0.1, not a third of 0.0000).
+      const n = new Dec(len(h)).div(p.depthPerPass).ceil().toNumber();
       if (n > MAX_PASSES) return invalid(AREA, 'depthPerPass', `is too small: it would take ${n} passes (at most ${MAX_PASSES})`);
       let done = new Dec(0);
       for (let i = 1; i <= n; i++) {
-        const next = Dec.min(h, p.depthPerPass.mul(i));
+        const next = i === n ? h : Dec.min(h, p.depthPerPass.mul(i));
         passes.push({ pass: i, cut: len(next.minus(done)), reading: len(next) });
         done = next;
       }
@@ -197,7 +213,15 @@ export function calculateTaper(input: TaperRequest | unknown): CalcResult<TaperR
     }
 
     const warnings: string[] = [];
-    if (t && t.isZero()) warnings.push('The taper runs out exactly at the bottom edge of the end: it leaves a knife edge.');
+    // Zero but for the last digits of the trigonometry (T = 1 in, 45°, L = 1 in) is exactly zero.
+    if (t && t.abs().lt('1e-24')) warnings.push('The taper runs out exactly at the bottom edge of the end: it leaves a knife edge.');
+    // Left thinner than the unit's resolution (T = 1 in, 45°, L = 0.99996 in): as good as a knife edge.
+    else if (t && readsZero(t)) warnings.push(`The taper runs out at the bottom edge of the end, to within ${unitResolution(unit).toString()} ${unit}: it leaves a knife edge.`);
+    if (tooSmall) {
+      warnings.push(
+        `The ${shape} is too small to cut at ${unitResolution(unit).toString()} ${unit}: it takes ${len(d)} ${unit} off the end and the depth to stop reads ${len(h)} ${unit}, so there is nothing to remove. Check the angle and the ${shape === 'chamfer' ? 'legs' : 'lengths'}.`,
+      );
+    }
     if (p.fluteLength && h.gt(p.fluteLength)) {
       warnings.push(`Depth to stop ${len(h)} ${unit} is beyond the flute length ${len(p.fluteLength)} ${unit}: use a longer cutter or cut the face in steps.`);
     }

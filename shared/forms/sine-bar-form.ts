@@ -3,9 +3,9 @@
  * A set-up saved from that page keeps the form as its inputs; its results and sheet make the same
  * request from it.
  */
-import type { CompoundSineRequest, SineBarRequest } from '../api/calc';
-import { resolveBox } from '../calc/gauge-stack';
-import { Dec } from '../calc/decimal-math';
+import { type CompoundSineRequest, type SineBarRequest, parseRequest, sineBarRequestSchema } from '../api/calc';
+import { type GaugeBox, resolveBox } from '../calc/gauge-stack';
+import { type CalcResult, succeed } from '../calc/step';
 import { sizeList } from './form-text';
 
 /** The sine-bar form's values: all text, as typed. */
@@ -43,16 +43,26 @@ export function toSineBarRequest(values: SineBarFormValues): SineBarRequest {
 }
 
 /**
+ * The standard set a compound plate's form names, less the blocks marked missing, as the stack
+ * solver sees it: null without a set or for the team's own box (its blocks are in the inventory).
+ * A missing list that does not read, or names a block the set lacks, fails on that field.
+ */
+export function compoundFormBox(v: SineBarFormValues): CalcResult<GaugeBox | null> {
+  if (!v.set || v.set.startsWith('box:')) return succeed(null);
+  const area = 'Compound sine plate';
+  const missing = parseRequest(area, sineBarRequestSchema.pick({ missing: true }), { missing: sizeList(v.missing) });
+  if (!missing.ok) return missing;
+  return resolveBox(area, { set: v.set, missing: missing.value.missing, unit: v.unit === 'mm' ? 'mm' : 'in' });
+}
+
+/**
  * The compound plate's engine request: two angles (or two stacks), the upper plate's own roll
  * distance when given; with a standard set each stack is rounded to the set's finest step so its
  * blocks can make it. (A team box's step is the unit's, as the page rounds it.)
  */
 export function toCompoundSineRequest(v: SineBarFormValues): CompoundSineRequest {
-  let resolution: string | undefined;
-  if (v.set && !v.set.startsWith('box:')) {
-    const boxed = resolveBox('Compound sine plate', { set: v.set, missing: sizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
-    if (boxed.ok) resolution = boxed.value.step.toString();
-  }
+  const boxed = compoundFormBox(v);
+  const resolution = boxed.ok && boxed.value ? boxed.value.step.toString() : undefined;
   const byAngles = v.compoundBy !== 'stacks';
   return {
     unit: v.unit as 'in' | 'mm',

@@ -1,8 +1,12 @@
+import { formatDms } from '../angle/angle-text';
 import { calculateAngleBlocks } from '../calc/angle-blocks';
-import { calculateSineBar } from '../calc/sine-bar';
+import { Dec, asinDeg, fixedText } from '../calc/decimal-math';
+import { fewestBlocks, formatBlock, formatStack, resolveBox, type GaugeBox } from '../calc/gauge-stack';
+import { calculateSineBar, unmakeableStack } from '../calc/sine-bar';
 import { type CalcResult, fail, succeed } from '../calc/step';
 import type { TaperResult } from '../calc/taper';
 import { ANGLE_BLOCK_SETS } from '../data/angle-block-sets';
+import { findGaugeSet } from '../data/gauge-sets';
 
 /** How the part is held at the taper angle. The numbers of the cut do not change with it; the set-up does. */
 export type HoldingKind = 'angle-block' | 'sine-plate' | 'tilted-vise';
@@ -68,8 +72,47 @@ export function shortAngle(dms: string): string {
 }
 
 /** The last step of every set-up: where the numbers of the cut take over. */
-function touchOffStep(r: TaperResult): string {
-  return `Touch the cutter off on the highest corner (the end of the top face), zero the DRO, and feed down ${r.depthToStop} ${r.unit}, taking the passes listed.`;
+function touchOffStep(r: TaperResult, leadIn = ''): string {
+  return `${leadIn ? `${leadIn}, touch` : 'Touch'} the cutter off on the highest corner (the end of the top face), zero the DRO, and feed down ${r.depthToStop} ${r.unit}, taking the passes listed.`;
+}
+
+/** Most steps of the box's resolution searched either way for a stack the box can make. */
+const NEAREST_SEARCH_STEPS = 2000;
+
+/** A stack the box can make near the one it cannot, and the angle it stands a plate at. */
+interface NearStack {
+  readonly stack: string;
+  readonly blocks: readonly string[];
+  readonly angleDms: string;
+  /** Signed, arc-seconds, 1 decimal ("+262.7"). */
+  readonly errorArcSec: string;
+}
+
+/**
+ * The stacks nearest `stack` (one shorter, one taller, each shorter than the plate) that the box
+ * can make, with the angle each stands a plate of roll distance `plate` at and its error from
+ * `wanted` (θ = asin(H / L), REFERENCE.md §2.1). Searched in the box's own step, a bounded way.
+ */
+function nearestStacks(box: GaugeBox, stack: Dec, plate: Dec, wanted: Dec): NearStack[] {
+  const found: NearStack[] = [];
+  for (const dir of [-1, 1]) {
+    for (let i = 1; i <= NEAREST_SEARCH_STEPS; i++) {
+      const h = stack.plus(box.step.mul(i * dir));
+      if (h.lte(0) || h.gte(plate)) break;
+      const blocks = fewestBlocks(box, h);
+      if (!blocks) continue;
+      const angle = asinDeg(h.div(plate));
+      const error = angle.minus(wanted).mul(3600);
+      found.push({
+        stack: formatStack(h, box),
+        blocks: blocks.map((b) => formatBlock(b, box)),
+        angleDms: formatDms(angle, 1),
+        errorArcSec: `${error.gte(0) ? '+' : ''}${fixedText(error, 1)}`,
+      });
+      break;
+    }
+  }
+  return found;
 }
 
 /**
@@ -117,6 +160,39 @@ export function planHolding(values: HoldingValues, r: TaperResult): CalcResult<H
     const p = plate.value;
     const blocks = p.blocks ?? [];
     const u = p.unit;
+    const drawing: HoldingDrawing = {
+      kind,
+      plateLength: Number(p.barLength),
+      blocks: blocks.length ? blocks.map((b) => ({ size: Number(b), label: b })) : [{ size: Number(p.stackHeight), label: p.stackHeight }],
+      stackLabel: `${p.stackHeight} ${u} stack`,
+    };
+    const box = values.plateSet && p.blocks === null ? resolveBox('Sine plate', { set: values.plateSet, unit: u }) : null;
+    if (box?.ok) {
+      // The set cannot make the stack. A sine plate's hinge roll stays on its hinge (common
+      // practice), so the sine bar's way out — both rolls on equal stacks, the difference built
+      // on top — is not open: the steps give the nearest stacks the set can make and the other
+      // holdings instead, and the warning says so in place of the sine bar's.
+      const setName = findGaugeSet(values.plateSet)?.name ?? 'box';
+      const near = nearestStacks(box.value, new Dec(p.stackHeight), new Dec(p.barLength), new Dec(angle));
+      const nearText = near.length
+        ? `The nearest ${near.length === 1 ? 'stack' : 'stacks'} it can make: ${near.map((n) => `${n.stack} ${u} (${n.blocks.join(' + ')}) stands the plate at ${n.angleDms}, ${n.errorArcSec}″ from the taper angle`).join('; ')}. To use ${near.length === 1 ? 'it' : 'one'}, type its angle as the taper angle so that the depth and the end thickness are worked out for it.`
+        : 'No stack near it can be made from this set.';
+      return succeed({
+        kind,
+        heading: 'Set-up on a sine plate',
+        instructions: [
+          `The ${setName} cannot make the ${p.stackHeight} ${u} stack this angle needs (H = L · sin α for the ${p.barLength} ${u} plate), and a sine plate's hinge roll cannot be raised on a stack of its own to build the difference.`,
+          nearText,
+          'Otherwise hold the part on angle blocks or in a tilting vise (under “Held on”), or build the stack from a set that has the blocks for it.',
+          touchOffStep(r, `Once the part is held at ${r.angleDms}`),
+        ],
+        warnings: [
+          ...p.warnings.filter((w) => w !== unmakeableStack(p.stackHeight, u, true)),
+          `The ${setName} cannot make a ${p.stackHeight} ${u} stack, and a sine plate's hinge roll cannot be raised to build the difference on two stacks: change the angle to one the set can make, or hold the part another way (see the set-up).`,
+        ],
+        drawing,
+      });
+    }
     return succeed({
       kind,
       heading: 'Set-up on a sine plate',
@@ -128,12 +204,7 @@ export function planHolding(values: HoldingValues, r: TaperResult): CalcResult<H
         touchOffStep(r),
       ],
       warnings: p.warnings,
-      drawing: {
-        kind,
-        plateLength: Number(p.barLength),
-        blocks: blocks.length ? blocks.map((b) => ({ size: Number(b), label: b })) : [{ size: Number(p.stackHeight), label: p.stackHeight }],
-        stackLabel: `${p.stackHeight} ${u} stack`,
-      },
+      drawing,
     });
   }
   return succeed({

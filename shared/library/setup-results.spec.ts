@@ -1,5 +1,7 @@
 import demo from '../../fixtures/demo.json';
+import { findGaugeSet } from '../data/gauge-sets';
 import { inputRows, inputText, labelOf, listedInputs, setupResults } from './setup-results';
+import type { TeamBox } from './team-boxes';
 
 describe('setupResults', () => {
   it('should list inputs in words, with sets, standard tapers and holdings by their names', () => {
@@ -40,6 +42,56 @@ describe('setupResults', () => {
     expect(page.ok || page.pageOnly).toBe(true);
     const bad = setupResults('taper', { unit: 'in', thickness: '-5', angle: 'abc', taperLength: '1.250' });
     expect(bad.ok || bad.pageOnly).toBeUndefined();
+  });
+
+  describe('a compound sine plate saved from its page', () => {
+    // 14°30' on both axes of a 5 in plate: 5 · sin 14.5° = 1.2519 in each (derived). Both stacks stand
+    // under the plate at once, so no block of the box may be listed under both.
+    const form = {
+      unit: 'in', mode: 'compound', barLength: '5', angle: "14°30'", stackHeight: '', set: 'inch-81', missing: '', tableFrom: '', tableTo: '', tableStep: '',
+      compoundBy: 'angles', angleB: "14°30'", stackB: '', lengthB: '',
+    };
+    const blocksOf = (r: ReturnType<typeof setupResults>, name: 'A' | 'B') => (r.ok ? r.lines.find((l) => l.label === `Blocks ${name}`)?.value : undefined);
+    const sumOf = (text: string | undefined) => (text ?? '').split(' + ').reduce((t, b) => t + Math.round(Number(b) * 10_000), 0);
+
+    it('should list two stacks that share no block of the 81-piece set (one block of each size)', () => {
+      const r = setupResults('sine-bar', form);
+      const [a, b] = [blocksOf(r, 'A'), blocksOf(r, 'B')];
+      expect([sumOf(a), sumOf(b)]).toEqual([12_519, 12_519]);
+      const all = [...(a ?? '').split(' + '), ...(b ?? '').split(' + ')];
+      expect(new Set(all).size).toBe(all.length);
+      expect(r.ok && r.warnings).toEqual([]);
+    });
+
+    it('should say so when the set with its missing blocks cannot make both stacks at once', () => {
+      // With 0.1001–0.1008 missing only 0.1009 gives the last digit 9, and both stacks need it (by hand).
+      const r = setupResults('sine-bar', { ...form, missing: '0.1001, 0.1002, 0.1003, 0.1004, 0.1005, 0.1006, 0.1007, 0.1008' });
+      expect(blocksOf(r, 'A')).toBe('1.000 + 0.101 + 0.1009 + 0.050');
+      expect(blocksOf(r, 'B')).toBeUndefined();
+      expect(r.ok && r.warnings).toEqual([expect.stringMatching(/^The box cannot make both stacks at once: with stack A \(1\.2519 in\) built from 1\.000 \+ 0\.101 \+ 0\.1009 \+ 0\.050/)]);
+    });
+
+    it("should pick both stacks from the team's box without sharing a block", () => {
+      const set = findGaugeSet('inch-81');
+      if (!set) throw new Error('inch-81 missing from the standard sets');
+      // The team's box lacks 0.1009, so the last digit 9 must come from two blocks under each stack.
+      const box: TeamBox = {
+        id: 4, type: 'gauge-blocks', name: 'Cabinet 1', unit: 'in', grade: null, wearBlockSize: null, wearBlockCount: 0,
+        blocks: set.blocks.map((b) => ({ size: b.size, available: Number(b.size) === 0.1009 ? 0 : b.count })),
+      };
+      const r = setupResults('sine-bar', { ...form, set: 'box:4' }, new Map([[4, box]]));
+      const [a, b] = [blocksOf(r, 'A'), blocksOf(r, 'B')];
+      expect([sumOf(a), sumOf(b)]).toEqual([12_519, 12_519]);
+      const all = [...(a ?? '').split(' + '), ...(b ?? '').split(' + ')];
+      expect(new Set(all).size).toBe(all.length);
+      expect(all).not.toContain('0.1009');
+    });
+
+    it('should say in words why no blocks are listed for a missing list that does not read', () => {
+      const r = setupResults('sine-bar', { ...form, missing: 'abc' });
+      expect(blocksOf(r, 'A')).toBeUndefined();
+      expect(r.ok && r.warnings).toEqual(['No blocks are listed: the blocks missing from the box must be a decimal number such as 0.750, got "abc".']);
+    });
   });
 
   describe('the holding plan of a taper saved from its page', () => {

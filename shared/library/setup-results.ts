@@ -2,18 +2,18 @@ import { calculateAngleBlocks } from '../calc/angle-blocks';
 import { calculateGaugeStack } from '../calc/gauge-stack';
 import { calculateLatheTaper } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
-import { calculateCompoundSinePlate, calculateSineBar, unmakeableAxis, unmakeableStack } from '../calc/sine-bar';
+import { calculateCompoundSinePlate, calculateSineBar, compoundStackBlocks, unmakeableStack } from '../calc/sine-bar';
 import { type CalcResult, type Step, blockCountStep } from '../calc/step';
 import { type TaperResult, calculateTaper } from '../calc/taper';
 import { labelOf, savedForm, sizeList } from '../forms/form-text';
-import type { SineBarFormValues } from '../forms/sine-bar-form';
+import { type SineBarFormValues, compoundFormBox } from '../forms/sine-bar-form';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 import { findAngleBlockSet } from '../data/angle-block-sets';
 import { findGaugeSet } from '../data/gauge-sets';
 import { findMachineTaper } from '../data/machine-tapers';
 import { HOLDING_OPTIONS, type HoldingPlan, type HoldingValues, planHolding } from '../forms/taper-holding';
 import { OPEN_ON_PAGE, combinationText, savedRequest } from './saved-request';
-import { type TeamBox, type TeamBoxes, boxStackBlocks, namedBox } from './team-boxes';
+import { type TeamBox, type TeamBoxes, boxStackBlocks, namedBox, teamGaugeBox } from './team-boxes';
 
 /** A result value as the set-up sheet lists it. */
 export interface ResultLine {
@@ -141,26 +141,28 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
 
 /**
  * A compound plate's two stacks with their blocks — from the standard set or the team's box the
- * form names, as the page picks them — and a warning for a stack the blocks cannot make.
+ * form names, each block under one stack only, as the page picks them (compoundStackBlocks) — and
+ * a warning for a stack the blocks cannot make, alone or beside the other.
  */
 function compoundWithBlocks(value: Record<string, unknown>, inputs: Record<string, unknown>, box: TeamBox | null): Record<string, unknown> {
   const form = savedForm<SineBarFormValues>(inputs);
-  const unit = String(value['unit']);
+  const unit = value['unit'] === 'mm' ? 'mm' : 'in';
   const warnings = Array.isArray(value['warnings']) ? [...(value['warnings'] as string[])] : [];
-  const blocksOf = (stack: string): string[] | null => {
-    if (box) return boxStackBlocks(box, stack);
-    if (Number(stack) === 0) return [];
-    const found = calculateGaugeStack({ target: stack, unit: unit as 'in' | 'mm', set: form.set, missing: sizeList(form.missing) });
-    return found.ok ? found.value.blocks : null;
-  };
   const out: Record<string, unknown> = { ...value, warnings };
   if (!form.set || (boxIdOf(form.set) !== null && !box)) return out;
-  for (const name of ['A', 'B'] as const) {
-    const axis = value[`axis${name}`] as { stackHeight: string };
-    const blocks = blocksOf(axis.stackHeight);
-    if (blocks) out[`blocks${name}`] = blocks.join(' + ') || 'none';
-    else warnings.push(unmakeableAxis(name, axis.stackHeight, unit));
+  // A standard set the blocks cannot come from (an unknown set, a missing list that does not read) gives none.
+  const standard = box ? null : compoundFormBox(form);
+  if (standard && !standard.ok) {
+    const [field, message] = Object.entries(standard.fields)[0] ?? ['', standard.error];
+    warnings.push(`No blocks are listed: ${field.startsWith('missing') ? 'the blocks missing from the box' : 'the gauge-block set'} ${message}.`);
+    return out;
   }
+  const gaugeBox = box ? teamGaugeBox(box) : (standard?.value ?? null);
+  const [axisA, axisB] = (['A', 'B'] as const).map((name) => value[`axis${name}`] as { stackHeight: string });
+  const picked = compoundStackBlocks(gaugeBox, axisA.stackHeight, axisB.stackHeight, unit);
+  if (picked.blocksA) out['blocksA'] = picked.blocksA.join(' + ') || 'none';
+  if (picked.blocksB) out['blocksB'] = picked.blocksB.join(' + ') || 'none';
+  warnings.push(...picked.warnings);
   return out;
 }
 

@@ -6,7 +6,8 @@
  */
 import { type GaugeStackRequest, MAX_SOLVER_BLOCKS_OF_A_SIZE } from '../api/calc';
 import { GAUGE_GRADES, type InventorySetDto } from '../api/inventory';
-import { calculateGaugeStack } from '../calc/gauge-stack';
+import { Dec } from '../calc/decimal-math';
+import { type GaugeBox, calculateGaugeStack, resolveBox } from '../calc/gauge-stack';
 import { boxIdOf } from '../forms/gauge-blocks-form';
 
 /** A team box: its name and the blocks in it, with how many of each may be used. */
@@ -79,4 +80,21 @@ export function boxStackBlocks(box: Omit<TeamBox, 'id' | 'type' | 'name'>, stack
   const request = boxStackRequest(box, { target: stack, wear: false });
   const found = request ? calculateGaugeStack(request) : null;
   return found?.ok ? found.value.blocks : null;
+}
+
+/**
+ * A box as the stack solver sees it, with the blocks the inventory route would use (the usable
+ * ones, at most the solver's limit of a size): for answers that need several stacks from the box
+ * at once, such as the two stacks of a compound plate. Null when no block is usable or the box
+ * is in neither inches nor millimetres.
+ */
+export function teamGaugeBox(box: Omit<TeamBox, 'id' | 'type' | 'name'>): GaugeBox | null {
+  if (box.unit !== 'in' && box.unit !== 'mm') return null;
+  const usable = box.blocks.filter((b) => b.available > 0);
+  if (usable.length === 0) return null;
+  // A size that is not a number (never from the inventory, which checks them) gives no box.
+  if (!usable.every((b) => /^\d+(\.\d+)?$/.test(b.size))) return null;
+  const blocks = usable.map((b) => ({ size: new Dec(b.size), count: Math.min(b.available, MAX_SOLVER_BLOCKS_OF_A_SIZE) }));
+  const resolved = resolveBox('Gauge stack', { blocks, unit: box.unit });
+  return resolved.ok ? resolved.value : null;
 }

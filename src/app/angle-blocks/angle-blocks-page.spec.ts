@@ -53,6 +53,14 @@ describe('AngleBlocksPage', () => {
     expect(page.el.querySelectorAll('sw-angle-stack-drawing path.block.reversed')).toHaveLength(1);
   });
 
+  it('should say blocks that cancel make 0°, not that the reversed ones outweigh the rest', async () => {
+    await page.open(`/angle-blocks?mode=total&set=angle-16&combination=${encodeURIComponent('45° − 30° − 15°')}`);
+    // 45 − 30 − 15 = 0° (lab sheet rule, REFERENCE.md §6).
+    expect(page.resultValue('Angle the blocks make')).toBe(`0°00'00"`);
+    expect(page.el.textContent).toContain('The reversed blocks cancel the added ones: the combination makes 0°, a level face.');
+    expect(page.el.textContent).not.toContain('outweigh');
+  });
+
   it('should copy found blocks into the combination box', async () => {
     await page.open();
     const button = Array.from(page.el.querySelectorAll('button')).find((b) => b.textContent?.includes('Check or change these blocks')) as HTMLButtonElement;

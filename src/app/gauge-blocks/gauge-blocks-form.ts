@@ -74,10 +74,10 @@ export function runGaugeBlocks(values: GaugeBlocksFormValues): CalcResult<GaugeO
 export function gaugeResultItems(r: GaugeStackResult): ResultItem[] {
   const u = r.unit;
   const items: ResultItem[] = [
-    { label: 'Fewest blocks', value: r.blocks.join(' + '), unit: '', emphasis: true, note: `${r.count} ${r.count === 1 ? 'block' : 'blocks'}, wringing order, largest first` },
+    { label: 'Fewest blocks', value: r.labels.join(' + '), unit: '', emphasis: true, note: `${r.count} ${r.count === 1 ? 'block' : 'blocks'}, wringing order, largest first${r.wearBlock ? ', wear blocks at both ends' : ''}` },
     { label: 'Stack length', value: r.total, unit: u },
   ];
-  if (r.lastDigit) items.push({ label: 'Last-digit method', value: r.lastDigit.blocks.join(' + '), unit: '', note: `${r.lastDigit.count} ${r.lastDigit.count === 1 ? 'block' : 'blocks'}, the textbook way` });
+  if (r.lastDigit) items.push({ label: 'Last-digit method', value: r.lastDigit.labels.join(' + '), unit: '', note: `${r.lastDigit.count} ${r.lastDigit.count === 1 ? 'block' : 'blocks'}, the textbook way` });
   if (r.tolerance) {
     items.push(
       { label: `Tolerance, worst case (grade ${r.tolerance.grade})`, value: `±${r.tolerance.worstCase}`, unit: u, note: `±${r.tolerance.worstCaseUm} µm` },

@@ -21,6 +21,15 @@ describe('GaugeBlocksPage', () => {
     expect(titles).toEqual([`Fewest: ${blocks.length} blocks`, `Last-digit method: ${last.length} blocks`]);
   });
 
+  it('should say which blocks are the wear blocks in the result text', async () => {
+    await page.open('/gauge-blocks?target=2.75&wearBlocks=0.050');
+    // 2.75 = 0.050 wear + 2.000 + 0.600 + 0.050 + 0.050 wear by the last digit: one 0.050 from the set,
+    // the wear pair at the ends (derived; wear blocks at both ends is common practice).
+    expect(page.resultValue('Last-digit method')).toBe('0.050 wear + 2.000 + 0.600 + 0.050 + 0.050 wear');
+    expect(page.resultValue('Fewest blocks')).toMatch(/^0\.050 wear \+ .* \+ 0\.050 wear$/);
+    expect(page.el.textContent).toContain('wear blocks at both ends');
+  });
+
   it('should say "1 block" for a stack of one block', async () => {
     await page.open();
     // 0.500 in is a single block of the 81-piece set (REFERENCE.md §3.2).
@@ -166,7 +175,7 @@ describe('GaugeBlocksPage with the team inventory', () => {
     req.flush(boxAnswer('2.0084', true));
     await page.settle();
     const blocks = (page.resultValue('Fewest blocks') ?? '').split(' + ');
-    expect([blocks[0], blocks[blocks.length - 1]]).toEqual(['0.050', '0.050']);
+    expect([blocks[0], blocks[blocks.length - 1]]).toEqual(['0.050 wear', '0.050 wear']);
   });
 
   it('should fall back to the standard set for a box that is not the team\'s', async () => {

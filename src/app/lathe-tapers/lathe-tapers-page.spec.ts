@@ -102,6 +102,30 @@ describe('LatheTapersPage', () => {
     expect(page.resultValue('Small diameter')).toBe('0.8953');
   });
 
+  it('should give a metric job its taper as a ratio and per mm of length, not per foot or per inch', async () => {
+    await page.open('/lathe-tapers?unit=mm&workLength=203.2');
+    // REFERENCE.md §4.2: MT3 0.60235 in/ft, so k = 0.60235/12 = 0.0501958 (per mm as per inch), 1/k = 19.922,
+    // 5.0196 mm per 100 mm (derived).
+    expect(page.resultValue('Taper ratio')).toBe('1:19.922');
+    expect(page.resultValue('Taper per mm of length')).toBe('0.050196');
+    expect(page.resultValue('Taper per foot')).toBeUndefined();
+    expect(page.resultValue('Taper per inch')).toBeUndefined();
+    const results = page.el.querySelector('sw-results')?.textContent ?? '';
+    expect(results).toContain('5.0196 mm on the diameter per 100 mm of length');
+    expect(results).not.toMatch(/in\/ft|in\/in|per foot|per inch/);
+    const derivation = page.el.querySelector('sw-derivation')?.textContent ?? '';
+    expect(derivation).toContain('α/2 = atan(k / 2)');
+    expect(derivation).not.toMatch(/in\/ft|per inch/);
+  });
+
+  it('should warn that a 60° taper over 100 mm needs 57.735 mm of offset, more than a tail stock sets over (100 · tan 30°, derived)', async () => {
+    await page.open('/lathe-tapers?unit=mm&define=angle&includedAngle=60&largeDiameter=&smallDiameter=&length=&workLength=100&method=offset&stations=');
+    expect(page.resultValue('Tail-stock offset')).toBe('57.735');
+    const warnings = Array.from(page.el.querySelectorAll('sw-warnings')).map((w) => w.textContent).join(' ');
+    expect(warnings).toContain('more than a tail stock can usually be set over (about 13 mm, common practice): turn this taper with the compound rest or a taper attachment');
+    expect(warnings).toContain('too steep for the tail-stock offset method');
+  });
+
   describe('latheRequest', () => {
     it('should send only the fields of the chosen definition', () => {
       expect(latheRequest(LATHE_DEFAULTS)).toEqual({ unit: 'in', standard: 'morse-3', workLength: '8', stations: ['0.5', '1', '2'] });

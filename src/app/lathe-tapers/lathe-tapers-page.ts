@@ -11,7 +11,7 @@ import { type Subscription, distinctUntilChanged, map, skip, startWith } from 'r
 import { type LatheTaperResult, calculateLatheTaper } from '../../../shared/calc/lathe-taper';
 import { fail, invalid, type CalcResult } from '../../../shared/calc/step';
 import { MACHINE_TAPERS, type MachineTaper } from '../../../shared/data/machine-tapers';
-import { Dec } from '../../../shared/calc/decimal-math';
+import { Dec, fixedText } from '../../../shared/calc/decimal-math';
 import { formatLength } from '../../../shared/units/length-unit';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
@@ -222,12 +222,21 @@ export default class LatheTapersPage {
     } else {
       items.push(half);
     }
-    items.push(
-      { label: 'Taper per foot', value: r.taperPerFoot, unit: 'in/ft', note: u === 'mm' ? 'Diameter change per 12 units of length' : undefined },
-      { label: 'Taper per inch', value: r.taperPerInch, unit: `${u}/${u}` },
-      { label: 'Ratio', value: r.ratio, unit: '' },
-      { label: 'Included angle', value: r.includedAngleDms, unit: '', note: `${r.includedAngleDeg}°` },
-    );
+    if (u === 'mm') {
+      // A metric drawing gives the taper as a ratio 1:x; per foot means nothing on a metric job.
+      const per100 = fixedText(new Dec(r.exact.taperPerFoot).div(12).mul(100), 4);
+      items.push(
+        { label: 'Taper ratio', value: r.ratio, unit: '', note: 'Diameter change 1 over a length of x' },
+        { label: 'Taper per mm of length', value: r.taperPerInch, unit: 'mm/mm', note: `${per100} mm on the diameter per 100 mm of length` },
+      );
+    } else {
+      items.push(
+        { label: 'Taper per foot', value: r.taperPerFoot, unit: 'in/ft' },
+        { label: 'Taper per inch', value: r.taperPerInch, unit: 'in/in' },
+        { label: 'Ratio', value: r.ratio, unit: '' },
+      );
+    }
+    items.push({ label: 'Included angle', value: r.includedAngleDms, unit: '', note: `${r.includedAngleDeg}°` });
     if (r.largeDiameter !== null) items.push({ label: 'Large diameter', value: r.largeDiameter, unit: u });
     if (r.smallDiameter !== null) items.push({ label: 'Small diameter', value: r.smallDiameter, unit: u });
     if (r.length !== null) items.push({ label: 'Taper length', value: r.length, unit: u });

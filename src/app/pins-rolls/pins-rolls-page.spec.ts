@@ -42,6 +42,12 @@ describe('PinsRollsPage', () => {
     expect(warnings).toContain('use a smaller roll');
   });
 
+  it('should round the roll’s contact height half up like every other length', async () => {
+    await page.open();
+    // 0.1875 · (1 + cos 60°) = 0.28125 exactly → 0.2813 (derived; half up, as 0.99985 → 0.9999).
+    expect(page.resultValue('Roll touches the flank at')).toBe('0.2813');
+  });
+
   it('should restore a female dovetail from the URL', async () => {
     await page.open('/pins-rolls?side=female&rollDiameter=0.5&width=2.5&depth=');
     // REFERENCE.md §5.1 check value: 60°, D 0.500, b 2.500 → 1.1340.
@@ -124,6 +130,18 @@ describe('PinsRollsPage', () => {
       expect(page.resultValue('Taper per foot')).toBe('0.60000');
       expect(page.resultValue('Half angle (each side)')).toBe(`1°25'56"`);
       expect(page.el.querySelector('sw-roll-drawing svg')?.textContent).toContain('ΔH 2.000 in');
+    });
+
+    it('should read equal readings at two heights as parallel sides, 0° with a note, and still draw the work', async () => {
+      await page.open('/pins-rolls?kind=taper-two-heights&lowerReading=1.2500&upperReading=1.2500&heightDifference=2');
+      // tan(α/2) = 0 / (2 × 2) = 0: parallel sides (derived).
+      expect(page.resultValue('Included angle')).toBe(`0°00'00"`);
+      expect(page.resultValue('Taper per foot')).toBe('0.00000');
+      expect(page.el.querySelector('sw-results')?.textContent).toContain('The readings are equal: the sides are parallel (no taper).');
+      expect(page.fieldErrors()).toBe('');
+      const svg = page.el.querySelector('sw-roll-drawing svg');
+      expect(svg?.textContent).toContain('α/2 0°');
+      expect(svg?.innerHTML).not.toContain('NaN');
     });
 
     it('should give the taper two discs set 3 in apart make', async () => {

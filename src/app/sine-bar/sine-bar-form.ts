@@ -1,4 +1,4 @@
-import type { SineBarResult } from '../../../shared/calc/sine-bar';
+import { type SineBarResult, unmakeableStack } from '../../../shared/calc/sine-bar';
 import { GAUGE_BLOCK_SETS } from '../../../shared/data/gauge-sets';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import type { ResultItem } from '../workbench/result-list';
@@ -6,7 +6,7 @@ import type { SineBarSceneInput } from './sine-bar-scene';
 import type { SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
 export { sizeList } from '../../../shared/forms/form-text';
-export { toCompoundSineRequest, toSineBarRequest, type SineBarFormValues } from '../../../shared/forms/sine-bar-form';
+export { compoundFormBox, toCompoundSineRequest, toSineBarRequest, type SineBarFormValues } from '../../../shared/forms/sine-bar-form';
 
 /** Defaults from the demo scenario: a 14°30' face inspected on a 5 in sine plate with the 81-piece set. */
 export const SINE_BAR_DEFAULTS: SineBarFormValues = {
@@ -58,6 +58,18 @@ export function sineBarResultItems(r: SineBarResult, byAngle: boolean): ResultIt
     { label: 'Complement', value: r.complementDeg, unit: '°', note: '90° − angle, for setting from the other side' },
   );
   return items;
+}
+
+/**
+ * The complement set-up's stack in words: with its blocks; or, when the box cannot make it, what
+ * to do instead (the engine's "cannot make" wording); or the stack alone without a box, or while
+ * the team's box is still being read (`blocks` undefined).
+ */
+export function complementStackText(c: SineBarResult, blocks: readonly string[] | null | undefined): string {
+  const stack = `Stack ${c.stackHeight} ${c.unit}`;
+  if (blocks === undefined) return `${stack}.`;
+  if (blocks === null) return `${stack}. ${unmakeableStack(c.stackHeight, c.unit, true)}`;
+  return `${stack}: ${blocks.join(' + ') || 'no blocks'}.`;
 }
 
 /** The drawing's model from an answer. */

@@ -88,6 +88,34 @@ describe('sine-bar modes', () => {
       expect(b).toMatchObject({ barLength: 5, stackHeight: 0.8682, labels: { barLength: 'LB 5.0000 in', stackHeight: 'HB 0.8682 in' } });
     });
 
+    it('should give the two stacks different blocks, as both stand under the plate at once', () => {
+      // 14°30' on both axes of the 5 in plate: 1.2519 in each (derived); the 81-piece set has one block of each size.
+      const r = runSineBar(values({ mode: 'compound', angleB: "14°30'" }));
+      if (!r.ok || r.value.mode !== 'compound') throw new Error('the compound plate should work');
+      const [a, b] = [r.value.blocksA ?? [], r.value.blocksB ?? []];
+      expect([sumTenThousandths(a), sumTenThousandths(b)]).toEqual([12_519, 12_519]);
+      expect(new Set([...a, ...b]).size).toBe(a.length + b.length);
+      expect(r.value.warnings).toEqual([]);
+      const items = outcomeItems(r.value);
+      expect(item(items, 'Blocks A')).not.toBe(item(items, 'Blocks B'));
+    });
+
+    it('should say so, and list no block twice, when the set less its missing blocks cannot make both stacks at once', () => {
+      // With 0.1001–0.1008 missing only 0.1009 gives the last digit 9, and both 1.2519 in stacks need it (by hand).
+      const r = runSineBar(values({ mode: 'compound', angleB: "14°30'", missing: '0.1001 0.1002 0.1003 0.1004 0.1005 0.1006 0.1007 0.1008' }));
+      if (!r.ok || r.value.mode !== 'compound') throw new Error('the compound plate should work');
+      expect(r.value.blocksA).toEqual(['1.000', '0.101', '0.1009', '0.050']);
+      expect(r.value.blocksB).toBeNull();
+      expect(item(outcomeItems(r.value), 'Blocks B')).toBeUndefined();
+      expect(r.value.warnings).toEqual([expect.stringMatching(/^The box cannot make both stacks at once: /)]);
+    });
+
+    it('should put a missing list that does not read on its own box', () => {
+      const r = runSineBar(values({ mode: 'compound', missing: 'abc' }));
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.fields['missing.0']).toBe('must be a decimal number such as 0.750, got "abc"');
+    });
+
     it('should give two angles from two stacks', () => {
       // asin(2.5 / 5) = 30° on each axis; cos φ = 0.75 → φ = 41°24′35″ (derived).
       const r = runSineBar(values({ mode: 'compound', compoundBy: 'stacks', stackHeight: '2.5', stackB: '2.5', set: '' }));

@@ -1,13 +1,11 @@
 import { parseAngle } from '../../../shared/angle/angle-text';
-import { Dec } from '../../../shared/calc/decimal-math';
-import { fewestBlocks, formatBlock, resolveBox } from '../../../shared/calc/gauge-stack';
 import {
   type CompoundSineResult, type SineBarResult, type SineTableResult, type SineTableRow, calculateCompoundSinePlate, calculateSineBar,
-  calculateSineTable, unmakeableAxis, unmakeableRows,
+  calculateSineTable, compoundStackBlocks, unmakeableRows,
 } from '../../../shared/calc/sine-bar';
 import { type CalcResult, type Step, invalid, succeed } from '../../../shared/calc/step';
 import type { ResultItem } from '../workbench/result-list';
-import { type SineBarFormValues, sizeList, sineBarResultItems, toCompoundSineRequest, toSineBarRequest } from './sine-bar-form';
+import { type SineBarFormValues, compoundFormBox, sizeList, sineBarResultItems, toCompoundSineRequest, toSineBarRequest } from './sine-bar-form';
 import type { SineBarSceneInput } from './sine-bar-scene';
 
 /** What the page works out: one setting (from an angle or a stack), a table over a range, or a compound plate. */
@@ -80,15 +78,15 @@ export function toSineTableRequest(v: SineBarFormValues) {
   };
 }
 
-/** The fewest blocks of the chosen box for a stack, as marked; null without a set or when unreachable. */
-function blocksFor(v: SineBarFormValues, stack: string): CalcResult<string[] | null> {
-  if (!v.set) return succeed(null);
-  const boxed = resolveBox('Compound sine plate', { set: v.set, missing: sizeList(v.missing)?.map((s) => new Dec(s)), unit: v.unit === 'mm' ? 'mm' : 'in' });
+/**
+ * The blocks of both stacks of a compound plate from the chosen standard set, as marked: each
+ * block under one stack only (shared/calc/sine-bar compoundStackBlocks); none without a set.
+ */
+function compoundBlocks(v: SineBarFormValues, c: CompoundSineResult): CalcResult<{ blocksA: string[] | null; blocksB: string[] | null; warnings: string[] }> {
+  const boxed = compoundFormBox(v);
   if (!boxed.ok) return boxed;
-  const H = new Dec(stack);
-  if (H.isZero()) return succeed([]);
-  const found = fewestBlocks(boxed.value, H);
-  return succeed(found ? found.map((b) => formatBlock(b, boxed.value)) : null);
+  if (!boxed.value) return succeed({ blocksA: null, blocksB: null, warnings: [] });
+  return succeed(compoundStackBlocks(boxed.value, c.axisA.stackHeight, c.axisB.stackHeight, c.unit));
 }
 
 /** Runs the engine for the form in its mode. Never throws: bad input gives a failure naming the field. */
@@ -126,14 +124,10 @@ export function runSineBar(v: SineBarFormValues): CalcResult<SineBarOutcome> {
     // With a set, each stack is rounded to the box's finest step so the blocks can make it.
     const c = calculateCompoundSinePlate(toCompoundSineRequest(v));
     if (!c.ok) return c;
-    const a = blocksFor(v, c.value.axisA.stackHeight);
-    if (!a.ok) return a;
-    const b = blocksFor(v, c.value.axisB.stackHeight);
-    if (!b.ok) return b;
-    const warnings = [...c.value.warnings];
-    if (v.set && a.value === null) warnings.push(unmakeableAxis('A', c.value.axisA.stackHeight, c.value.unit));
-    if (v.set && b.value === null) warnings.push(unmakeableAxis('B', c.value.axisB.stackHeight, c.value.unit));
-    return succeed({ mode, compound: c.value, blocksA: a.value, blocksB: b.value, warnings, steps: c.value.steps });
+    const picked = compoundBlocks(v, c.value);
+    if (!picked.ok) return picked;
+    const { blocksA, blocksB } = picked.value;
+    return succeed({ mode, compound: c.value, blocksA, blocksB, warnings: [...c.value.warnings, ...picked.value.warnings], steps: c.value.steps });
   }
   const r = calculateSineBar(toSineBarRequest({ ...v, mode }));
   if (!r.ok) return r;

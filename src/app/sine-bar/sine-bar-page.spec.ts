@@ -41,6 +41,28 @@ describe('SineBarPage', () => {
     expect(page.el.querySelectorAll('svg[role="img"]').length).toBe(2);
   });
 
+  it('should say so when the box cannot make the complement\'s stack', async () => {
+    await page.open('/sine-bar?angle=89');
+    // 5 · sin 1° = 0.08726 → 0.0873 in (derived); the 81-piece set's thinnest block is 0.050 in and no
+    // two of them make 0.0873, so the set cannot make it.
+    const advice = page.el.querySelector('section.complement p')?.textContent ?? '';
+    expect(advice).toContain('Stack 0.0873 in. The box cannot make a 0.0873 in stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.');
+  });
+
+  it("should list the complement's blocks when the box can make its stack", async () => {
+    await page.open('/sine-bar?angle=60');
+    // 5 · sin 30° = 2.5000 in (derived); its blocks add up to it.
+    const blocks = /Stack 2\.5000 in: (.+)\./.exec(page.el.querySelector('section.complement p')?.textContent ?? '')?.[1] ?? '';
+    expect(blocks.split(' + ').reduce((t, b) => t + Math.round(Number(b) * 10_000), 0)).toBe(25_000);
+  });
+
+  it('should name the axis in each steep-angle warning of a compound plate', async () => {
+    await page.open('/sine-bar?mode=compound&angle=60&angleB=60');
+    const text = page.el.querySelector('.warnings')?.textContent ?? '';
+    expect(text).toContain('Angle A is above 45°');
+    expect(text).toContain('Angle B is above 45°');
+  });
+
   it('should list the table of stacks as a table and draw the row picked', async () => {
     await page.open('/sine-bar?mode=table');
     // 10° to 20° by 30′ on the 5 in plate: 21 rows; 5 · sin 14.5° = 1.2519 (derived).
@@ -158,6 +180,30 @@ describe('SineBarPage with the team inventory', () => {
     const blocksA = (page.resultValue('Blocks A') ?? '').split(' + ');
     expect(blocksA.reduce((t, b) => t + Math.round(Number(b) * 10_000), 0)).toBe(12_519);
     expect(blocksA).not.toContain('0.1007');
+  });
+
+  it('should give the two stacks of a compound plate different blocks from the box', async () => {
+    // 14°30' on both axes: 1.2519 in each (derived); the box holds one block of each size.
+    await create(true, `/sine-bar?mode=compound&angleB=${encodeURIComponent("14°30'")}&set=box:7`);
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await page.settle();
+    http.expectOne('/api/inventories/gauge-sets/7').flush(demoBoxWithBlocks());
+    await page.settle();
+    const [a, b] = [(page.resultValue('Blocks A') ?? '').split(' + '), (page.resultValue('Blocks B') ?? '').split(' + ')];
+    expect([a, b].map((blocks) => blocks.reduce((t, x) => t + Math.round(Number(x) * 10_000), 0))).toEqual([12_519, 12_519]);
+    expect(new Set([...a, ...b]).size).toBe(a.length + b.length);
+    expect([...a, ...b]).not.toContain('0.1007');
+  });
+
+  it("should pick the complement's blocks from the box, or say it cannot make them", async () => {
+    // 89°: the complement 1° needs 0.0873 in (derived), which no blocks of the box make.
+    await create(true, '/sine-bar?mode=angle&angle=89&set=box:7');
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await page.settle();
+    http.expectOne((r) => r.url === '/api/inventories/gauge-sets/7/stack').flush(demoBoxAnswer('4.9992'));
+    http.expectOne('/api/inventories/gauge-sets/7').flush(demoBoxWithBlocks());
+    await page.settle();
+    expect(page.el.querySelector('section.complement p')?.textContent).toContain('Stack 0.0873 in. The box cannot make a 0.0873 in stack;');
   });
 
   it('should keep the standard sets only and ask nothing of the inventory for a visitor', async () => {

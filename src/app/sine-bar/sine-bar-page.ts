@@ -9,8 +9,8 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 
-import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, unmakeableAxis, unmakeableRows, unmakeableStack } from '../../../shared/calc/sine-bar';
-import { type TeamBox, boxStackBlocks, teamBoxOf } from '../../../shared/library/team-boxes';
+import { SINE_BAR_CAUTIONS, type SineBarResult, calculateSineBar, compoundStackBlocks, unmakeableRows, unmakeableStack } from '../../../shared/calc/sine-bar';
+import { type TeamBox, boxStackBlocks, teamBoxOf, teamGaugeBox } from '../../../shared/library/team-boxes';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { type BoxStackQuery, bindOwnBoxes, boxIdOf, boxStackState, excludedNote } from '../gauge-blocks/own-boxes';
 import { InventoryApi } from '../inventory/inventory-api';
@@ -26,7 +26,8 @@ import { UnitToggle, convertLengthControls } from '../workbench/unit-toggle';
 import { WarningList } from '../workbench/warning-list';
 import { SineBarDrawing } from './sine-bar-drawing';
 import {
-  BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, defaultSet, setsInUnit, sineBarSceneInput, toSineBarRequest,
+  BAR_LENGTHS, SINE_BAR_DEFAULTS, SINE_BAR_LENGTH_FIELDS, type SineBarFormValues, complementStackText, defaultSet, setsInUnit, sineBarSceneInput,
+  toSineBarRequest,
 } from './sine-bar-form';
 import {
   SINE_BAR_ALIASES, SINE_BAR_MODES, type SineBarOutcome, compoundAxisScene, outcomeItems, runSineBar, sineBarMode, tableRowScene,
@@ -117,14 +118,16 @@ export default class SineBarPage {
   });
   private readonly inventory = inject(InventoryApi);
   /**
-   * The chosen team box with what is in it, for the table and the compound plate: they need many
-   * stacks at once, so their blocks are picked here from the box (as the server would pick them).
+   * The chosen team box with what is in it, for the table, the compound plate and a steep angle's
+   * complement: they need many stacks at once (or one more), so their blocks are picked here from
+   * the box (as the server would pick them).
    */
   private readonly loadedBox = signal<TeamBox | null>(null);
   private readonly loadsBox = effect(() => {
     const id = boxIdOf(this.setValue());
     const mode = sineBarMode(this.modeValue());
-    if (id === null || (mode !== 'table' && mode !== 'compound') || this.loadedBox()?.id === id) return;
+    const steep = mode === 'angle' && Number(this.engineSingle()?.angleDeg) > 45;
+    if (id === null || (mode !== 'table' && mode !== 'compound' && !steep) || this.loadedBox()?.id === id) return;
     this.inventory.get('gauge-blocks', id, true).subscribe({ next: (set) => this.loadedBox.set(teamBoxOf(set)), error: () => this.loadedBox.set(null) });
   });
   /** The loaded box when it is the one chosen, else null. */
@@ -144,28 +147,26 @@ export default class SineBarPage {
     });
     return { ...o.table, rows, unreachable: box ? rows.filter((r) => r.blocks === null).length : 0 };
   });
-  /** The compound answer with its blocks (with the team's box, from it), or null. */
+  /**
+   * The compound answer with its blocks (with the team's box, from it: both stacks at once, each
+   * block under one of them), or null; `boxWarnings` says what the team's box cannot give.
+   */
   protected readonly compound = computed(() => {
     const o = this.calc.value();
     if (o?.mode !== 'compound') return null;
-    if (!this.ownBox()) return o;
+    if (!this.ownBox()) return { ...o, boxWarnings: [] as string[] };
     const box = this.chosenBox();
-    const blocksA = box ? boxStackBlocks(box, o.compound.axisA.stackHeight) : null;
-    const blocksB = box ? boxStackBlocks(box, o.compound.axisB.stackHeight) : null;
-    return { ...o, blocksA, blocksB };
+    if (!box) return { ...o, blocksA: null, blocksB: null, boxWarnings: [] as string[] };
+    const c = o.compound;
+    const picked = compoundStackBlocks(teamGaugeBox(box), c.axisA.stackHeight, c.axisB.stackHeight, c.unit);
+    return { ...o, blocksA: picked.blocksA, blocksB: picked.blocksB, boxWarnings: picked.warnings };
   });
   /** What the team's box cannot make in the table or the compound plate (the box once loaded). */
   protected readonly boxWarnings = computed(() => {
     if (!this.ownBox() || !this.chosenBox()) return [];
     const t = this.table();
     if (t?.unreachable) return [unmakeableRows(t.unreachable)];
-    const c = this.compound();
-    if (!c) return [];
-    const unit = c.compound.unit;
-    return [
-      ...(c.blocksA === null ? [unmakeableAxis('A', c.compound.axisA.stackHeight, unit)] : []),
-      ...(c.blocksB === null ? [unmakeableAxis('B', c.compound.axisB.stackHeight, unit)] : []),
-    ];
+    return this.compound()?.boxWarnings ?? [];
   });
   /** Whether the rows' blocks can be said (a standard set, or the team's box once loaded). */
   protected readonly blocksKnown = computed(() => this.hasStandardSet() || this.chosenBox() !== null);
@@ -212,18 +213,26 @@ export default class SineBarPage {
     const o = this.compound();
     return o ? { a: compoundAxisScene(o.compound, 'A', o.blocksA), b: compoundAxisScene(o.compound, 'B', o.blocksB) } : null;
   });
-  /** For a steep angle: the same bar set at the complement, as advised. */
+  /**
+   * For a steep angle: the same bar set at the complement, as advised, with its blocks (from the
+   * team's box once it is read) and the sentence that gives its stack.
+   */
   protected readonly complement = computed(() => {
     const r = this.single();
     const v = this.calc.values();
     if (!r || sineBarMode(v.mode) !== 'angle' || Number(r.angleDeg) <= 45) return null;
     const other = calculateSineBar({ ...toSineBarRequest(boxIdOf(v.set) === null ? v : { ...v, set: '', missing: '' }), angle: r.complementDeg });
-    return other.ok ? other.value : null;
+    if (!other.ok) return null;
+    const c = other.value;
+    if (!this.ownBox()) return { result: c, text: complementStackText(c, v.set ? c.blocks : undefined) };
+    const box = this.chosenBox();
+    const blocks = box ? boxStackBlocks(box, c.stackHeight) : undefined;
+    return { result: { ...c, blocks: blocks ?? null, blockCount: blocks ? blocks.length : null }, text: complementStackText(c, blocks) };
   });
   /** The complement drawing's model. */
   protected readonly complementScene = computed(() => {
     const c = this.complement();
-    return c ? sineBarSceneInput(c) : null;
+    return c ? sineBarSceneInput(c.result) : null;
   });
   /** A name to start the save dialog with. */
   protected readonly suggestedName = computed(() => {

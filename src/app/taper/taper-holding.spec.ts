@@ -37,6 +37,26 @@ describe('taper work-holding', () => {
     expect(r.value.instructions[0]).toContain(`Wring a 0.6526 in stack: ${d.blocks.map((b) => b.label).join(' + ')}`);
   });
 
+  it('should not set up a stack the set cannot make, and offer the nearest it can (sine plate at 0.5°)', () => {
+    // H = 5 · sin 0.5° = 0.04363 → 0.0436 in (REFERENCE.md §2.1, derived): below the 81-piece set's
+    // thinnest block, 0.050 in. The nearest it makes, 0.0500 in, stands the plate at
+    // asin(0.05 / 5) = 0.572967° = 0°34'22.7", +262.7″ from 0.5° (derived).
+    const small = calculateTaper({ unit: 'in', thickness: 1, angle: 0.5, taperLength: 3 });
+    if (!small.ok) throw new Error(small.error);
+    const r = planHolding({ ...TAPER_DEFAULTS, holding: 'sine-plate', plateLength: '5', plateSet: 'inch-81' }, small.value);
+    if (!r.ok) throw new Error(r.error);
+    const text = r.value.instructions.join(' ');
+    expect(text).not.toMatch(/Wring a 0\.0436 in stack|the hinge roll stays where it is/);
+    expect(r.value.instructions[0]).toContain('The Inch 81-piece set cannot make the 0.0436 in stack this angle needs');
+    expect(r.value.instructions[1]).toContain('0.0500 in (0.050) stands the plate at 0°34\'22.7", +262.7″ from the taper angle');
+    expect(r.value.instructions[r.value.instructions.length - 1]).toContain('feed down 0.0262 in');
+    // A sine plate's hinge roll cannot go on a stack (common practice): the sine bar's advice is not given.
+    expect(r.value.warnings.join(' ')).not.toMatch(/raise both rolls/);
+    expect(r.value.warnings).toContain(
+      "The Inch 81-piece set cannot make a 0.0436 in stack, and a sine plate's hinge roll cannot be raised to build the difference on two stacks: change the angle to one the set can make, or hold the part another way (see the set-up).",
+    );
+  });
+
   it('should put a bad plate length on its own control', () => {
     for (const bad of ['abc', '-5', '0', '']) {
       const r = plan({ holding: 'sine-plate', plateLength: bad });

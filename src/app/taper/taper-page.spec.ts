@@ -128,10 +128,28 @@ describe('TaperPage', () => {
     expect(page.fieldErrors()).toContain('Must be greater than 0');
   });
 
+  it('should warn of a knife edge when the end thickness comes out at zero', async () => {
+    await page.open('/taper?thickness=1&angle=45&taperLength=0.99996');
+    // t = 1 − 0.99996 · tan 45° = 0.00004 in, read 0.0000 in (derived).
+    expect(page.resultValue('End thickness')).toBe('0.0000');
+    expect(page.el.textContent).toContain('The taper runs out at the bottom edge of the end, to within 0.0001 in: it leaves a knife edge.');
+  });
+
+  it('should not give the steps of a sine-plate stack the set cannot make', async () => {
+    await page.open('/taper?holding=sine-plate&angle=0.5');
+    // 5 · sin 0.5° = 0.0436 in, thinner than any block of the 81-piece set (derived).
+    const steps = page.el.querySelector('.holding-plan')?.textContent ?? '';
+    expect(steps).toContain('cannot make the 0.0436 in stack');
+    expect(steps).not.toContain('Wring a 0.0436 in stack');
+    expect(steps).not.toContain('the hinge roll stays where it is');
+    expect(page.el.textContent).not.toContain('raise both rolls');
+  });
+
   it('should say so in words when the sizes are too far apart to draw', async () => {
     await page.open('/taper?angle=0.00001');
     // 2.5 · sin 0.00001° rounds to 0.0000 in: the depth dimension has no length to draw.
     expect(page.resultValue('Depth to stop')).toBe('0.0000');
     expect(page.el.textContent).toContain('These sizes are too far apart to draw to scale; the numbers still hold.');
+    expect(page.el.textContent).toContain('The taper is too small to cut at 0.0001 in');
   });
 });
