@@ -14,7 +14,8 @@ import { latheTaperEngineSchema } from '../../shared/calc/lathe-taper';
  * OpenAPI 3.1 paths for the public calculation API (/api/calc). Request bodies are generated from
  * the same zod schemas the routes validate with. Number conventions: every length and angle in a
  * response is a decimal string (lengths at the unit's resolution — 0.0001 in, 0.001 mm, or 0.0005 mm
- * where the gauge set allows — angles in decimal degrees to 0.0001° plus a DMS string); counts
+ * where the gauge set allows — angles in decimal degrees to 0.0001° plus a DMS string; angle blocks
+ * to 0.000001°, as they come in whole arc-seconds); counts
  * (count, blockCount, pass) are JSON numbers; `exact` objects carry 30 significant digits.
  * In requests, numbers may be JSON numbers or decimal strings, angles decimal degrees or DMS text.
  */
@@ -59,7 +60,7 @@ function object(properties: Record<string, JsonSchema>, required = Object.keys(p
   return { type: 'object', properties, required };
 }
 
-const stackAnswer = object({ blocks: strings, count: { type: 'integer' }, total: decimalString });
+const stackAnswer = object({ blocks: strings, labels: { ...strings, description: 'The blocks as said to a person: wear blocks marked ("0.050 wear")' }, count: { type: 'integer' }, total: decimalString });
 
 const responses = {
   taper: object({
@@ -134,6 +135,7 @@ const responses = {
     resolution: decimalString,
     wearBlock: nullableDecimal,
     blocks: { ...strings, description: 'Block sizes in wringing order, largest first; wear blocks at both ends' },
+    labels: { ...strings, description: 'The same blocks as said to a person: wear blocks marked ("0.050 wear")' },
     count: { type: 'integer' },
     total: decimalString,
     lastDigit: { oneOf: [stackAnswer, { type: 'null' }], description: 'The textbook last-digit stack (teaching answer)' },

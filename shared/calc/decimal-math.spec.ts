@@ -69,5 +69,15 @@ describe('decimal-math', () => {
       expect(fixedText(new Dec('-0.00001'), 4)).toBe('0.0000');
       expect(fixedText(new Dec('-0.5'), 1)).toBe('-0.5');
     });
+
+    it('should round an exact half up though the trig leaves it a hair below', () => {
+      // 0.5625 · (1 − cos 60°) is exactly 0.28125 (cos 60° = 1/2, derived); at 40 digits cos 60°
+      // comes out as 0.4999…9 or 0.5000…1, so the product sits a hair either side of the half.
+      const product = new Dec('0.5625').mul(new Dec(1).minus(cosDeg(new Dec(60))));
+      expect(fixedText(product, 4)).toBe('0.2813');
+      expect(fixedText(new Dec('0.281249999999999999999999999999999999'), 4)).toBe('0.2813');
+      // A value truly below the half by more than noise still rounds down.
+      expect(fixedText(new Dec('0.2812499'), 4)).toBe('0.2812');
+    });
   });
 });

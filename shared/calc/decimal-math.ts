@@ -196,8 +196,12 @@ export function exactText(value: Dec): string {
   return value.toSignificantDigits(EXACT_DIGITS).toString();
 }
 
-/** Fixed-point text with the given number of decimals (half-up, no "-0"). */
+/**
+ * Fixed-point text with the given number of decimals (half-up, no "-0"). The value is first taken
+ * to the 30 significant digits of an exact value, so the trig's noise in the 40th digit cannot
+ * turn an exact half (0.28125 from cos 60° = 0.4999…9) into a value that rounds down.
+ */
 export function fixedText(value: Dec, decimals: number): string {
-  const text = value.toFixed(decimals);
+  const text = value.toSignificantDigits(EXACT_DIGITS).toFixed(decimals);
   return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
 }

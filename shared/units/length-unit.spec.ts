@@ -14,6 +14,8 @@ describe('length-unit', () => {
     expect(roundToStep(new Dec('17.36474'), new Dec('0.0005')).toString()).toBe('17.3645');
     expect(formatLength(new Dec('17.36474'), 'mm', new Dec('0.0005'))).toBe('17.3645');
     expect(roundToStep(new Dec('0.00005'), new Dec('0.0001')).toString()).toBe('0.0001');
+    // A half step a hair low from 40-digit trig noise still rounds up (derived).
+    expect(roundToStep(new Dec('0.000049999999999999999999999999999999999'), new Dec('0.0001')).toString()).toBe('0.0001');
   });
 
   it('should convert with 25.4 mm per inch exactly', () => {

@@ -1,4 +1,4 @@
-import { Dec, fixedText } from '../calc/decimal-math';
+import { Dec, EXACT_DIGITS, fixedText } from '../calc/decimal-math';
 
 /** The two length units a set-up can use. */
 export type LengthUnit = 'in' | 'mm';
@@ -24,7 +24,8 @@ export function decimalsOf(step: Dec): number {
 
 /** Rounds a length to the nearest multiple of `step` (half away from zero). */
 export function roundToStep(value: Dec, step: Dec): Dec {
-  return value.div(step).toDecimalPlaces(0, Dec.ROUND_HALF_UP).mul(step);
+  // At an exact value's 30 digits first, as `fixedText` does: an exact half step rounds up.
+  return value.toSignificantDigits(EXACT_DIGITS).div(step).toDecimalPlaces(0, Dec.ROUND_HALF_UP).mul(step);
 }
 
 /** Formats a length at a unit's resolution, or at a given step's decimals. */
