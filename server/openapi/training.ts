@@ -52,7 +52,9 @@ export const trainingPaths = {
         properties: {
           title: { type: 'string', maxLength: 160 }, instructions: { type: 'string' },
           items: { type: 'array', items: { type: 'object', properties: { type: { enum: types }, count: { type: 'integer', minimum: 1, maximum: 10 } } }, description: 'Each type once; 30 problems at most' },
-          dueAt: { type: 'string', format: 'date-time' }, assigneeIds: { type: 'array', items: { type: 'integer' }, description: 'Active apprentices of the team' },
+          dueAt: { type: 'string', format: 'date-time', description: 'From now to five years ahead' },
+          timeZone: { type: 'string', maxLength: 64, description: "The lead's IANA time zone (e.g. America/Chicago), checked against Intl; the e-mail gives the due time on that clock. Default UTC." },
+          assigneeIds: { type: 'array', items: { type: 'integer' }, description: 'Active apprentices of the team' },
         },
       }),
       responses: { 201: { description: 'Created; mailSent counts the notices the SMTP server accepted', ...json(assignment) }, 400: errorResponse('Invalid fields'), 403: errorResponse('Not a lead or admin') },
@@ -60,6 +62,21 @@ export const trainingPaths = {
   },
   '/api/training/assignments/{id}': {
     get: { summary: 'One assignment (apprentices: only if assigned, with only their own work)', parameters: id, responses: { 200: { description: 'Assignment', ...json(assignment) }, 404: errorResponse('Unknown, another team\'s, or not assigned to you') } },
+    patch: {
+      summary: 'Move the due date (leads and admins of the team); apprentices who have not finished get an e-mail with the new due time',
+      parameters: [...id, ...csrf],
+      requestBody: json({
+        type: 'object', required: ['dueAt'],
+        properties: {
+          dueAt: { type: 'string', format: 'date-time', description: 'From now to five years ahead' },
+          timeZone: { type: 'string', maxLength: 64, description: "The lead's IANA time zone for the e-mail; default UTC" },
+        },
+      }),
+      responses: {
+        200: { description: 'The assignment; mailSent counts the notices the SMTP server accepted', ...json(assignment) },
+        400: errorResponse('Invalid due date or time zone'), 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown or another team\'s'),
+      },
+    },
     delete: { summary: 'Delete an assignment and its work (leads and admins)', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown') } },
   },
   '/api/training/assignments/{id}/work': {

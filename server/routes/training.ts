@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
-import { assignmentCreateBody, attemptBody, MAX_ATTEMPTS, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
+import { assignmentCreateBody, assignmentDueBody, attemptBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
 import { checkAnswer } from '../../shared/training/exercise';
 import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
 import { generateExercise } from '../../shared/training/generators';
@@ -20,20 +20,34 @@ const workInclude = [
   { model: TrainingProblem, as: 'problems', include: [{ model: TrainingAttempt, as: 'attempts' }] },
 ];
 
-/** The assignment of the caller's team, or 404. */
-async function teamAssignment(id: number, user: User): Promise<Assignment> {
+/** The assignment of the caller's team, or 404 (with `missing` as the message when given). */
+async function teamAssignment(id: number, user: User, missing = 'No assignment with that id in your team.'): Promise<Assignment> {
   const assignment = await Assignment.findOne({ where: { id, teamId: user.teamId }, include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }] });
-  if (!assignment) throw new HttpError(404, 'No assignment with that id in your team.');
+  if (!assignment) throw new HttpError(404, missing);
   return assignment;
 }
+
+/** What an apprentice reads when their assignment is gone (the lead deleted it) or never was. */
+const ASSIGNMENT_GONE = 'This assignment no longer exists: your lead may have withdrawn it. Your other work is under My assignments.';
 
 /** The caller's own copy of an assignment (with problems and attempts), or 404. */
 async function ownWork(req: Request): Promise<{ assignment: Assignment; work: AssignmentWork }> {
   const user = currentUser(req);
-  const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), user);
+  const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), user, ASSIGNMENT_GONE);
   const work = await AssignmentWork.findOne({ where: { assignmentId: assignment.id, userId: user.id }, include: workInclude });
-  if (!work) throw new HttpError(404, 'No assignment with that id for you.');
+  if (!work) throw new HttpError(404, 'This assignment was not given to you. Your own work is under My assignments.');
   return { assignment, work };
+}
+
+/** Unfinished work (not started, in progress, overdue) comes before finished work. */
+const FINISHED = new Set(['done', 'late']);
+
+/** An apprentice's list: open work first, soonest due first; then finished work, latest due first. */
+function ownListOrder(a: AssignmentDto, b: AssignmentDto): number {
+  const finishedA = FINISHED.has(a.work[0]?.status ?? '');
+  const finishedB = FINISHED.has(b.work[0]?.status ?? '');
+  if (finishedA !== finishedB) return finishedA ? 1 : -1;
+  return finishedA ? b.dueAt.localeCompare(a.dueAt) : a.dueAt.localeCompare(b.dueAt);
 }
 
 function positionParam(raw: string | string[] | undefined): number {
@@ -66,7 +80,7 @@ export function createTrainingRouter(): Router {
       where: { userId: user.id },
       include: [...workInclude, { model: Assignment, as: 'assignment', where: { teamId: user.teamId }, include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }] }],
     });
-    const list = own.map((w) => assignmentDto(w.assignment!, [w], now)).sort((a, b) => a.dueAt.localeCompare(b.dueAt));
+    const list = own.map((w) => assignmentDto(w.assignment!, [w], now)).sort(ownListOrder);
     res.json({ assignments: list });
   });
 
@@ -91,7 +105,8 @@ export function createTrainingRouter(): Router {
       return created;
     });
     const total = body.items.reduce((n, i) => n + i.count, 0);
-    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, assignment.instructions))));
+    const timeZone = body.timeZone ?? 'UTC';
+    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, assignment.instructions, { timeZone }))));
     const fresh = await teamAssignment(assignment.id, lead);
     const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
     res.status(201).location(`/api/training/assignments/${assignment.id}`).json({ ...assignmentDto(fresh, work), mailSent: sent.filter(Boolean).length });
@@ -104,6 +119,27 @@ export function createTrainingRouter(): Router {
     const work = await AssignmentWork.findAll({ where, include: workInclude });
     if (!canAssign(user) && work.length === 0) throw new HttpError(404, 'No assignment with that id for you.');
     res.json(assignmentDto(assignment, work));
+  });
+
+  // A lead or admin of the team moves the due date. Apprentices who have not finished get a notice
+  // (the due time on the lead's clock); those who have finished are not bothered.
+  router.patch('/assignments/:id', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), lead);
+    const body = parseBody(assignmentDueBody, req.body);
+    // Kept to the second, as the database keeps it: the same minute sent again is no move.
+    const dueAt = new Date(Math.floor(Date.parse(body.dueAt) / 1000) * 1000);
+    const moved = dueAt.getTime() !== assignment.dueAt.getTime();
+    if (moved) await assignment.update({ dueAt });
+    const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
+    const open = moved ? work.filter((w) => !w.completedAt).map((w) => w.userId) : [];
+    const notify = open.length ? await User.findAll({ where: { id: { [Op.in]: open }, teamId: lead.teamId, active: true } }) : [];
+    const total = assignment.items.reduce((n, i) => n + i.count, 0);
+    const timeZone = body.timeZone ?? 'UTC';
+    const sent = await Promise.all(
+      notify.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, '', { timeZone, dueMoved: true }))),
+    );
+    res.json({ ...assignmentDto(assignment, work), mailSent: sent.filter(Boolean).length });
   });
 
   router.delete('/assignments/:id', leadOnly, async (req, res) => {

@@ -3,6 +3,7 @@
  * Each has a plain-text part and a simple HTML part with the same words and link.
  */
 import type { Role } from '../../shared/api/auth';
+import { timeInZoneText } from '../../shared/training/time-zone';
 import { Setup, Team, User } from '../models';
 import { appLink, escapeHtml, sendMail, type OutgoingMail } from './mailer';
 
@@ -57,14 +58,36 @@ export function resetMail(to: string, name: string, token: string, expiresAt: Da
   });
 }
 
-/** The notice of a new assignment to one apprentice. */
-export function assignmentMail(to: string, name: string, title: string, problems: number, dueAt: Date, lead: string, assignmentId: number, instructions = ''): OutgoingMail {
+/**
+ * The notice of a new assignment to one apprentice, or (`dueMoved`) of its due date moved. The due
+ * time is written on the clock of `timeZone` (the lead's browser's, checked on the server), with
+ * the zone named: "Thu 3 Dec 2026, 23:00 (America/Chicago)".
+ */
+export function assignmentMail(
+  to: string,
+  name: string,
+  title: string,
+  problems: number,
+  dueAt: Date,
+  lead: string,
+  assignmentId: number,
+  instructions = '',
+  options: { timeZone?: string; dueMoved?: boolean } = {},
+): OutgoingMail {
+  const due = timeInZoneText(dueAt, options.timeZone ?? 'UTC');
+  if (options.dueMoved) {
+    return compose(to, `New due date for training assignment: ${title}`, {
+      greeting: `Hello ${name},`,
+      paragraphs: [`${lead} has moved the due date of your training assignment "${title}".`, `It is now due ${due}.`],
+      link: { label: 'Open the assignment', url: appLink(`/training/assignments/${assignmentId}`) },
+    });
+  }
   return compose(to, `New training assignment: ${title}`, {
     greeting: `Hello ${name},`,
     paragraphs: [
       `${lead} has given you a training assignment, "${title}", with ${problems} problem${problems === 1 ? '' : 's'} of your own.`,
       ...(instructions.trim() ? [`${lead}'s instructions:\n${instructions.trim()}`] : []),
-      `It is due ${dueAt.toUTCString()}.`,
+      `It is due ${due}.`,
     ],
     link: { label: 'Open the assignment', url: appLink(`/training/assignments/${assignmentId}`) },
   });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { EXERCISE_TYPES, type ExerciseType } from '../training/exercise-types';
+import { canonicalTimeZone } from '../training/time-zone';
 import type { Role } from './auth';
 
 export { EXERCISE_TYPES, type ExerciseType };
@@ -10,6 +11,18 @@ export const MAX_PER_TYPE = 10;
 export const MAX_PROBLEMS = 30;
 /** Answers an apprentice may give to one assignment problem before it closes. */
 export const MAX_ATTEMPTS = 3;
+/**
+ * How far ahead a due date may be set, in years: far enough for any course plan, near enough to
+ * catch a slip of the year ("9999", "20260").
+ */
+export const MAX_DUE_YEARS = 5;
+
+/** The latest due date allowed at `now`: the same moment MAX_DUE_YEARS on. */
+export function latestDue(now = new Date()): Date {
+  const latest = new Date(now.getTime());
+  latest.setUTCFullYear(latest.getUTCFullYear() + MAX_DUE_YEARS);
+  return latest;
+}
 
 /** Where an apprentice's work on one assignment stands. */
 export type WorkStatus = 'not-started' | 'in-progress' | 'done' | 'late' | 'missing';
@@ -136,6 +149,29 @@ const itemSchema = z.object({
     .max(MAX_PER_TYPE, `Count must be at most ${MAX_PER_TYPE}.`),
 });
 
+/** A due date: a date and time with its offset (the browser sends UTC), from now to a year ahead. */
+const dueAtField = z.iso
+  .datetime({ offset: true, error: 'Pick a due date and time.' })
+  .refine((text) => Date.parse(text) > Date.now(), 'The due date has passed: choose a time from now on.')
+  .refine((text) => Date.parse(text) <= latestDue().getTime(), `That due date is more than ${MAX_DUE_YEARS} years away: check the year.`);
+
+/**
+ * The lead's time zone as their browser names it (IANA, e.g. "America/Chicago"), checked against
+ * the server's Intl database. The e-mail gives the due time on that clock; UTC when none is sent.
+ */
+const timeZoneField = z
+  .string({ error: 'The time zone must be a name such as America/Chicago.' })
+  .max(64, 'The time zone must be a name such as America/Chicago.')
+  .transform((name, ctx) => {
+    const zone = canonicalTimeZone(name);
+    if (zone === null) {
+      ctx.addIssue({ code: 'custom', message: 'That is not a time zone we know: use a name such as America/Chicago, or leave it out for UTC.' });
+      return z.NEVER;
+    }
+    return zone;
+  })
+  .optional();
+
 /** POST /api/training/assignments */
 export const assignmentCreateBody = z.object({
   title: z.string({ error: 'Give the assignment a title.' }).trim().min(1, 'Give the assignment a title.').max(160, 'Keep the title under 160 characters.'),
@@ -146,15 +182,21 @@ export const assignmentCreateBody = z.object({
     .max(EXERCISE_TYPES.length, 'List each exercise type once.')
     .refine((items) => new Set(items.map((i) => i.type)).size === items.length, 'List each exercise type once.')
     .refine((items) => items.reduce((n, i) => n + i.count, 0) <= MAX_PROBLEMS, `An assignment holds at most ${MAX_PROBLEMS} problems.`),
-  dueAt: z.iso
-    .datetime({ offset: true, error: 'Give the due date as an ISO date-time, e.g. 2026-12-20T16:00:00Z.' })
-    .refine((text) => Date.parse(text) > Date.now(), 'The due date has passed: choose a time from now on.'),
+  dueAt: dueAtField,
+  timeZone: timeZoneField,
   assigneeIds: z
     .array(z.number().int().positive(), { error: 'Choose at least one apprentice.' })
     .min(1, 'Choose at least one apprentice.')
     .max(200, 'Choose at most 200 apprentices.'),
 });
-export type AssignmentCreateBody = z.infer<typeof assignmentCreateBody>;
+export type AssignmentCreateBody = z.input<typeof assignmentCreateBody>;
+
+/** PATCH /api/training/assignments/:id: a new due date (leads and admins of the team). */
+export const assignmentDueBody = z.object({
+  dueAt: dueAtField,
+  timeZone: timeZoneField,
+});
+export type AssignmentDueBody = z.input<typeof assignmentDueBody>;
 
 /** POST /api/training/assignments/:id/problems/:position/attempts */
 export const attemptBody = z.object({

@@ -51,7 +51,14 @@ const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
 
 /** The units an answer may be typed with, by the problem's unit. */
 const UNIT_NAMES: Readonly<Record<string, readonly string[]>> = { in: ['in', 'inch', 'inches', '"'], mm: ['mm'], blocks: ['block', 'blocks'] };
-const TYPED_UNIT = /^(.*?)\s*(in|inch(?:es)?|mm|blocks?|")$/i;
+/** A unit typed after the number, with the abbreviation's period if any ("0.2615 in."). */
+const TYPED_UNIT = /^(.*?)\s*(in|inch(?:es)?|mm|blocks?|")\.?$/i;
+/** What to say when an answer comes in another unit, by the problem's unit. */
+const ANSWER_IN: Readonly<Record<string, string>> = {
+  in: 'Answer in inches (in), or as a plain number.',
+  mm: 'Answer in millimetres (mm), or as a plain number.',
+  blocks: 'Answer with the number of blocks, e.g. 4.',
+};
 
 /**
  * Reads typed text as a number of the answer's kind (angles also as DMS, e.g. 7°30'). A unit typed
@@ -59,7 +66,8 @@ const TYPED_UNIT = /^(.*?)\s*(in|inch(?:es)?|mm|blocks?|")$/i;
  * problem in inches, and costs no attempt. `number` is the answer without its unit.
  */
 export function readAnswer(kind: AnswerKind, text: string, unit = ''): { ok: true; value: Dec; number: string } | { ok: false; error: string } {
-  const trimmed = text.trim().replace(/,/g, '.');
+  // A comma as the decimal mark, and the typographic minus (−) as a plain one.
+  const trimmed = text.trim().replace(/,/g, '.').replace(/\u2212/g, '-');
   if (trimmed === '') return { ok: false, error: 'Type your answer.' };
   if (kind === 'angle') {
     const parsed = parseAngle(trimmed);
@@ -68,11 +76,18 @@ export function readAnswer(kind: AnswerKind, text: string, unit = ''): { ok: tru
   const typed = TYPED_UNIT.exec(trimmed);
   const number = typed && typed[1] !== '' ? typed[1]! : trimmed;
   if (typed && typed[1] !== '' && unit !== '' && !(UNIT_NAMES[unit] ?? [unit]).includes(typed[2]!.toLowerCase())) {
-    return { ok: false, error: `This problem is in ${unit}: type the answer in ${unit}, or as a plain number.` };
+    return { ok: false, error: ANSWER_IN[unit] ?? `Answer in ${unit}, or as a plain number.` };
   }
   if (!DECIMAL.test(number)) return { ok: false, error: `Type a number such as ${kind === 'count' ? '4' : '0.2615'}.` };
   return { ok: true, value: new Dec(number), number };
 }
+
+/** The note for a minus sign on an answer that is never negative (no try is spent on it). */
+const NEVER_NEGATIVE: Readonly<Record<AnswerKind, string>> = {
+  length: 'A length is never negative: type it without the minus sign.',
+  count: 'A count is never negative: type it without the minus sign.',
+  angle: 'This angle is never negative: type it without the minus sign.',
+};
 
 /**
  * Checks an answer: correct when it lies within the stated tolerance of the exact answer.
@@ -85,10 +100,10 @@ export function checkAnswer(exercise: Exercise, text: string): CheckResult {
   const exact = new Dec(exercise.exact);
   const difference = read.value.minus(exact).abs();
   const correct = difference.lte(new Dec(exercise.tolerance));
+  // Slips a patient teacher points out rather than marks: a minus sign on a size or an angle whose
+  // answer cannot be negative, or the right answer rounded too soon.
+  if (!correct && read.value.isNegative() && !exact.isNegative()) return { ok: false, error: NEVER_NEGATIVE[exercise.answerKind] };
   if (!correct && exercise.answerKind !== 'angle') {
-    // Slips a patient teacher points out rather than marks: a minus sign on a size, or the right
-    // answer rounded too soon.
-    if (read.value.isNegative() && !exact.isNegative()) return { ok: false, error: `A ${exercise.answerKind === 'count' ? 'count' : 'length'} is never negative: type it without the minus sign.` };
     const typedPlaces = (read.number.split('.')[1] ?? '').length;
     const answerPlaces = (exercise.answer.split('.')[1] ?? '').length;
     if (exercise.answerKind === 'length' && typedPlaces >= 1 && typedPlaces < answerPlaces && exact.toDecimalPlaces(typedPlaces).eq(read.value)) {

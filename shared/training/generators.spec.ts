@@ -208,7 +208,8 @@ describe('readAnswer', () => {
   });
 
   it('should take a unit only when it is the problem\'s own, and give the number without it', () => {
-    expect(readAnswer('length', '0.2993 mm', 'in')).toEqual({ ok: false, error: 'This problem is in in: type the answer in in, or as a plain number.' });
+    expect(readAnswer('length', '0.2993 mm', 'in')).toEqual({ ok: false, error: 'Answer in inches (in), or as a plain number.' });
+    expect(readAnswer('length', '0.2993 in', 'mm')).toEqual({ ok: false, error: 'Answer in millimetres (mm), or as a plain number.' });
     expect(readAnswer('length', '21.9048 in', 'mm')).toMatchObject({ ok: false });
     expect(readAnswer('count', '5 mm', 'blocks')).toMatchObject({ ok: false });
     expect(readAnswer('length', '0.2993 in', 'in')).toMatchObject({ ok: true, number: '0.2993' });
@@ -219,10 +220,17 @@ describe('readAnswer', () => {
     expect(readAnswer('count', '1 block', 'blocks')).toMatchObject({ ok: true, number: '1' });
   });
 
+  it('should read the shop abbreviation with its period ("0.2615 in.") and a typographic minus', () => {
+    expect(readAnswer('length', '0.2615 in.', 'in')).toMatchObject({ ok: true, number: '0.2615' });
+    expect(readAnswer('length', '6.642 mm.', 'mm')).toMatchObject({ ok: true, number: '6.642' });
+    expect(readAnswer('length', '0.2615 mm.', 'in')).toEqual({ ok: false, error: 'Answer in inches (in), or as a plain number.' });
+    expect(readAnswer('length', '\u22120.65390', 'in')).toMatchObject({ ok: true, number: '-0.65390' });
+  });
+
   it('should never count an answer in the wrong unit as right, nor spend a try on it', () => {
     const e = generateExercise('sine-stack', SEEDS[3]!);
     const other = e.unit === 'in' ? 'mm' : 'in';
-    expect(checkAnswer(e, `${e.exact} ${other}`)).toMatchObject({ ok: false, error: expect.stringContaining(`This problem is in ${e.unit}`) });
+    expect(checkAnswer(e, `${e.exact} ${other}`)).toMatchObject({ ok: false, error: expect.stringContaining(`(${e.unit}), or as a plain number`) });
     expect(checkAnswer(e, `${e.answer} ${e.unit}`)).toMatchObject({ ok: true, correct: true, given: e.answer });
   });
 
@@ -237,6 +245,19 @@ describe('readAnswer', () => {
     expect(checkAnswer(e, `-${e.answer}`)).toEqual({ ok: false, error: 'A length is never negative: type it without the minus sign.' });
     // A plainly wrong answer is still wrong.
     expect(checkAnswer(e, String(Number(e.exact) + 1))).toMatchObject({ ok: true, correct: false });
+  });
+
+  it('should point out a minus sign on an angle as it does on a length, without spending a try', () => {
+    for (const type of ['taper-angle', 'sine-angle', 'lathe-half-angle'] as const) {
+      const e = generateExercise(type, SEEDS[4]!);
+      const note = { ok: false, error: 'This angle is never negative: type it without the minus sign.' };
+      expect(checkAnswer(e, `-${e.exact}`)).toEqual(note);
+      expect(checkAnswer(e, `\u2212${Number(e.exact).toFixed(2)}`)).toEqual(note);
+      expect(checkAnswer(e, '-35')).toEqual(note);
+      // The right angle without the sign is right; a wrong one is still wrong.
+      expect(checkAnswer(e, e.exact)).toMatchObject({ ok: true, correct: true });
+      expect(checkAnswer(e, String(Number(e.exact) + 1))).toMatchObject({ ok: true, correct: false });
+    }
   });
 
   it('should refuse empty and non-numeric text with a message', () => {
@@ -271,5 +292,61 @@ describe('worked steps an apprentice checks by hand', () => {
   it('should not go round in a circle from a given taper per foot', () => {
     const e = generateExercise('lathe-half-angle', SEEDS[2]!);
     expect(e.steps.map((st) => st.formula)).not.toContain('TPF = 12 · k');
+  });
+});
+
+/**
+ * Evaluates a worked step's substitution ("h = 1.5000 · 0.052381 / 1.500914", "d = 25.000 · tan 6°00'00\"",
+ * "α = atan(0.5700 / 1.0000)") in double precision, with the numbers exactly as printed: what an
+ * apprentice does on a calculator to check the line (derived). Null for a line that is no sum (a count).
+ */
+function redo(substituted: string): number | null {
+  let e = substituted.includes('=') ? substituted.slice(substituted.indexOf('=') + 1) : substituted;
+  if (/count of|⌈/.test(e)) return null;
+  e = e.replace(/(\d+)°(\d+)'(\d+(?:\.\d+)?)"|(\d+(?:\.\d+)?)°/g, (_m, d, m, sec, plain) => `(${plain ?? num(d) + num(m) / 60 + num(sec) / 3600})`);
+  e = e.replace(/·/g, '*').replace(/−/g, '-').replace(/√\(/g, 'Math.sqrt(').replace(/²/g, '**2');
+  e = e.replace(/\b(sin|cos|tan) \(([^)]*)\)/g, (_m, f, x) => `Math.${f}((${x})*D)`);
+  e = e.replace(/\bcot\(([^)]*\)[^)]*)\)/g, '(1/Math.tan(($1)*D))');
+  e = e.replace(/\batan\(/g, '(1/D)*Math.atan(').replace(/\basin\(/g, '(1/D)*Math.asin(');
+  if (!/^[\d\s.+\-*/()MathsqrcoinD,]*$/.test(e)) throw new Error(`cannot redo "${substituted}"`);
+  return new Function('D', `return ${e};`)(Math.PI / 180) as number;
+}
+
+describe('worked solutions checked line by line on a calculator', () => {
+  const seeds = Array.from({ length: 300 }, (_, i) => ((i + 1) * 2_246_822_519) >>> 0);
+
+  it.each(EXERCISE_TYPES.map((t) => [t]))('%s: every line, redone from the numbers it shows, gives its printed value', (type) => {
+    const off: string[] = [];
+    for (const seed of seeds) {
+      for (const st of generateExercise(type, seed).steps) {
+        const value = redo(st.substituted);
+        if (value === null) continue;
+        const places = (st.value.split('.')[1] ?? '').length;
+        // Within half a unit of the last printed place (a value exactly half way rounds up).
+        if (Math.abs(value - num(st.value)) > 0.5 * 10 ** -places + 1e-12) off.push(`${seed}: ${st.substituted} = ${st.value} (calculator ${value})`);
+      }
+    }
+    expect(off).toEqual([]);
+  });
+
+  it.each(EXERCISE_TYPES.map((t) => [t]))('%s: the last line gives the answer as it is graded and printed', (type) => {
+    for (const seed of seeds.slice(0, 60)) {
+      const e = generateExercise(type, seed);
+      const last = e.steps[e.steps.length - 1]!;
+      expect(e.answer.startsWith(last.value)).toBe(true);
+    }
+  });
+
+  it('should carry the taper steps before the answer to two more places than the answer', () => {
+    // The depth to stop of the report: 50.000 mm at 3°, where a rounded 2.620 / 50.069 gave 2.6164 on a calculator.
+    const e = buildExercise('taper-depth', { unit: 'mm', thickness: '20', taperLength: '50', angle: '3' });
+    expect(e.answer).toBe('2.617');
+    expect(e.steps.map((st) => st.label.split(' (')[0])).toEqual(['Stock removed at the end', 'Face length', 'Depth to stop']);
+    for (const st of e.steps.slice(0, -1)) expect(st.value.split('.')[1]!.length).toBeGreaterThanOrEqual(5);
+    expect(e.steps[2]!.substituted).toBe(`h = 50.000 · ${e.steps[0]!.value} / ${e.steps[1]!.value}`);
+    expect(redo(e.steps[2]!.substituted)!.toFixed(3)).toBe('2.617');
+    const t = buildExercise('taper-end-thickness', { unit: 'in', thickness: '1.000', taperLength: '1.500', angle: '10' });
+    expect(t.steps.map((st) => st.label)).toEqual(['Stock removed at the end', 'End thickness']);
+    expect(t.steps[0]!.value).toMatch(/^0\.\d{6}$/);
   });
 });

@@ -5,13 +5,14 @@
  * the browser and on the server; `buildExercise` also takes hand-picked values (published examples).
  */
 import { formatDms } from '../angle/angle-text';
-import { Dec, tanDeg } from '../calc/decimal-math';
+import { Dec, sqrt, tanDeg } from '../calc/decimal-math';
 import { calculateGaugeStack, GAUGE_BLOCK_CAUTIONS } from '../calc/gauge-stack';
 import { calculateLatheTaper, LATHE_TAPER_CAUTIONS } from '../calc/lathe-taper';
 import { calculateOverPins } from '../calc/over-pins';
 import { calculateSineBar, SINE_BAR_CAUTIONS } from '../calc/sine-bar';
 import { calculateTaper, MILLING_CAUTIONS } from '../calc/taper';
-import type { LengthUnit } from '../units/length-unit';
+import type { Step } from '../calc/step';
+import { UNIT_DECIMALS, type LengthUnit } from '../units/length-unit';
 import { engineValue, stepsUpTo } from './engine';
 import type { Exercise } from './exercise';
 import { EXERCISE_INFO, isExerciseType, type ExerciseType } from './exercise-types';
@@ -80,6 +81,45 @@ function taperGivens(i: ExerciseInputs['taper-depth']) {
   ];
 }
 
+/** Places beyond the answer's that a worked solution carries in its intermediate values. */
+export const EXTRA_PLACES = 2;
+
+/**
+ * The milled-taper derivation as an apprentice redoes it on a calculator, line by line: the
+ * engine's labels and formulas, each intermediate value to two more places than the answer (more
+ * only in the rare case where the last line would otherwise round to another last digit), every
+ * line worked from the numbers printed before it, and the last line giving the answer as graded.
+ * The depth to stop goes d → F → h = L · d / F; the end thickness d → t = T − d.
+ */
+function taperSteps(goal: 'depth' | 'end', i: ExerciseInputs['taper-depth'], engine: readonly Step[], exactRemoved: string, answer: string): Step[] {
+  const places = UNIT_DECIMALS[i.unit];
+  const fixed = (x: Dec, n = places) => x.toFixed(n);
+  const L = new Dec(i.taperLength);
+  const T = new Dec(i.thickness);
+  const byLabel = (label: string): Step => {
+    const found = engine.find((st) => st.label.startsWith(label));
+    if (!found) throw new Error(`Training taper-${goal}: the engine's derivation has no step "${label}"`);
+    return found;
+  };
+  for (let extra = EXTRA_PLACES; extra <= EXTRA_PLACES + 6; extra++) {
+    const q = places + extra;
+    const d = new Dec(exactRemoved).toDecimalPlaces(q);
+    const removed = { ...byLabel('Stock removed at the end'), substituted: `d = ${fixed(L)} · tan ${formatDms(new Dec(i.angle))}`, value: fixed(d, q) };
+    if (goal === 'end') {
+      if (fixed(T.minus(d)) !== answer) continue;
+      return [removed, { ...byLabel('End thickness'), substituted: `t = ${fixed(T)} − ${fixed(d, q)}`, value: answer }];
+    }
+    const F = sqrt(L.mul(L).plus(d.mul(d))).toDecimalPlaces(q);
+    if (fixed(L.mul(d).div(F)) !== answer) continue;
+    return [
+      removed,
+      { ...byLabel('Face length'), substituted: `F = √(${fixed(L)}² + ${fixed(d, q)}²)`, value: fixed(F, q) },
+      { ...byLabel('Depth to stop'), substituted: `h = ${fixed(L)} · ${fixed(d, q)} / ${fixed(F, q)}`, value: answer },
+    ];
+  }
+  throw new Error(`Training taper-${goal}: no worked solution checks out to ${answer}`);
+}
+
 const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
   'taper-depth': {
     draw: drawTaper,
@@ -94,7 +134,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
         answer: r.depthToStop,
         exact: r.exact.depthToStop,
         tolerance: LENGTH_TOLERANCE[i.unit],
-        steps: stepsUpTo('taper-depth', r.steps, 'Depth to stop'),
+        steps: taperSteps('depth', i, r.steps, r.exact.removedAtEnd, r.depthToStop),
         cautions: [...MILLING_CAUTIONS],
       };
     },
@@ -112,7 +152,7 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
         answer: r.endThickness ?? '',
         exact: r.exact.endThickness ?? '',
         tolerance: LENGTH_TOLERANCE[i.unit],
-        steps: stepsUpTo('taper-end-thickness', r.steps, 'End thickness'),
+        steps: taperSteps('end', i, r.steps, r.exact.removedAtEnd, r.endThickness ?? ''),
         cautions: [],
       };
     },
@@ -305,11 +345,21 @@ const RECIPES: { readonly [K in ExerciseType]: Recipe<K> } = {
   },
 };
 
+/**
+ * The steps with the last one giving a length answer as it is graded and shown ("= 1.8095 in"
+ * rather than the engine's "= 1.8094788 in"): one format for the answer wherever it is printed.
+ */
+function answerLast(draft: Draft): Step[] {
+  const last = draft.steps[draft.steps.length - 1];
+  if (!last || draft.answerKind !== 'length' || last.value === draft.answer) return draft.steps;
+  return [...draft.steps.slice(0, -1), { ...last, value: draft.answer }];
+}
+
 /** The problem of `type` built from given values (e.g. a published worked example); `seed` is recorded as given. */
 export function buildExercise<K extends ExerciseType>(type: K, inputs: ExerciseInputs[K], seed = 0): Exercise {
   if (!isExerciseType(type)) throw new Error(`Training: unknown exercise type "${String(type)}"`);
-  const recipe = RECIPES[type] as Recipe<K>;
-  return { type, seed: seed >>> 0, title: EXERCISE_INFO[type].title, ...recipe.build(inputs) };
+  const draft = (RECIPES[type] as Recipe<K>).build(inputs);
+  return { type, seed: seed >>> 0, title: EXERCISE_INFO[type].title, ...draft, steps: answerLast(draft) };
 }
 
 /** The values the problem of `type` with `seed` is built from. */

@@ -2,11 +2,12 @@ import bcrypt from 'bcrypt';
 import request from 'supertest';
 import { Assignment, AssignmentWork, TrainingAttempt, TrainingProblem } from '../../server/models';
 import { generateExercise } from '../../shared/training/generators';
+import { timeInZoneText } from '../../shared/training/time-zone';
 import { MAX_ATTEMPTS } from '../../shared/api/training';
 import { User } from '../../server/models';
 import { BCRYPT_COST } from '../../server/routes/auth';
 import { client, makeTeam, openApp, PASSWORD, type Client, type Members, type TestApp } from '../support/api';
-import { waitForMail } from '../support/mailbox';
+import { mailsTo, waitForMail } from '../support/mailbox';
 
 jest.setTimeout(30_000);
 
@@ -70,6 +71,37 @@ describe('/api/training', () => {
       // A due date already past would make the work "missing" from the start.
       const past = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { dueAt: '2020-01-01T10:00:00Z' })).expect(400);
       expect(past.body.fields).toEqual({ dueAt: 'The due date has passed: choose a time from now on.' });
+    });
+
+    it('asks for the due date in shop words, refuses one years ahead, and checks the time zone', async () => {
+      for (const dueAt of ['', 'tomorrow', '202604-12-03T23:00', undefined]) {
+        const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { dueAt })).expect(400);
+        expect(res.body.fields).toEqual({ dueAt: 'Pick a due date and time.' });
+      }
+      // A slip of the year (9999, or six years on) is refused before anyone is e-mailed.
+      const far = new Date(Date.now() + 6 * 366 * 86_400_000).toISOString();
+      for (const dueAt of ['9999-12-31T23:59:00Z', far]) {
+        const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { dueAt })).expect(400);
+        expect(res.body.fields).toEqual({ dueAt: 'That due date is more than 5 years away: check the year.' });
+      }
+      for (const timeZone of ['Mars/Olympus_Mons', '', 'x'.repeat(65), 42]) {
+        const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { timeZone })).expect(400);
+        expect(Object.keys(res.body.fields)).toEqual(['timeZone']);
+        expect(res.body.fields.timeZone).toMatch(/America\/Chicago/);
+      }
+    });
+
+    it('writes the due time in the e-mail on the lead\'s clock, with the zone named (UTC when none is sent)', async () => {
+      const dueAt = new Date(Math.ceil((Date.now() + 2 * 86_400_000) / 3_600_000) * 3_600_000);
+      await post(c.lead, '/api/training/assignments', body([second.id], { title: 'Chicago tonight', dueAt: dueAt.toISOString(), timeZone: 'America/Chicago' })).expect(201);
+      const chicago = await waitForMail(second.email, 'Chicago tonight');
+      expect(chicago.text).toContain(`It is due ${timeInZoneText(dueAt, 'America/Chicago')}.`);
+      expect(chicago.text).toMatch(/It is due \w{3} \d{1,2} \w{3} \d{4}, \d\d:\d\d \(America\/Chicago\)\./);
+      expect(chicago.text).not.toContain('GMT');
+      await post(c.lead, '/api/training/assignments', body([second.id], { title: 'No zone given', dueAt: dueAt.toISOString() })).expect(201);
+      const utc = await waitForMail(second.email, 'No zone given');
+      expect(utc.text).toContain(`It is due ${timeInZoneText(dueAt, 'UTC')}.`);
+      expect(utc.text).toContain('(UTC).');
     });
 
     it('assigns apprentices of the own team only', async () => {
@@ -144,7 +176,7 @@ describe('/api/training', () => {
       const problem2 = (await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200)).body.problems[1];
       const other = problem2.unit === 'in' ? 'mm' : 'in';
       const wrongUnit = await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: `1.2345 ${other}` }).expect(400);
-      expect(wrongUnit.body.fields.answer).toBe(`This problem is in ${problem2.unit}: type the answer in ${problem2.unit}, or as a plain number.`);
+      expect(wrongUnit.body.fields.answer).toBe(problem2.unit === 'in' ? 'Answer in inches (in), or as a plain number.' : 'Answer in millimetres (mm), or as a plain number.');
       const work = await AssignmentWork.findOne({ where: { assignmentId: id, userId: m.apprentice.id } });
       const problem = await TrainingProblem.findOne({ where: { workId: work!.id, position: 2 } });
       expect(await TrainingAttempt.count({ where: { problemId: problem!.id } })).toBe(0);
@@ -278,6 +310,91 @@ describe('/api/training', () => {
       expect(badId.body.error).toBe('No assignment with that id.');
       const badUser = await review(c.lead, id, 'abc').expect(404);
       expect(badUser.body.error).toBe('No apprentice with that id.');
+    });
+  });
+
+  describe('moving the due date of a sent assignment', () => {
+    let id: number;
+    const patch = (who: Client, assignmentId: number | string, payload: object) =>
+      who.agent.patch(`/api/training/assignments/${assignmentId}`).set('X-CSRF-Token', who.token).send(payload);
+    beforeAll(async () => {
+      id = (await post(c.lead, '/api/training/assignments', body([m.apprentice.id, second.id], { title: 'Moved along', items: [{ type: 'gauge-fewest', count: 1 }] })).expect(201)).body.id;
+      // The first apprentice has finished; the second has not.
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: await answerOf(id, m.apprentice.id, 1) }).expect(201);
+      await waitForMail(m.apprentice.email, 'New training assignment: Moved along');
+    });
+
+    it('lets the lead move it, and e-mails only the apprentices who have not finished, on the lead\'s clock', async () => {
+      const dueAt = new Date(Math.ceil((Date.now() + 10 * 86_400_000) / 60_000) * 60_000);
+      const res = await patch(c.lead, id, { dueAt: dueAt.toISOString(), timeZone: 'America/Chicago' }).expect(200);
+      expect(res.body).toMatchObject({ id, dueAt: dueAt.toISOString(), mailSent: 1 });
+      expect(res.body.work.map((w: { userId: number; status: string }) => [w.userId, w.status]).sort()).toEqual([[m.apprentice.id, 'done'], [second.id, 'not-started']].sort());
+      const mail = await waitForMail(second.email, 'New due date for training assignment: Moved along');
+      expect(mail.text).toContain(`It is now due ${timeInZoneText(dueAt, 'America/Chicago')}.`);
+      expect(mail.text).toContain(`/training/assignments/${id}`);
+      // The apprentice who has finished is not told (the notice to the other has arrived by now).
+      const notices = (await mailsTo(m.apprentice.email)).filter((x) => x.subject.includes('New due date for training assignment: Moved along'));
+      // ("second.<address>" contains the first apprentice's address: compare whole recipients.)
+      expect(notices.map((x) => x.recipients)).toEqual([second.email]);
+      expect((await Assignment.findByPk(id))!.dueAt.toISOString()).toBe(dueAt.toISOString());
+      // The apprentice sees the new date.
+      const own = await c.second.agent.get(`/api/training/assignments/${id}`).expect(200);
+      expect(own.body.dueAt).toBe(dueAt.toISOString());
+    });
+
+    it('sends nothing when the date does not change', async () => {
+      const current = (await Assignment.findByPk(id))!.dueAt.toISOString();
+      const res = await patch(c.lead, id, { dueAt: current }).expect(200);
+      expect(res.body.mailSent).toBe(0);
+    });
+
+    it('lets admins of the team move it; apprentices and machinists get 403, another team 404', async () => {
+      const dueAt = new Date(Math.ceil((Date.now() + 12 * 86_400_000) / 1000) * 1000).toISOString();
+      await patch(c.admin, id, { dueAt }).expect(200);
+      await patch(c.apprentice, id, { dueAt }).expect(403);
+      await patch(c.machinist, id, { dueAt }).expect(403);
+      const foreignRes = await patch(c.foreign, id, { dueAt }).expect(404);
+      expect(foreignRes.body.error).toBe('No assignment with that id in your team.');
+      await patch(c.lead, 'abc', { dueAt }).expect(404);
+      expect((await Assignment.findByPk(id))!.dueAt.toISOString()).toBe(new Date(dueAt).toISOString());
+    });
+
+    it('refuses a past, missing or far-off date and an unknown zone with 400, changing nothing', async () => {
+      const current = (await Assignment.findByPk(id))!.dueAt.toISOString();
+      expect((await patch(c.lead, id, { dueAt: '2020-01-01T10:00:00Z' }).expect(400)).body.fields).toEqual({ dueAt: 'The due date has passed: choose a time from now on.' });
+      expect((await patch(c.lead, id, {}).expect(400)).body.fields).toEqual({ dueAt: 'Pick a due date and time.' });
+      expect((await patch(c.lead, id, { dueAt: '9999-12-31T23:59:00Z' }).expect(400)).body.fields.dueAt).toMatch(/more than 5 years away/);
+      expect(Object.keys((await patch(c.lead, id, { dueAt: new Date(Date.now() + 86_400_000).toISOString(), timeZone: 'Nowhere/Atall' }).expect(400)).body.fields)).toEqual(['timeZone']);
+      expect((await Assignment.findByPk(id))!.dueAt.toISOString()).toBe(current);
+    });
+  });
+
+  describe('an apprentice\'s own list and a stale page', () => {
+    it('lists open work above finished work, soonest due first', async () => {
+      const team = await makeTeam('training-order');
+      const lead = await client(t.app, team.lead);
+      const apprentice = await client(t.app, team.apprentice);
+      const due = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString();
+      const one = { items: [{ type: 'gauge-fewest', count: 1 }] };
+      const finished = (await post(lead, '/api/training/assignments', body([team.apprentice.id], { ...one, title: 'Finished first', dueAt: due(1) })).expect(201)).body.id;
+      await post(lead, '/api/training/assignments', body([team.apprentice.id], { ...one, title: 'Open later', dueAt: due(9) })).expect(201);
+      await post(lead, '/api/training/assignments', body([team.apprentice.id], { ...one, title: 'Open sooner', dueAt: due(3) })).expect(201);
+      await post(apprentice, `/api/training/assignments/${finished}/problems/1/attempts`, { answer: await answerOf(finished, team.apprentice.id, 1) }).expect(201);
+      const list = await apprentice.agent.get('/api/training/assignments').expect(200);
+      expect(list.body.assignments.map((a: { title: string }) => a.title)).toEqual(['Open sooner', 'Open later', 'Finished first']);
+    });
+
+    it('answers a hint on a problem closed meanwhile with 409 and a message, and a withdrawn assignment with a plain 404', async () => {
+      const res = await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'Withdrawn later', items: [{ type: 'gauge-fewest', count: 2 }] })).expect(201);
+      const id = res.body.id as number;
+      await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: await answerOf(id, m.apprentice.id, 1) }).expect(201);
+      const hint = await post(c.apprentice, `/api/training/assignments/${id}/problems/1/hints`).expect(409);
+      expect(hint.body.error).toBe('This problem is closed; its worked solution is shown.');
+      await c.lead.agent.delete(`/api/training/assignments/${id}`).set('X-CSRF-Token', c.lead.token).expect(204);
+      const gone = 'This assignment no longer exists: your lead may have withdrawn it. Your other work is under My assignments.';
+      expect((await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(404)).body.error).toBe(gone);
+      expect((await post(c.apprentice, `/api/training/assignments/${id}/problems/2/attempts`, { answer: '3' }).expect(404)).body.error).toBe(gone);
+      expect((await post(c.apprentice, `/api/training/assignments/${id}/problems/2/hints`).expect(404)).body.error).toBe(gone);
     });
   });
 

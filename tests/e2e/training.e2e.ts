@@ -10,7 +10,7 @@ import { loadConfig } from '../../server/config';
 import { createSequelize } from '../../server/db';
 import { AssignmentWork, CapturedMail, initModels, TrainingProblem, User } from '../../server/models';
 import { generateExercise } from '../../shared/training/generators';
-import { DESKTOP, TABLET, launch, openPage, screenshot, signIn, signInByApi } from '../support/browser';
+import { DESKTOP, PHONE, TABLET, launch, openPage, screenshot, signIn, signInByApi } from '../support/browser';
 import { contentViolations } from '../support/content-a11y';
 
 jest.setTimeout(120_000);
@@ -41,6 +41,8 @@ describe('training', () => {
   it('lets a lead assign, e-mails the apprentice, grades one wrong and one right answer, and shows the score', async () => {
     const title = `Depth to stop drill ${Date.now()}`;
     const lead = await openPage(browser, DESKTOP);
+    // The lead works in Chicago: the e-mail gives the due time on that clock, zone named.
+    await (await lead.context.newCDPSession(lead.page)).send('Emulation.setTimezoneOverride', { timezoneId: 'America/Chicago' });
     await signIn(lead.page, 'lead@demo.test');
     await lead.page.goto('/training/assignments');
     await lead.page.getByRole('heading', { name: 'Assignments & scores' }).waitFor();
@@ -58,6 +60,8 @@ describe('training', () => {
     const mail = await waitForMail('apprentice@demo.test', title);
     const link = /https?:\/\/\S+\/training\/assignments\/(\d+)/.exec(mail.text);
     expect(link).not.toBeNull();
+    // The form's default is 16:00 a week ahead on the lead's clock.
+    expect(mail.text).toMatch(/It is due \w{3} \d{1,2} \w{3} \d{4}, 16:00 \(America\/Chicago\)\./);
     const path = new URL(link![0]).pathname;
 
     const apprentice = await User.findOne({ where: { email: 'apprentice@demo.test' } });
@@ -75,8 +79,11 @@ describe('training', () => {
         await box.fill((Number(exercise.exact) + 0.05).toFixed(4));
         await a.page.getByRole('button', { name: 'Check answer' }).click();
         await a.page.getByText(/not within ±0\.0005|not within ±0\.01/).waitFor();
-        await a.page.getByRole('button', { name: /Hint/ }).click();
+        // Enter on Hint keeps the keyboard focus on the button while the server answers and after.
+        await a.page.getByRole('button', { name: /Hint/ }).focus();
+        await a.page.keyboard.press('Enter');
         await a.page.getByLabel('Hints').waitFor();
+        await expect(a.page.evaluate(() => document.activeElement?.textContent ?? '')).resolves.toMatch(/Hint 1\//);
         await box.fill(exercise.answer);
         await a.page.getByRole('button', { name: 'Check answer' }).click();
         await a.page.getByText('Correct.').waitFor();
@@ -118,6 +125,44 @@ describe('training', () => {
     // The one refusal asked for above (1.5 problems), which the browser logs; nothing else.
     expect(lead.problems).toEqual(['console: Failed to load resource: the server responded with a status of 400 (Bad Request)']);
     await lead.context.close();
+  });
+
+  it('keeps the score table readable on a phone: it scrolls sideways in its own box, names and scores unbroken', async () => {
+    const { context, page, problems } = await openPage(browser, PHONE);
+    await signInByApi(context, 'lead@demo.test');
+    await page.goto('/training/assignments');
+    await page.getByRole('heading', { name: 'Assignments & scores' }).waitFor();
+    const wrap = page.getByRole('region', { name: /Scores: scrolls sideways/ });
+    await wrap.waitFor();
+    await page.getByText('The table scrolls sideways').waitFor();
+    const layout = await wrap.evaluate((el) => {
+      const lines = (node: Element) => {
+        const range = document.createRange();
+        range.selectNodeContents(node);
+        // One line box per rendered line of the text.
+        return new Set(Array.from(range.getClientRects()).map((r) => Math.round(r.top))).size;
+      };
+      return {
+        scrolls: el.scrollWidth > el.clientWidth,
+        pageScrolls: document.documentElement.scrollWidth > document.documentElement.clientWidth,
+        names: Array.from(el.querySelectorAll('th[scope=row] .name')).map((n) => [n.textContent, lines(n)]),
+        scores: Array.from(el.querySelectorAll('td strong')).map((n) => [n.textContent, lines(n)]),
+      };
+    });
+    expect(layout.scrolls).toBe(true);
+    expect(layout.pageScrolls).toBe(false);
+    expect(layout.names.length).toBeGreaterThan(0);
+    for (const [name, count] of layout.names) expect([name, count]).toEqual([name, 1]);
+    for (const [score, count] of layout.scores) expect([score, count]).toEqual([score, 1]);
+    // The names stay in view when the table is scrolled to its far end.
+    await wrap.evaluate((el) => el.scrollTo({ left: el.scrollWidth }));
+    const nameBox = await page.locator('th[scope=row]').first().boundingBox();
+    const wrapBox = await wrap.boundingBox();
+    expect(Math.abs(nameBox!.x - wrapBox!.x)).toBeLessThan(2);
+    await screenshot(page, 'training-lead-scores-390');
+    expect(await contentViolations(page)).toBe('');
+    expect(problems).toEqual([]);
+    await context.close();
   });
 
   it('shows the lessons with their drawings and practice, at desktop and tablet width', async () => {

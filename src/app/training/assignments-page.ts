@@ -6,6 +6,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { type ErrorStateMatcher } from '@angular/material/core';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 
@@ -15,6 +16,7 @@ import { EXERCISE_INFO, EXERCISE_TYPES, type ExerciseType } from '../../../share
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth, ROLE_LABELS } from '../core/auth';
 import { TeamApi } from '../team/team-api';
+import { browserTimeZone, fromLocalInput, localTimeText, localZoneText, toLocalInput } from './due-text';
 import { TrainingApi } from './training-api';
 import { STATUS_ICONS, STATUS_LABELS } from './work-status';
 
@@ -22,8 +24,19 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
 function defaultDue(): string {
   const d = new Date(Date.now() + 7 * 86_400_000);
   d.setHours(16, 0, 0, 0);
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+  return toLocalInput(d.toISOString());
+}
+
+/**
+ * Marks a field red exactly when the server refused it (its message is shown under it), whatever
+ * the browser thinks of the value: "2.5" and "11" problems are both refused, so both are outlined.
+ */
+class RefusedField implements ErrorStateMatcher {
+  constructor(private readonly refused: () => boolean) {}
+
+  isErrorState(): boolean {
+    return this.refused();
+  }
 }
 
 /**
@@ -62,6 +75,25 @@ export default class AssignmentsPage {
   protected readonly formErrors = signal<Record<string, string>>({});
   protected readonly formMessage = signal<string | null>(null);
   protected readonly saving = signal(false);
+  /** Red outlines follow the server's messages, one matcher per field. */
+  protected readonly refused = {
+    title: new RefusedField(() => !!this.formErrors()['title']),
+    dueAt: new RefusedField(() => !!this.formErrors()['dueAt']),
+    count: Object.fromEntries(EXERCISE_TYPES.map((t) => [t, new RefusedField(() => !!this.countErrors()[t])])) as Record<ExerciseType, RefusedField>,
+  };
+
+  // Moving the due date of a sent assignment.
+  /** The assignment whose due date is being changed, if any. */
+  protected readonly editingDue = signal<number | null>(null);
+  protected readonly newDue = signal('');
+  protected readonly dueError = signal<string | null>(null);
+  protected readonly dueMessage = signal<string | null>(null);
+  protected readonly dueRefused = new RefusedField(() => !!this.dueError());
+  /** A stored time on this browser's clock, with the zone named. */
+  protected readonly time = (iso: string) => localTimeText(iso);
+  /** The same, short, for the score table's column heads (the zone is named once, in the caption). */
+  protected readonly shortTime = (iso: string) => localTimeText(iso, { short: true });
+  protected readonly zone = (iso: string) => localZoneText(iso);
 
   constructor() {
     void this.load();
@@ -107,13 +139,14 @@ export default class AssignmentsPage {
     this.formMessage.set(null);
     const items = EXERCISE_TYPES.filter((t) => (this.counts()[t] ?? 0) !== 0).map((type) => ({ type, count: this.counts()[type] ?? 0 }));
     this.sentTypes = items.map((i) => i.type);
-    const dueDate = new Date(this.due());
     try {
       const created = await firstValueFrom(this.api.create({
         title: this.title(),
         instructions: this.instructions(),
         items,
-        dueAt: Number.isNaN(dueDate.getTime()) ? this.due() : dueDate.toISOString(),
+        dueAt: fromLocalInput(this.due()),
+        // The e-mail gives the due time on this clock, with the zone named.
+        timeZone: browserTimeZone(),
         assigneeIds: [...this.chosen()],
       }));
       this.formMessage.set(`Assigned "${created.title}" to ${created.work.length} apprentice${created.work.length === 1 ? '' : 's'}; ${created.mailSent} e-mail notice${created.mailSent === 1 ? '' : 's'} sent.`);
@@ -126,6 +159,34 @@ export default class AssignmentsPage {
       this.formMessage.set(apiErrorMessage(err));
     } finally {
       this.saving.set(false);
+    }
+  }
+
+  /** Opens the due-date box of a sent assignment, on this browser's clock. */
+  protected editDue(a: AssignmentDto): void {
+    this.editingDue.set(a.id);
+    this.newDue.set(toLocalInput(a.dueAt));
+    this.dueError.set(null);
+    this.dueMessage.set(null);
+  }
+
+  protected cancelDue(): void {
+    this.editingDue.set(null);
+    this.dueError.set(null);
+  }
+
+  /** Moves the due date; apprentices who have not finished get an e-mail with the new time. */
+  protected async saveDue(a: AssignmentDto): Promise<void> {
+    this.dueError.set(null);
+    try {
+      const changed = await firstValueFrom(this.api.changeDue(a.id, { dueAt: fromLocalInput(this.newDue()), timeZone: browserTimeZone() }));
+      this.editingDue.set(null);
+      this.dueMessage.set(
+        `"${changed.title}" is now due ${this.time(changed.dueAt)}; ${changed.mailSent} e-mail notice${changed.mailSent === 1 ? '' : 's'} sent to apprentices who have not finished.`,
+      );
+      await this.load();
+    } catch (err) {
+      this.dueError.set(apiFieldErrors(err)['dueAt'] ?? apiErrorMessage(err));
     }
   }
 

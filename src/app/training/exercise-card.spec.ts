@@ -43,20 +43,68 @@ describe('ExerciseCard', () => {
       expect(el.querySelector('.attempts .wrong')!.textContent).toContain('not within ±0.0005 in');
     });
 
-    it('should emit the typed answer on Check answer and clear the box', async () => {
+    it('should emit the typed answer on Check answer, keep it while it is not graded, and clear the box once it is', async () => {
       const input = el.querySelector('input') as HTMLInputElement;
-      input.value = ' 0.2615 ';
+      input.value = ' 0.2615 in. ';
       input.dispatchEvent(new Event('input'));
       await fixture.whenStable();
       (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
       await fixture.whenStable();
-      expect(fixture.componentInstance.answers).toEqual(['0.2615']);
+      expect(fixture.componentInstance.answers).toEqual(['0.2615 in.']);
+      // Refused without grading (a unit slip, a typo): the text stays to be corrected.
+      fixture.componentInstance.error.set('Answer in inches (in), or as a plain number.');
+      await fixture.whenStable();
+      expect((el.querySelector('input') as HTMLInputElement).value).toBe(' 0.2615 in. ');
+      // Graded: one more attempt on the problem, and the box is empty for the next try.
+      fixture.componentInstance.problem.set({ ...OPEN, attempts: [...OPEN.attempts, { answer: '0.2615', correct: false }], attemptsLeft: 1 });
+      await fixture.whenStable();
       expect((el.querySelector('input') as HTMLInputElement).value).toBe('');
+    });
+
+    it('should keep its controls focusable while the server answers, so keyboard focus is not lost', async () => {
+      const input = el.querySelector('input') as HTMLInputElement;
+      const hint = el.querySelector('button[type=button]') as HTMLButtonElement;
+      hint.focus();
+      fixture.componentInstance.busy.set(true);
+      await fixture.whenStable();
+      // Not disabled (a disabled control drops the focus to the page); marked unavailable instead.
+      expect(hint.disabled).toBe(false);
+      expect(hint.getAttribute('aria-disabled')).toBe('true');
+      expect(document.activeElement).toBe(hint);
+      expect(input.disabled).toBe(false);
+      expect(input.readOnly).toBe(true);
+      // A press while busy asks for nothing.
+      hint.click();
+      expect(fixture.componentInstance.hints).toBe(0);
+    });
+
+    it('should move focus to the verdict when its answer closes the problem', async () => {
+      const input = el.querySelector('input') as HTMLInputElement;
+      input.value = '0.2615';
+      input.dispatchEvent(new Event('input'));
+      await fixture.whenStable();
+      input.focus();
+      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
+      fixture.componentInstance.problem.set({
+        ...OPEN, closed: true, correct: true, attemptsLeft: 0, attempts: [...OPEN.attempts, { answer: '0.2615', correct: true }],
+        solution: { answer: '0.2615', steps: [] },
+      });
+      await fixture.whenStable();
+      expect(document.activeElement).toBe(el.querySelector('.verdict'));
     });
 
     it('should emit a hint request', () => {
       (el.querySelector('button[type=button]') as HTMLButtonElement).click();
       expect(fixture.componentInstance.hints).toBe(1);
+    });
+
+    it('should show its cautions unless the page shows them once for every problem', async () => {
+      fixture.componentInstance.problem.set({ ...OPEN, cautions: ['Clamp the work before cutting (test caution).'] });
+      await fixture.whenStable();
+      expect(el.querySelector('sw-cautions')!.textContent).toContain('Clamp the work');
+      fixture.componentInstance.showCautions.set(false);
+      await fixture.whenStable();
+      expect(el.querySelector('sw-cautions')).toBeNull();
     });
   });
 
@@ -73,6 +121,27 @@ describe('ExerciseCard', () => {
       expect(el.querySelector('form')).toBeNull();
       expect(el.querySelector('.solution')!.textContent).toContain('The answer is 0.2615');
       expect(el.querySelector('.steps')!.textContent).toContain('h = L · sin α');
+    });
+
+    it('should show why a late answer was refused beside the worked solution (closed meanwhile elsewhere)', async () => {
+      fixture.componentInstance.error.set('This problem is closed; no more answers are taken.');
+      fixture.componentInstance.problem.set({ ...OPEN, closed: true, attemptsLeft: 0, solution: { answer: '0.2615', steps: [] } });
+      await fixture.whenStable();
+      expect(el.querySelector('[role=alert]')!.textContent).toContain('This problem is closed');
+      expect(el.querySelector('.solution')).not.toBeNull();
+    });
+
+    it('should close up the degree sign of an angle step, and space other units', async () => {
+      const angleStep = { label: 'Angle', formula: 'α = atan(d / L)', substituted: 'α = atan(0.5700 / 1.0000)', value: '29.6831', unit: '°' };
+      const lengthStep = { label: 'Stock removed at the end', formula: 'd = T − t', substituted: 'd = 0.8750 − 0.3050', value: '0.5700', unit: 'in' };
+      fixture.componentInstance.problem.set({
+        ...OPEN, unit: '°', closed: true, attemptsLeft: 0, hints: [],
+        solution: { answer: '29.6831° (29°40\'59")', steps: [lengthStep, angleStep] },
+      });
+      await fixture.whenStable();
+      const steps = Array.from(el.querySelectorAll('.steps li')).map((li) => li.textContent!.replace(/\s+/g, ' ').trim());
+      expect(steps[0]).toMatch(/= 0\.5700 in$/);
+      expect(steps[1]).toMatch(/= 29\.6831°$/);
     });
 
     it('should print an angle answer with its degree sign once and a count as blocks, checked exactly', async () => {
@@ -97,10 +166,13 @@ describe('ExerciseCard', () => {
 
 @Component({
   imports: [ExerciseCard],
-  template: `<sw-exercise-card [problem]="problem()" (answered)="answers.push($event)" (hint)="hints = hints + 1" />`,
+  template: `<sw-exercise-card [problem]="problem()" [busy]="busy()" [error]="error()" [showCautions]="showCautions()" (answered)="answers.push($event)" (hint)="hints = hints + 1" />`,
 })
 class Host {
   readonly problem = signal<ProblemView>(OPEN);
+  readonly busy = signal(false);
+  readonly error = signal<string | null>(null);
+  readonly showCautions = signal(true);
   answers: string[] = [];
   hints = 0;
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, afterRenderEffect, computed, input, linkedSignal, output, viewChild } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 
 import type { GivenDto, StepDto } from '../../../shared/api/training';
 import { CautionPanel } from '../workbench/caution-panel';
+import { unitSuffix, withUnit } from './unit-text';
 
 /** What an exercise card shows: one problem, in practice or in an assignment. */
 export interface ProblemView {
@@ -47,14 +48,14 @@ export interface ProblemView {
         <p class="prompt">{{ problem().prompt }}</p>
         <dl class="givens">
           @for (g of problem().givens; track g.label) {
-            <div><dt>{{ g.label }}</dt><dd>{{ g.value }}{{ g.unit === '°' ? '°' : g.unit ? ' ' + g.unit : '' }}</dd></div>
+            <div><dt>{{ g.label }}</dt><dd>{{ g.value }}{{ suffix(g.value, g.unit) }}</dd></div>
           }
         </dl>
 
         @if (!problem().closed && problem().hints.length) {
           <ol class="hints" aria-label="Hints">
             @for (h of problem().hints; track $index) {
-              <li><span class="label">{{ h.label }}</span> <i>{{ h.formula }}</i> → {{ h.substituted }} = <strong>{{ h.value }}</strong>{{ h.unit && h.value !== '?' ? ' ' + h.unit : '' }}</li>
+              <li><span class="label">{{ h.label }}</span> <i>{{ h.formula }}</i> → {{ h.substituted }} = <strong>{{ h.value }}</strong>{{ suffix(h.value, h.unit) }}</li>
             }
           </ol>
         }
@@ -74,33 +75,35 @@ export interface ProblemView {
           <form class="answer" (ngSubmit)="submit()">
             <mat-form-field appearance="outline">
               <mat-label>{{ problem().answerLabel }}</mat-label>
-              <input matInput name="answer" [ngModel]="draft()" (ngModelChange)="draft.set($event)" autocomplete="off" [disabled]="busy()">
+              <!-- Read only, not disabled, while the server answers: the box keeps the keyboard focus. -->
+              <input matInput name="answer" [ngModel]="draft()" (ngModelChange)="draft.set($event)" autocomplete="off" [readonly]="busy()">
               <span matTextSuffix>{{ problem().unit }}</span>
               <mat-hint>{{ checkedText() }}{{ attemptsText() }}</mat-hint>
             </mat-form-field>
             @if (error()) { <p class="error" role="alert">{{ error() }}</p> }
             <div class="actions">
-              <button mat-flat-button type="submit" [disabled]="busy() || !draft().trim()"><mat-icon>task_alt</mat-icon> Check answer</button>
-              <button mat-stroked-button type="button" (click)="hint.emit()" [disabled]="busy() || problem().hints.length >= problem().hintsAvailable">
+              <button mat-flat-button type="submit" [disabled]="busy() || !draft().trim()" disabledInteractive><mat-icon>task_alt</mat-icon> Check answer</button>
+              <button mat-stroked-button type="button" (click)="askHint()" [disabled]="busy() || !hintsLeft()" disabledInteractive>
                 <mat-icon>lightbulb</mat-icon> Hint {{ problem().hints.length }}/{{ problem().hintsAvailable }}
               </button>
             </div>
           </form>
         } @else if (problem().solution; as solution) {
+          @if (error()) { <p class="error" role="alert">{{ error() }}</p> }
           <section class="solution" [class.right]="problem().correct" aria-label="Worked solution">
-            <p class="verdict">
+            <p class="verdict" #verdict tabindex="-1">
               <mat-icon aria-hidden="true">{{ problem().correct ? 'verified' : 'menu_book' }}</mat-icon>
               <span>{{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.</span>
             </p>
             <h4>Worked solution</h4>
             <ol class="steps">
               @for (s of solution.steps; track $index) {
-                <li><span class="label">{{ s.label }}</span>: <i>{{ s.formula }}</i> → {{ s.substituted }} = <strong>{{ s.value }}</strong> {{ s.unit }}</li>
+                <li><span class="label">{{ s.label }}</span>: <i>{{ s.formula }}</i> → {{ s.substituted }} = <strong>{{ s.value }}</strong>{{ suffix(s.value, s.unit) }}</li>
               }
             </ol>
           </section>
         }
-        @if (problem().cautions.length) {
+        @if (showCautions() && problem().cautions.length) {
           <sw-cautions [items]="problem().cautions" heading="On the machine" />
         }
       </mat-card-content>
@@ -126,6 +129,7 @@ export interface ProblemView {
     .solution { border-left: 4px solid var(--mat-sys-outline); padding: 4px 12px; margin: 12px 0; }
     .solution.right { border-color: var(--mat-sys-primary); }
     .verdict { display: flex; gap: 8px; align-items: center; }
+    .verdict:focus-visible { outline: 2px solid var(--mat-sys-primary); outline-offset: 2px; border-radius: 4px; }
     h4 { margin: 8px 0 4px; font: var(--mat-sys-title-small); }
     sw-cautions { margin-top: 12px; }
   `,
@@ -143,38 +147,69 @@ export class ExerciseCard {
   readonly answered = output<string>();
   /** "Hint" was pressed. */
   readonly hint = output<void>();
+  /** Whether the card shows the problem's safety cautions (a page of many problems shows them once). */
+  readonly showCautions = input(true);
 
-  /** The answer being typed. */
-  protected readonly draft = signal('');
-  /** The attempts-left note of the hint line. */
+  /**
+   * The answer being typed. It stays after an answer that was not graded (a unit slip, a typo) so
+   * it can be corrected, and empties once the answer is graded (one more attempt) or the problem changes.
+   */
+  protected readonly draft = linkedSignal<string, string>({ source: computed(() => `${this.problem().prompt}|${this.problem().attempts.length}`), computation: () => '' });
+  /** Whether a hint is left to reveal. */
+  protected readonly hintsLeft = computed(() => this.problem().hints.length < this.problem().hintsAvailable);
+
+  private readonly verdict = viewChild<ElementRef<HTMLElement>>('verdict');
+  /** Set when this card's own answer or hint is on its way: if the problem closes, focus goes to the verdict. */
+  private acted = false;
+
+  constructor() {
+    // The answer box goes away when the problem closes: keep the keyboard user's place by moving
+    // focus to the verdict rather than letting it fall back to the top of the page.
+    afterRenderEffect(() => {
+      const el = this.verdict()?.nativeElement;
+      const { closed } = this.problem();
+      if (!closed && !this.busy()) this.acted = false;
+      else if (el && closed && this.acted) {
+        this.acted = false;
+        el.focus();
+      }
+    });
+  }
+
+  /** The unit after a value, closed up for degrees: " in", "°", or nothing. */
+  protected suffix(value: string, unit: string): string {
+    return unitSuffix(value, unit);
+  }
+
   /** A value with the problem's unit: "0.2993 in", "19.4600° (19°27'36")" (a degree sign only once), "5 blocks". */
   protected answerText(value: string): string {
-    const unit = this.problem().unit;
-    if (!unit || /[a-z°"]\s*$/i.test(value) || (unit === '°' && value.includes('°'))) return value;
-    if (unit === '°') return `${value}°`;
-    if (unit === 'blocks' && value.trim() === '1') return '1 block';
-    return `${value} ${unit}`;
+    return withUnit(value, this.problem().unit);
   }
 
   /** What a wrong answer missed by: the tolerance, or for a count the exact number. */
   protected readonly wrongText = computed(() => (Number(this.problem().tolerance) === 0 ? 'not the number wanted' : `not within ${this.toleranceText()}`));
   /** How the answer is checked. */
   protected readonly checkedText = computed(() => (Number(this.problem().tolerance) === 0 ? 'Counted exactly' : `Checked to ${this.toleranceText()}`));
-  private readonly toleranceText = computed(() => {
-    const { tolerance, unit } = this.problem();
-    return unit === '°' ? `±${tolerance}°` : `±${tolerance} ${unit}`;
-  });
+  private readonly toleranceText = computed(() => withUnit(`±${this.problem().tolerance}`, this.problem().unit));
 
+  /** The attempts-left note of the hint line. */
   protected readonly attemptsText = computed(() => {
     const left = this.problem().attemptsLeft;
     return left === null ? '' : ` · ${left} ${left === 1 ? 'try' : 'tries'} left`;
   });
 
-  /** Sends the typed answer to the page and clears the box. */
+  /** Sends the typed answer to the page; the box keeps it until the answer is graded. */
   protected submit(): void {
     const text = this.draft().trim();
     if (!text || this.busy()) return;
+    this.acted = true;
     this.answered.emit(text);
-    this.draft.set('');
+  }
+
+  /** Asks for the next hint (the button stays focusable while busy or when none is left, so it does nothing then). */
+  protected askHint(): void {
+    if (this.busy() || !this.hintsLeft()) return;
+    this.acted = true;
+    this.hint.emit();
   }
 }

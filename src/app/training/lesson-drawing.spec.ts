@@ -44,6 +44,46 @@ describe('LessonDrawing', () => {
     expect(el.querySelectorAll('rect.stack:not(.alt)')).toHaveLength(3);
   });
 
+  describe('gauge-stack length', () => {
+    const thumb = () => TestbedHarnessEnvironment.loader(fixture).getHarness(MatSliderHarness).then((h) => h.getEndThumb());
+    const box = (el: HTMLElement) => el.querySelector('.length-box input') as HTMLInputElement;
+    const fewest = (el: HTMLElement) => el.querySelector('.readouts dd')!.textContent;
+
+    it('should move a thousandth of an inch per arrow press and a tenth per page', async () => {
+      const el = await show('gauge-stack');
+      const input = el.querySelector('input[matSliderThumb]') as HTMLInputElement;
+      expect(input.step).toBe('0.001');
+      expect(await (await thumb()).getValue()).toBeCloseTo(2.826, 6);
+      input.dispatchEvent(new KeyboardEvent('keydown', { key: 'PageUp', bubbles: true, cancelable: true }));
+      await fixture.whenStable();
+      expect(await (await thumb()).getValue()).toBeCloseTo(2.926, 6);
+      expect(box(el).value).toBe('2.9260');
+      input.dispatchEvent(new KeyboardEvent('keydown', { key: 'PageDown', bubbles: true, cancelable: true }));
+      input.dispatchEvent(new KeyboardEvent('keydown', { key: 'PageDown', bubbles: true, cancelable: true }));
+      await fixture.whenStable();
+      expect(box(el).value).toBe('2.7260');
+    });
+
+    it('should build a typed length to the ten-thousandth, and say what it needs when a length will not do', async () => {
+      const el = await show('gauge-stack');
+      box(el).value = '3,1415';
+      box(el).dispatchEvent(new Event('change'));
+      await fixture.whenStable();
+      // 3.1415 in from the 81 set: 0.1005 + 0.141 + 0.900 + 2.000, four blocks (derived by hand: last digit first).
+      expect(fewest(el)).toMatch(/^4: /);
+      expect(el.querySelector('.length-error')).toBeNull();
+      box(el).value = '7';
+      box(el).dispatchEvent(new Event('change'));
+      await fixture.whenStable();
+      expect(el.querySelector('.length-error')!.textContent).toContain('from 0.3000 to 6.0000 in');
+      expect(fewest(el)).toMatch(/^4: /);
+      box(el).value = '2.82651';
+      box(el).dispatchEvent(new Event('change'));
+      await fixture.whenStable();
+      expect(el.querySelector('.length-error')!.textContent).toContain('at most four decimals');
+    });
+  });
+
   describe('angle handle', () => {
     /** jsdom has no PointerEvent: a mouse event that carries a pointer id is all the handle reads. */
     class TestPointerEvent extends MouseEvent {

@@ -1,5 +1,7 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, ElementRef, computed, input, linkedSignal, signal, viewChild } from '@angular/core';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
 import { MatSliderModule } from '@angular/material/slider';
 
 import { Dec, cosDeg, sinDeg, tanDeg } from '../../../shared/calc/decimal-math';
@@ -23,11 +25,15 @@ import {
 } from '../../../shared/training/lesson-geometry';
 import type { LessonDrawingKind } from './lessons';
 
-/** Slider range, step, start value and label of each drawing. */
-const SLIDERS: Readonly<Record<LessonDrawingKind, { min: number; max: number; step: number; start: number; label: string; unit: string }>> = {
+/**
+ * Slider range, step, start value and label of each drawing; `page` is the Page Up / Page Down
+ * move where ten steps would still be too small to cross the range.
+ */
+const SLIDERS: Readonly<Record<LessonDrawingKind, { min: number; max: number; step: number; start: number; label: string; unit: string; page?: number }>> = {
   'taper-triangle': { min: 1, max: 30, step: 0.5, start: 7.5, label: 'Angle α', unit: '°' },
   'sine-bar': { min: 0, max: 60, step: 0.5, start: 14.5, label: 'Angle θ', unit: '°' },
-  'gauge-stack': { min: 0.3, max: 6, step: 0.0001, start: 2.826, label: 'Stack length', unit: 'in' },
+  // A thousandth per arrow press, a tenth per page; a length to the ten-thousandth is typed in the box.
+  'gauge-stack': { min: 0.3, max: 6, step: 0.001, start: 2.826, label: 'Stack length', unit: 'in', page: 0.1 },
   'lathe-taper': { min: 0.0625, max: 3, step: 0.0625, start: 0.625, label: 'Taper per foot', unit: 'in/ft' },
   'over-pins': { min: 40, max: 70, step: 1, start: 60, label: 'Dovetail angle α', unit: '°' },
 };
@@ -67,7 +73,7 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
  */
 @Component({
   selector: 'sw-lesson-drawing',
-  imports: [MatSliderModule, DecimalPipe],
+  imports: [MatSliderModule, MatFormFieldModule, MatInputModule, DecimalPipe],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <figure class="lesson-drawing">
@@ -163,9 +169,18 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
         <label class="slider-row">
           <span>{{ slider().label }}: <strong>{{ value() | number: valueFormat() }}{{ slider().unit === '°' ? '°' : ' ' + slider().unit }}</strong></span>
           <mat-slider [min]="slider().min" [max]="slider().max" [step]="slider().step" discrete>
-            <input matSliderThumb [value]="value()" (valueChange)="value.set($event)" [attr.aria-label]="slider().label">
+            <input matSliderThumb [value]="value()" (valueChange)="value.set($event)" [attr.aria-label]="slider().label" (keydown)="pageWithKey($event)">
           </mat-slider>
         </label>
+        @if (kind() === 'gauge-stack') {
+          <mat-form-field appearance="outline" subscriptSizing="dynamic" class="length-box">
+            <mat-label>Type a stack length</mat-label>
+            <input matInput inputmode="decimal" autocomplete="off" [value]="value().toFixed(4)" (change)="typeLength($any($event.target).value)">
+            <span matTextSuffix>in</span>
+            <mat-hint>{{ lengthHint }}</mat-hint>
+          </mat-form-field>
+          @if (lengthError()) { <p class="length-error" role="alert">{{ lengthError() }}</p> }
+        }
         <dl class="readouts">
           @for (r of readouts(); track r.label) {
             <div><dt>{{ r.label }}</dt><dd>{{ r.value }}</dd></div>
@@ -192,6 +207,8 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
     .note { font: 13px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-on-surface-variant); }
     .block-label { font: 12px 'IBM Plex Sans', sans-serif; text-anchor: middle; fill: var(--mat-sys-on-surface); }
     .slider-row { display: grid; gap: 4px; }
+    .length-box { width: min(260px, 100%); }
+    .length-error { color: var(--mat-sys-error); margin: 0; }
     // The slider keeps 8px of margin each side for its thumb: its width leaves room for it, so it never runs past the panel.
     mat-slider { width: calc(100% - 16px); max-width: 520px; }
     .readouts { display: flex; flex-wrap: wrap; gap: 8px 24px; margin: 0; }
@@ -334,6 +351,37 @@ export class LessonDrawing {
     const handle = event.currentTarget as SVGGElement;
     if (handle.hasPointerCapture?.(event.pointerId)) handle.releasePointerCapture(event.pointerId);
     this.dragging.set(false);
+  }
+
+  protected readonly lengthHint = `From ${SLIDERS['gauge-stack'].min.toFixed(4)} to ${SLIDERS['gauge-stack'].max.toFixed(4)} in, to 0.0001 in; Enter to build it.`;
+  /** Why the typed length was not taken, if so. */
+  protected readonly lengthError = signal<string | null>(null);
+
+  /** Takes a typed stack length (0.3000–6.0000 in, at most four decimals, a comma as the decimal mark). */
+  protected typeLength(text: string): void {
+    const { min, max } = this.slider();
+    const cleaned = text.trim().replace(',', '.').replace(/\s*(in|")$/i, '');
+    const length = Number(cleaned);
+    if (!/^(\d+(\.\d{0,4})?|\.\d{1,4})$/.test(cleaned)) {
+      this.lengthError.set('Type the length in inches as a number with at most four decimals, e.g. 2.8265.');
+      return;
+    }
+    if (length < min || length > max) {
+      this.lengthError.set(`Type a length from ${min.toFixed(4)} to ${max.toFixed(4)} in.`);
+      return;
+    }
+    this.lengthError.set(null);
+    this.value.set(length);
+  }
+
+  /** Page Up / Page Down on the slider move a bigger step where the drawing sets one (the stack length: 0.1 in). */
+  protected pageWithKey(event: KeyboardEvent): void {
+    const { min, max, page } = this.slider();
+    if (page === undefined || (event.key !== 'PageUp' && event.key !== 'PageDown')) return;
+    event.preventDefault();
+    const next = this.value() + (event.key === 'PageUp' ? page : -page);
+    // Whole thousandths, inside the range.
+    this.value.set(Math.min(max, Math.max(min, Math.round(next * 1000) / 1000)));
   }
 
   /** Arrow keys move one step, Page Up/Down ten, Home/End go to the ends (as the slider does). */

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { AssignmentCreateBody, AssignmentDto, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
+import type { AssignmentCreateBody, AssignmentDto, AssignmentDueBody, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
 import { quietErrors } from '../core/api-error';
 
 /** One apprentice's copy of an assignment: the assignment and their problems. */
@@ -26,19 +26,24 @@ export class TrainingApi {
     return this.http.post<AssignmentDto & { mailSent: number }>('/api/training/assignments', body, { context: quietErrors() });
   }
 
+  /** Moves an assignment's due date (leads and admins); a refusal comes back as a 400 for the form. */
+  changeDue(id: number, body: AssignmentDueBody): Observable<AssignmentDto & { mailSent: number }> {
+    return this.http.patch<AssignmentDto & { mailSent: number }>(`/api/training/assignments/${id}`, body, { context: quietErrors() });
+  }
+
   /** Deletes an assignment and its work. */
   remove(id: number): Observable<void> {
     return this.http.delete<void>(`/api/training/assignments/${id}`);
   }
 
-  /** The caller's own problems of an assignment. */
+  /** The caller's own problems of an assignment; the page shows a refusal (withdrawn, not yours) itself. */
   work(id: number): Observable<AssignmentWorkView> {
-    return this.http.get<AssignmentWorkView>(`/api/training/assignments/${id}/work`);
+    return this.http.get<AssignmentWorkView>(`/api/training/assignments/${id}/work`, { context: quietErrors() });
   }
 
-  /** Reveals the next hint of one problem. */
+  /** Reveals the next hint of one problem; a refusal (409: closed meanwhile) is shown on the problem. */
   hint(id: number, position: number): Observable<ProblemDto> {
-    return this.http.post<ProblemDto>(`/api/training/assignments/${id}/problems/${position}/hints`, {});
+    return this.http.post<ProblemDto>(`/api/training/assignments/${id}/problems/${position}/hints`, {}, { context: quietErrors() });
   }
 
   /** Sends an answer; the server grades it. An unreadable answer is a 400 for the card to show. */

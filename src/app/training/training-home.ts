@@ -7,6 +7,7 @@ import { RouterLink } from '@angular/router';
 import { catchError, of } from 'rxjs';
 
 import { Auth } from '../core/auth';
+import { localTimeText } from './due-text';
 import { LESSONS } from './lessons';
 import { TrainingApi } from './training-api';
 import { STATUS_LABELS } from './work-status';
@@ -32,7 +33,7 @@ import { STATUS_LABELS } from './work-status';
             <li>
               <a [routerLink]="['/training/assignments', a.id]">{{ a.title }}</a>
               <span class="status" [attr.data-status]="a.work[0]?.status">{{ statusLabel(a.work[0]?.status) }}</span>
-              <span class="due">due {{ a.dueAt.slice(0, 10) }}</span>
+              <span class="due">due {{ time(a.dueAt) }}</span>
             </li>
           }
         </ul>
@@ -70,6 +71,8 @@ export default class TrainingHome {
   private readonly api = inject(TrainingApi);
 
   protected readonly lessons = LESSONS;
+  /** A due time on this browser's clock, with the zone named. */
+  protected readonly time = (iso: string) => localTimeText(iso);
   protected readonly canAssign = computed(() => ['lead', 'admin'].includes(this.auth.user()?.role ?? ''));
   /** The caller's own assignments (empty for leads and admins, who see the full list on the assignments page). */
   protected readonly mine = toSignal(this.api.assignments().pipe(catchError(() => of([]))), { initialValue: [] });

@@ -6,6 +6,7 @@ import { provideRouter } from '@angular/router';
 
 import type { ReviewProblemDto, WorkReviewDto } from '../../../shared/api/training';
 import { Auth } from '../core/auth';
+import { localTimeText } from './due-text';
 import WorkReviewPage from './work-review-page';
 
 const step = (label: string, value: string) => ({ label, formula: 'h = L · sin α', substituted: '1.5 · sin 10°', value, unit: 'in' });
@@ -86,10 +87,12 @@ describe('WorkReviewPage', () => {
     expect(el.textContent).toContain('In progress');
     expect(el.textContent).toContain('1 of 2 right (50%)');
     const answers = Array.from(el.querySelectorAll('[aria-label="Answers to problem 1"] li')).map((li) => li.textContent!.replace(/\s+/g, ' ').trim());
+    // Times on the reader's own clock (the test runs in the machine's zone), never bare UTC.
     expect(answers).toEqual([
-      expect.stringMatching(/^cancel ?0\.3000 in — Wrong · 2026-12-02 09:10 UTC$/),
-      expect.stringMatching(/^check_circle ?0\.2605 in — Right · 2026-12-02 09:12 UTC$/),
+      `cancel 0.3000 in — Wrong · ${localTimeText('2026-12-02T09:10:00.000Z')}`.replace(/\s+/g, ' '),
+      `check_circle 0.2605 in — Right · ${localTimeText('2026-12-02T09:12:00.000Z')}`.replace(/\s+/g, ' '),
     ]);
+    expect(el.querySelector('.meta')!.textContent).toContain(`Due ${localTimeText('2026-12-20T16:00:00.000Z')}`);
     expect(el.querySelector('[aria-label="Answers to problem 2"]')!.textContent).toContain('No answer yet.');
     const subtitles = Array.from(el.querySelectorAll('mat-card-subtitle')).map((s) => s.textContent!.replace(/\s+/g, ' ').trim());
     expect(subtitles[0]).toBe('Closed · answered right · hints used 0 of 2');
@@ -107,6 +110,24 @@ describe('WorkReviewPage', () => {
     expect(panel.textContent).toContain('Sine of the angle');
     expect(panel.textContent).toContain('Depth to stop h = 0.2605 in');
     expect(panel.textContent).toContain('exact 0.26047');
+  });
+
+  it('should print an angle answer and its worked solution with one degree sign', async () => {
+    await open();
+    const angle = problem(1, {
+      type: 'taper-angle', unit: '°', tolerance: '0.01', answerLabel: 'Angle α', closed: true, correct: true, attemptsLeft: 0,
+      attempts: [{ answer: '35°', correct: true, at: '2026-12-02T09:10:00.000Z' }, { answer: '34.99', correct: true, at: '2026-12-02T09:11:00.000Z' }],
+      solution: { answer: '34.9920° (34°59\'31")', exact: '34.99203', steps: [{ label: 'Angle', formula: 'α = atan(d / L)', substituted: 'α = atan(0.7000 / 1.0000)', value: '34.9920', unit: '°' }] },
+    });
+    http.expectOne('/api/training/assignments/7/work/4').flush({ ...WORK, problems: [angle] });
+    await settle();
+    const text = el.querySelector('.problems')!.textContent!.replace(/\s+/g, ' ');
+    expect(text).toContain('35° — Right');
+    expect(text).toContain('34.99° — Right');
+    expect(text).toContain('answer 34.9920° (34°59\'31")');
+    expect(text).toContain('= 34.9920°');
+    expect(text).toContain('answers within ±0.01° are right');
+    expect(text).not.toMatch(/°\s*°|"\)\s*°| °/);
   });
 
   it("should show the server's message when the lead may not read the work (404)", async () => {

@@ -11,13 +11,10 @@ import { firstValueFrom } from 'rxjs';
 import type { WorkReviewDto } from '../../../shared/api/training';
 import { apiErrorMessage } from '../core/api-error';
 import { Auth } from '../core/auth';
+import { localTimeText } from './due-text';
 import { TrainingApi } from './training-api';
+import { unitSuffix, withUnit } from './unit-text';
 import { STATUS_ICONS, STATUS_LABELS } from './work-status';
-
-/** A stored UTC time as "2026-12-02 08:30 UTC". */
-function utcText(iso: string): string {
-  return `${iso.slice(0, 16).replace('T', ' ')} UTC`;
-}
 
 /**
  * One apprentice's work on an assignment as their lead (or an admin) reads it: every answer with
@@ -60,7 +57,7 @@ function utcText(iso: string): string {
                 <p class="prompt">{{ p.prompt }}</p>
                 <dl class="givens">
                   @for (g of p.givens; track g.label) {
-                    <div><dt>{{ g.label }}</dt><dd>{{ g.value }}{{ g.unit === '°' ? '°' : g.unit ? ' ' + g.unit : '' }}</dd></div>
+                    <div><dt>{{ g.label }}</dt><dd>{{ g.value }}{{ suffix(g.value, g.unit) }}</dd></div>
                   }
                 </dl>
                 <h3>Answers</h3>
@@ -68,7 +65,7 @@ function utcText(iso: string): string {
                   @for (a of p.attempts; track $index) {
                     <li [class.right]="a.correct" [class.wrong]="!a.correct">
                       <mat-icon aria-hidden="true">{{ a.correct ? 'check_circle' : 'cancel' }}</mat-icon>
-                      {{ a.answer }} {{ p.unit }} — <strong class="verdict">{{ a.correct ? 'Right' : 'Wrong' }}</strong> · <span class="at">{{ time(a.at) }}</span>
+                      {{ withUnit(a.answer, p.unit) }} — <strong class="verdict">{{ a.correct ? 'Right' : 'Wrong' }}</strong> · <span class="at">{{ time(a.at) }}</span>
                     </li>
                   } @empty {
                     <li class="none">No answer yet.</li>
@@ -77,16 +74,16 @@ function utcText(iso: string): string {
                 <mat-expansion-panel class="solution">
                   <mat-expansion-panel-header>
                     <mat-panel-title>Worked solution</mat-panel-title>
-                    <mat-panel-description>answer {{ p.solution.answer }} {{ p.unit }}</mat-panel-description>
+                    <mat-panel-description>answer {{ withUnit(p.solution.answer, p.unit) }}</mat-panel-description>
                   </mat-expansion-panel-header>
                   <ol class="steps">
                     @for (s of p.solution.steps; track $index) {
-                      <li><span class="label">{{ s.label }}</span>: <i>{{ s.formula }}</i> → {{ s.substituted }} = <strong>{{ s.value }}</strong> {{ s.unit }}</li>
+                      <li><span class="label">{{ s.label }}</span>: <i>{{ s.formula }}</i> → {{ s.substituted }} = <strong>{{ s.value }}</strong>{{ suffix(s.value, s.unit) }}</li>
                     }
                   </ol>
                   <p class="exact">
-                    {{ p.answerLabel }} = <strong>{{ p.solution.answer }}</strong> {{ p.unit }}
-                    (exact {{ p.solution.exact }}; answers within ±{{ p.tolerance }} {{ p.unit }} are right)
+                    {{ p.answerLabel }} = <strong>{{ p.solution.answer }}</strong>{{ suffix(p.solution.answer, p.unit) }}
+                    (exact {{ p.solution.exact }}; answers within {{ withUnit('±' + p.tolerance, p.unit) }} are right)
                   </p>
                 </mat-expansion-panel>
               </mat-card-content>
@@ -143,7 +140,10 @@ export default class WorkReviewPage {
   protected readonly summary = computed(() => this.view()?.assignment.work[0] ?? null);
   protected readonly statusLabels = STATUS_LABELS;
   protected readonly statusIcons = STATUS_ICONS;
-  protected readonly time = utcText;
+  /** Times on this browser's clock, with the zone named. */
+  protected readonly time = (iso: string) => localTimeText(iso);
+  protected readonly withUnit = withUnit;
+  protected readonly suffix = unitSuffix;
 
   constructor() {
     effect(() => void this.load(this.id(), this.userId()));
