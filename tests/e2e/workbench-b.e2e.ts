@@ -429,7 +429,8 @@ describe('pins-rolls page', () => {
     await expectSaneInput(page, 'Included angle β', ['abc', '0', '180', '-90', ''], ['90']);
     await chooseKind(page, 'Taper from readings at two heights');
     await expectSaneInput(page, 'Height difference ΔH', ['h', '0', '-2', ''], ['2']);
-    await expectSaneInput(page, 'Upper reading M₂', ['1.2500'], ['1.15']);
+    // Equal readings are parallel sides (0°), so only unreadable or non-positive readings are refused.
+    await expectSaneInput(page, 'Upper reading M₂', ['abc', '-1.15', '0', ''], ['1.2500', '1.15']);
     await chooseKind(page, 'Internal taper with two balls');
     await expectSaneInput(page, 'Its top below the face h₂', ['deep', '0.1'], ['2']);
     expect(realProblems(o)).toEqual([]);
