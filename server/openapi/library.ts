@@ -9,7 +9,7 @@ const decimal = { type: 'string', pattern: '^-?\\d{1,6}(\\.\\d{1,6})?$' };
 
 const check = {
   type: 'object', required: ['key', 'label', 'unit', 'nominal', 'plus', 'minus'],
-  properties: { key: { type: 'string' }, label: { type: 'string' }, unit: { enum: ['in', 'mm', 'deg'] }, nominal: decimal, plus: decimal, minus: decimal },
+  properties: { key: { type: 'string' }, label: { type: 'string' }, unit: { enum: ['in', 'mm', 'deg'] }, nominal: { ...decimal, description: '0 or more (a size or angle measured on the part; 0 for flatness, runout…); an angle under 360' }, plus: decimal, minus: decimal },
 };
 const setup = {
   type: 'object',
@@ -46,15 +46,15 @@ const setupBody = { type: 'object', required: ['name', 'kind', 'inputs', 'versio
 const conflict = { description: 'Stale version: {error, version, setup}', ...json({ type: 'object', properties: { error: { type: 'string' }, version: { type: 'integer' }, setup } }) };
 const inventoryPaths = (path: string, what: string) => ({
   [`/api/inventories/${path}`]: {
-    post: { summary: `Add a ${what} set from a standard composition or a list of blocks (admin or lead)`, parameters: csrf, requestBody: json({ type: 'object', required: ['name'], properties: { name: { type: 'string' }, standardSet: { type: 'string' }, blocks: { type: 'array', items: { type: 'object', properties: { size: decimal, count: { type: 'integer' } } } }, unit: { enum: ['in', 'mm'] }, grade: { type: ['string', 'null'] }, wearBlockSize: decimal, wearBlockCount: { type: 'integer' }, notes: { type: 'string' } } }), responses: { 201: { description: 'Created', ...json(inventorySet) }, 400: err('Invalid fields (unknown standard set, …)'), 403: err('Not an admin or lead'), 409: err('Name taken') } },
+    post: { summary: `Add a ${what} set from a standard composition or a list of blocks (admin or lead)`, parameters: csrf, requestBody: json({ type: 'object', required: ['name'], properties: { name: { type: 'string' }, standardSet: { type: 'string' }, blocks: { type: 'array', items: { type: 'object', properties: { size: decimal, count: { type: 'integer' } } } }, unit: { enum: ['in', 'mm'] }, grade: { type: ['string', 'null'] }, wearBlockSize: decimal, wearBlockCount: { enum: [0, 2], description: 'Wear blocks come as a pair (one for each end of a stack) with a thickness, or none; a thickness alone means the pair' }, notes: { type: 'string' } } }), responses: { 201: { description: 'Created', ...json(inventorySet) }, 400: err('Invalid fields (unknown standard set, …)'), 403: err('Not an admin or lead'), 409: err('Name taken') } },
   },
   [`/api/inventories/${path}/{id}`]: {
     get: { summary: `One ${what} set with its blocks`, parameters: id, responses: { 200: { description: 'Set', ...json(inventorySet) }, 404: err('Unknown or another team\'s') } },
-    put: { summary: 'Change name, grade, wear blocks, notes (admin or lead)', parameters: [...id, ...csrf], requestBody: json({ type: 'object', required: ['name', 'version'] }), responses: { 200: { description: 'Updated', ...json(inventorySet) }, 403: err('Not an admin or lead'), 409: err('Stale version') } },
-    delete: { summary: 'Delete the set (admin)', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: err('Not an admin') } },
+    put: { summary: 'Change name, grade, wear blocks, notes (admin or lead); wear blocks are a pair with a thickness or none', parameters: [...id, ...csrf], requestBody: json({ type: 'object', required: ['name', 'version'] }), responses: { 200: { description: 'Updated', ...json(inventorySet) }, 400: err('Invalid fields (a wear-block count other than 0 or 2, a count without a thickness, …)'), 403: err('Not an admin or lead'), 409: err('Stale version') } },
+    delete: { summary: 'Delete the set (admin); refused while any saved set-up of the team, of any status, names it ("box:<id>")', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: err('Not an admin'), 409: err('Saved set-ups use the set: how many, and the first names') } },
   },
   [`/api/inventories/${path}/{id}/blocks/{blockId}`]: {
-    patch: { summary: 'Mark blocks missing or damaged, change the count or note (admin or lead)', parameters: [...id, { in: 'path', name: 'blockId', required: true, schema: { type: 'integer' } }, ...csrf], requestBody: json({ type: 'object', properties: { count: { type: 'integer' }, missing: { type: 'integer' }, damaged: { type: 'integer' }, note: { type: 'string' } } }), responses: { 200: { description: 'The set after the change', ...json(inventorySet) }, 400: err('Missing + damaged exceed the count') } },
+    patch: { summary: 'Mark blocks missing or damaged, change the count or note (admin or lead)', parameters: [...id, { in: 'path', name: 'blockId', required: true, schema: { type: 'integer' } }, ...csrf], requestBody: json({ type: 'object', properties: { count: { type: 'integer' }, missing: { type: 'integer' }, damaged: { type: 'integer' }, note: { type: 'string', maxLength: 200, description: 'Why blocks are missing or damaged; trimmed' } } }), responses: { 200: { description: 'The set after the change', ...json(inventorySet) }, 400: err('Missing + damaged exceed the count, or a note over 200 characters') } },
   },
 });
 
@@ -80,9 +80,9 @@ export const libraryPaths = {
   '/api/setups/{id}': {
     get: { summary: 'One set-up', parameters: id, responses: { 200: { description: 'Set-up', ...json(setup) }, 404: err('Unknown, another team\'s, or a draft you may not see') } },
     put: { summary: 'Change a set-up: version is required; editing released content makes a new draft for a lead to release; archived set-ups are read-only', parameters: [...id, ...csrf], requestBody: json(setupBody), responses: { 200: { description: 'Updated', ...json(setup) }, 400: err('Invalid fields (version missing, …)'), 403: err('Not yours to change'), 404: err('Unknown'), 409: conflict } },
-    delete: { summary: 'Delete a set-up and its files (refused with 409 when it has batch runs)', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: err('Not yours to delete'), 404: err('Unknown'), 409: err('Has batch runs: archive instead') } },
+    delete: { summary: 'Delete a draft that was never released, and its files (owner, lead or admin); a released or archived set-up, one released once (releasedVersion), or one with batch runs is refused with 409: a lead archives it instead', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: err('Not yours to delete'), 404: err('Unknown'), 409: err('Released, archived, released once or with batch runs: archive instead') } },
   },
-  '/api/setups/{id}/release': { post: { summary: 'Release (lead or admin); body {version?}', parameters: [...id, ...csrf], responses: { 200: { description: 'Released', ...json(setup) }, 403: err('Not a lead or admin'), 404: err('Unknown'), 409: conflict } } },
+  '/api/setups/{id}/release': { post: { summary: 'Release (lead or admin); body {version?}', parameters: [...id, ...csrf], responses: { 200: { description: 'Released', ...json(setup) }, 403: err('Not a lead or admin'), 404: err('Unknown'), 409: conflict, 422: err('Does not compute (with the reason: the team box it names is gone, …) or a check value has a negative nominal') } } },
   '/api/setups/{id}/archive': { post: { summary: 'Archive (lead or admin); body {version?}', parameters: [...id, ...csrf], responses: { 200: { description: 'Archived', ...json(setup) }, 403: err('Not a lead or admin'), 409: conflict } } },
   '/api/setups/{id}/revisions': { get: { summary: 'History: who, when, what changed (newest first)', parameters: id, responses: { 200: { description: '{revisions: [{id, version, action, status, userId, userName, createdAt, changes: [{field, from, to}]}]}' } } } },
   '/api/setups/{id}/export': { get: { summary: 'The set-up as a JSON file {format: "slantwise.setup/1", exportedAt, source, setup}', parameters: id, responses: { 200: { description: 'Download (Content-Disposition: attachment)' } } } },
@@ -107,7 +107,7 @@ export const libraryPaths = {
   ...inventoryPaths('gauge-sets', 'gauge-block'),
   ...inventoryPaths('angle-sets', 'angle-block'),
   '/api/inventories/gauge-sets/{id}/stack': {
-    get: { summary: 'Fewest-block stack from the blocks in the box (missing and damaged left out; wear blocks unless wear=no)', parameters: [...id, { in: 'query', name: 'target', required: true, schema: decimal }, q('grade', { enum: ['K', '0', '1', '2'] }, 'Grade for the tolerance'), q('wear', { enum: ['yes', 'no'] }, 'Use the set\'s wear blocks')], responses: { 200: { description: 'The gauge-stack answer of /api/calc/gauge-stack plus inventory and excluded' }, 400: err('Bad target'), 422: err('The box cannot make it') } },
+    get: { summary: 'Fewest-block stack from the blocks in the box (missing and damaged left out; wear blocks unless wear=no)', parameters: [...id, { in: 'query', name: 'target', required: true, schema: decimal }, q('grade', { enum: ['K', '0', '1', '2'] }, 'Grade for the tolerance'), q('wear', { enum: ['yes', 'no'] }, 'Use the set\'s wear blocks')], responses: { 200: { description: 'The gauge-stack answer of /api/calc/gauge-stack plus inventory and excluded' }, 400: err('Bad target: each field\'s message leaves out its name ("must be at most 100000"); the error is the sentence'), 422: err('The box cannot make it') } },
   },
   '/api/inventories/angle-sets/{id}/combination': {
     get: { summary: 'Fewest angle blocks (added or reversed) from the blocks in the box', parameters: [...id, { in: 'query', name: 'angle', required: true, schema: { type: 'string' } }], responses: { 200: { description: 'The angle-blocks answer plus inventory and excluded' }, 400: err('Bad angle') } },

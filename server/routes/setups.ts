@@ -1,7 +1,7 @@
 import { Router, type Request, type Response } from 'express';
-import type { Sequelize } from 'sequelize';
+import { Transaction, type Sequelize } from 'sequelize';
 import {
-  SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
+  nominalProblem, SETUP_EXPORT_FORMAT, setupCreateBody, setupImportBody, setupListQuery, setupStatusBody, setupUpdateBody,
   type SetupExportDto, type SetupStatus,
 } from '../../shared/api/setup';
 import { setupResults } from '../../shared/library/setup-results';
@@ -15,7 +15,7 @@ import { Setup } from '../models/setup';
 import { SetupRevision } from '../models/setup-revision';
 import { Team } from '../models/team';
 import { User } from '../models/user';
-import { canChangeSetup, canReleaseSetup, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
+import { canChangeSetup, canReleaseSetup, deleteRefusal, findVisibleSetup, NOT_IN_TEAM } from '../services/setup-access';
 import { listOwners, listSetupsJson, readVisibleSetupJson } from '../services/setup-reads';
 import { contentOf, diffContent, recordRevision } from '../services/setup-history';
 import { renderSetupSheet } from '../services/setup-sheet';
@@ -155,6 +155,15 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
       if (!results.ok && !results.pageOnly) {
         throw new HttpError(422, `This set-up does not compute, so it cannot be released: ${results.error}. Open it in its calculator, correct the inputs and save it again.`);
       }
+      // Check values saved before their nominals were checked (a minus sign on a thickness) would fail every part.
+      const fields: Record<string, string> = {};
+      setup.checks.forEach((check, i) => {
+        const problem = nominalProblem(check.unit, check.nominal);
+        if (problem) fields[`checks.${i}.nominal`] = `${check.label}: ${problem}`;
+      });
+      if (Object.keys(fields).length) {
+        throw new HttpError(422, `This set-up cannot be released: ${Object.values(fields).join(' ')} Correct the check values under Edit details and save them.`, fields);
+      }
     }
     const stamp = to === 'released' ? { releasedAt: new Date(), releasedById: user.id, releasedVersion: setup.version + 1 } : {};
     const stale = await sequelize.transaction(async (transaction) => {
@@ -212,11 +221,19 @@ export function createSetupsRouter({ sequelize, storage, config }: LibraryDeps):
     const user = currentUser(req);
     const setup = await findVisibleSetup(parseId(req.params['id']), user);
     if (!canChangeSetup(user, setup)) throw new HttpError(403, 'You may only delete your own set-ups.');
-    if ((await BatchRun.count({ where: { setupId: setup.id } })) > 0) {
-      throw new HttpError(409, 'This set-up has batch runs on record; archive it instead of deleting it.');
-    }
-    const files = await Attachment.findAll({ where: { setupId: setup.id } });
-    await setup.destroy();
+    // The row is held while it is checked and deleted: a release or a run started meanwhile waits.
+    const files = await sequelize.transaction(async (transaction) => {
+      const row = await Setup.findOne({ where: { id: setup.id, teamId: user.teamId }, lock: Transaction.LOCK.UPDATE, transaction });
+      if (!row) throw new HttpError(404, NOT_IN_TEAM);
+      const refusal = deleteRefusal(row);
+      if (refusal) throw new HttpError(409, refusal);
+      if ((await BatchRun.count({ where: { setupId: row.id }, transaction })) > 0) {
+        throw new HttpError(409, 'This set-up has batch runs on record, so it cannot be deleted. Archive it instead (a lead or an admin archives set-ups).');
+      }
+      const attached = await Attachment.findAll({ where: { setupId: row.id }, transaction });
+      await row.destroy({ transaction });
+      return attached;
+    });
     for (const f of files) {
       await storage.delete(f.storageKey);
       if (f.thumbnailKey) await storage.delete(f.thumbnailKey);

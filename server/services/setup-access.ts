@@ -35,6 +35,19 @@ export function canChangeSetup(user: User, setup: Setup): boolean {
   return user.role === 'admin' || user.role === 'lead' || setup.ownerId === user.id;
 }
 
+/**
+ * Why a set-up may not be deleted by anyone, or null: only a draft that was never released may go.
+ * A released or archived set-up, or one that was released once (its sheet and runs were in use),
+ * is archived by a lead instead, so the shop's record stays. (A set-up with batch runs is refused
+ * too; the route counts them.)
+ */
+export function deleteRefusal(setup: Pick<Setup, 'status' | 'releasedVersion'>): string | null {
+  if (setup.status === 'released') return 'This set-up is released, so it cannot be deleted. Archive it instead (a lead or an admin archives set-ups).';
+  if (setup.status === 'archived') return 'This set-up is archived and stays on record, so it cannot be deleted.';
+  if ((setup.releasedVersion ?? null) !== null) return `Version ${setup.releasedVersion} of this set-up was released, so it cannot be deleted. Archive it instead (a lead or an admin archives set-ups).`;
+  return null;
+}
+
 /** Who may release or archive a set-up: a lead or an admin of the team (not the owner as such). */
 export function canReleaseSetup(user: User, setup: Setup): boolean {
   return setup.teamId === user.teamId && (user.role === 'admin' || user.role === 'lead');

@@ -105,7 +105,9 @@ export function sketchFor(kind: string, saved: Record<string, unknown>, results:
     if (L && a !== null && a >= 0 && a < 90) return sineBarSketch(L, a, `${String(v['stackHeight'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
   }
   if (kind === 'gauge-blocks' && Array.isArray(v['blocks']) && v['blocks'].length > 0) {
-    return gaugeStackSketch(v['blocks'].map(String), `${String(v['total'] ?? '')} ${String(v['unit'] ?? '')}`.trim());
+    // Sizes from `blocks`; a wear block named as the answer names it (`labels`).
+    const labels = Array.isArray(v['labels']) ? v['labels'].map(String) : undefined;
+    return gaugeStackSketch(v['blocks'].map(String), `${String(v['total'] ?? '')} ${String(v['unit'] ?? '')}`.trim(), labels);
   }
   if (kind === 'angle-blocks' && Array.isArray(v['blocks']) && v['blocks'].length > 0) {
     const blocks = (v['blocks'] as Array<Record<string, unknown>>).map((b) => ({ angleDeg: num(b['angleDeg']) ?? 0, label: String(b['angle'] ?? ''), reversed: b['direction'] === 'reverse' }));

@@ -66,6 +66,14 @@ describe('sheet-drawing', () => {
     });
   });
 
+  describe('gaugeStackSketch with wear blocks', () => {
+    it('should keep the wringing order and label each block by its name', () => {
+      const sketch = gaugeStackSketch(['0.050', '1.000', '0.100', '0.050'], '1.200 in', ['0.050 wear', '1.000', '0.100', '0.050 wear']);
+      expect(sketch.shapes.filter((s) => s.style === 'block').map((s) => s.label)).toEqual(['0.050 wear', '1.000', '0.100', '0.050 wear']);
+      expect(sketch.title).toMatch(/wear block at each end/);
+    });
+  });
+
   describe('gaugeStackSketch', () => {
     const blocks = ['0.1002', '3.000', '0.126', '0.750'];
     const sketch = gaugeStackSketch(blocks, '3.9762 in');
@@ -455,6 +463,18 @@ describe('sheet-drawing', () => {
       if (!engine.ok) throw new Error(engine.error);
       const sketch = sketchFor('gauge-blocks', inputs, setupResults('gauge-blocks', inputs));
       expect(sketch?.shapes.filter((s) => s.style === 'block').map((s) => s.label).sort()).toEqual([...engine.value.blocks].sort());
+    });
+    it('should name the wear blocks of a stack as the answer does, a wear block at each end, sizes from the blocks', () => {
+      // 2.1 in between two 0.050 wear blocks of the 81-piece set (derived: 2.000 in left for the set's own blocks).
+      const inputs = { unit: 'in', target: '2.1', set: 'inch-81', missing: '', wearBlocks: '0.050', grade: '', temperature: '' };
+      const results = setupResults('gauge-blocks', inputs);
+      if (!results.ok) throw new Error(results.error);
+      const drawn = sketchFor('gauge-blocks', inputs, results)!.shapes.filter((s) => s.style === 'block');
+      expect(drawn.map((s) => s.label)).toEqual(results.value['labels']);
+      expect([drawn[0]?.label, drawn.at(-1)?.label]).toEqual(['0.050 wear', '0.050 wear']);
+      // Drawn bottom first, each block as high as its size (or the least drawn height), from `blocks`.
+      const heights = drawn.map((s) => (s.points[2]?.y ?? 0) - (s.points[0]?.y ?? 0));
+      expect(heights[1]).toBeGreaterThan(heights[0]!);
     });
     it('should label the taper length as the engine printed it, with its unit', () => {
       // Derived: (1.0 − 0.9) / 0.05019583 in per inch = 1.9922 in (MT3 taper per inch from REFERENCE.md §4.2).

@@ -165,11 +165,15 @@ export function sineBarSketch(barLength: number, angleDeg: number, stackLabel: s
 /**
  * A gauge-block stack as wrung, largest block at the bottom, each block labelled with its size and
  * the total beside it. Thin blocks get a minimum drawn height so each label has room: the sketch
- * shows the order and the sizes, not the proportions.
+ * shows the order and the sizes, not the proportions. With wear blocks (`labels` naming them, as
+ * the answer does: "0.050 wear"), the stack is drawn in its wringing order, a wear block at each end.
  */
-export function gaugeStackSketch(blocks: readonly string[], totalLabel: string): Sketch {
-  const sizes = blocks.map(Number).filter((n) => Number.isFinite(n) && n > 0);
-  const order = [...sizes.keys()].sort((i, j) => sizes[j]! - sizes[i]!);
+export function gaugeStackSketch(blocks: readonly string[], totalLabel: string, labels?: readonly string[]): Sketch {
+  const named = labels && labels.length === blocks.length ? labels : blocks;
+  const wear = named.some((l, i) => l !== blocks[i]);
+  const entries = blocks.map((b, i) => ({ size: Number(b), label: named[i] ?? b })).filter((e) => Number.isFinite(e.size) && e.size > 0);
+  const sizes = entries.map((e) => e.size);
+  const order = wear ? [...sizes.keys()] : [...sizes.keys()].sort((i, j) => sizes[j]! - sizes[i]!);
   const total = sizes.reduce((a, b) => a + b, 0);
   const minH = total * 0.08;
   const w = Math.max(total * 0.35, minH * 3);
@@ -177,11 +181,12 @@ export function gaugeStackSketch(blocks: readonly string[], totalLabel: string):
   let y = 0;
   for (const i of order) {
     const h = Math.max(sizes[i]!, minH);
-    shapes.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y }, { x: w, y }, { x: w, y: y + h }, { x: 0, y: y + h }], label: blocks[i], labelAt: { x: w * 0.05, y: y + h / 2 } });
+    shapes.push({ kind: 'polygon', style: 'block', points: [{ x: 0, y }, { x: w, y }, { x: w, y: y + h }, { x: 0, y: y + h }], label: entries[i]!.label, labelAt: { x: w * 0.05, y: y + h / 2 } });
     y += h;
   }
   shapes.push({ kind: 'dimension', style: 'mark', points: [{ x: w * 1.3, y: 0 }, { x: w * 1.3, y }], label: totalLabel });
-  return { title: 'Gauge-block stack, largest block at the bottom (block heights not to scale)', shapes, box: bounds(shapes) };
+  const title = wear ? 'Gauge-block stack as wrung, a wear block at each end, largest block next (block heights not to scale)' : 'Gauge-block stack, largest block at the bottom (block heights not to scale)';
+  return { title, shapes, box: bounds(shapes) };
 }
 
 /**

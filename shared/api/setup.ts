@@ -90,7 +90,28 @@ export const setupCheckSchema = z.object({
   nominal: decimalText('Nominal'),
   plus: decimalText('Plus tolerance', { min0: true }),
   minus: decimalText('Minus tolerance', { min0: true }),
+}).superRefine((check, ctx) => {
+  // A size or an angle measured on the part is never below 0 (a minus sign is a slip: every reading
+  // would then fail). 0 stays for what is measured from zero, such as flatness or runout.
+  const problem = nominalProblem(check.unit, check.nominal);
+  if (problem) ctx.addIssue({ code: 'custom', path: ['nominal'], message: problem });
 });
+
+/**
+ * What is wrong with a check's nominal for its unit, or null: lengths and angles measured on a part
+ * are 0 or more, and an angle under 360°. (Nominal text that is not a decimal is reported by its own rule.)
+ */
+export function nominalProblem(unit: string, nominal: string): string | null {
+  if (!DECIMAL_TEXT.test(nominal)) return null;
+  const value = Number(nominal);
+  if (unit === 'deg') {
+    if (value < 0) return 'Nominal must be 0° or more: an angle measured on the part has no sign.';
+    if (value >= 360) return 'Nominal must be under 360°.';
+    return null;
+  }
+  if (value < 0) return `Nominal must be 0 or more: a size measured on the part is never below 0 ${unit}. Take off the minus sign.`;
+  return null;
+}
 
 const checks = z
   .array(setupCheckSchema, { error: 'Checks must be a list.' })

@@ -200,14 +200,54 @@ describe('setupResults', () => {
     }
   });
 
-  it('should give tapers per foot in in/ft and per inch as a ratio of lengths, as the lathe page does', () => {
+  it('should give tapers as the lathe page does: per foot and per inch for inch work, a ratio and per mm of length for mm work', () => {
     // REFERENCE.md §4.2 (Machinery's Handbook "Morse Taper Shanks"): MT3 0.60235 in/ft; k = TPF/12 = 0.050196.
     const inch = setupResults('lathe-taper', { unit: 'in', taperPerFoot: '0.60235', workLength: '6' });
     const mm = setupResults('lathe-taper', { unit: 'mm', taperPerFoot: '0.60235', workLength: '150' });
     expect(inch.ok && mm.ok).toBe(true);
     if (!inch.ok || !mm.ok) return;
     expect(inch.lines).toEqual(expect.arrayContaining([{ label: 'Taper per foot', value: '0.60235 in/ft' }, { label: 'Taper per inch', value: '0.050196 in/in' }]));
-    expect(mm.lines).toEqual(expect.arrayContaining([{ label: 'Taper per foot', value: '0.60235 in/ft' }, { label: 'Taper per inch', value: '0.050196 mm/mm' }]));
+    // 1/k = 1/0.050196 = 19.922 (derived): the ratio as the engine writes it, and k per mm of length.
+    expect(mm.lines).toEqual(expect.arrayContaining([{ label: 'Taper ratio', value: mm.value['ratio'] }, { label: 'Taper per mm of length', value: '0.050196 mm/mm' }]));
+    expect(mm.value['ratio']).toMatch(/^1:19\.92/);
+    expect(mm.lines.map((l) => l.label)).not.toEqual(expect.arrayContaining(['Taper per foot']));
+    expect(mm.lines.map((l) => l.label)).not.toContain('Taper per inch');
+    expect(mm.lines.map((l) => l.value).join(' ')).not.toMatch(/in\/ft/);
+  });
+
+  it('should name wear blocks in the stack as the gauge-block page does, keeping the sizes for the sketch', () => {
+    // 2.1 in from the 81-piece set between two 0.050 wear blocks: 2.000 in left for the set's own blocks (derived).
+    const r = setupResults('gauge-blocks', { unit: 'in', target: '2.1', set: 'inch-81', missing: '', wearBlocks: '0.050', grade: '', temperature: '' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.stack?.[0]).toBe('0.050 wear');
+    expect(r.stack?.at(-1)).toBe('0.050 wear');
+    expect(r.value['blocks']).toEqual(expect.arrayContaining(['0.050']));
+    expect((r.value['blocks'] as string[]).every((b) => /^\d+\.\d+$/.test(b))).toBe(true);
+    expect(r.lines.map((l) => l.label)).not.toContain('Labels');
+  });
+
+  it('should not compute a set-up whose team box is gone, naming the box so; with no boxes at hand it is left to the page', () => {
+    const boxed = { unit: 'in', target: '1.2011', set: 'box:12', missing: '', wearBlocks: '', grade: '', temperature: '' };
+    const gone = setupResults('gauge-blocks', boxed, new Map());
+    expect(gone).toEqual({ ok: false, boxGone: true, error: "Gauge blocks: the team's box it was saved with (no. 12) is no longer in the team's inventory, so its blocks cannot be picked" });
+    expect(inputRows('gauge-blocks', boxed, gone)).toContainEqual({ label: 'Set', value: 'a box since deleted (no. 12)' });
+    // A box of that number of the wrong kind is not it either.
+    const angles: TeamBox = { id: 12, type: 'angle-blocks', name: 'Angles', unit: 'deg', grade: null, wearBlockSize: null, wearBlockCount: 0, blocks: [] };
+    expect(setupResults('gauge-blocks', boxed, new Map([[12, angles]]))).toMatchObject({ ok: false, boxGone: true });
+    expect(setupResults('angle-blocks', { mode: 'find', set: 'box:3', angle: '10', combination: '' }, new Map())).toMatchObject({ ok: false, error: expect.stringMatching(/^Angle blocks: the team's box .*no\. 3/) });
+    const sine = setupResults('sine-bar', { unit: 'in', mode: 'angle', barLength: '5', angle: '10', stackHeight: '', set: 'box:12', missing: '' }, new Map());
+    expect(sine).toMatchObject({ ok: false, boxGone: true });
+    // Not loaded (no boxes given): answered on the page only, as before.
+    expect(setupResults('gauge-blocks', boxed)).toMatchObject({ ok: false, pageOnly: true });
+  });
+
+  it('should leave empty inputs out of the list', () => {
+    const boxed = { unit: 'in', target: '1.2011', set: 'box:12', missing: '', wearBlocks: '', grade: '', temperature: '' };
+    const labels = inputRows('gauge-blocks', boxed, setupResults('gauge-blocks', boxed)).map((r) => r.label);
+    expect(labels).toEqual(expect.arrayContaining(['Target', 'Set']));
+    expect(labels).not.toEqual(expect.arrayContaining(['Missing']));
+    expect(labels.filter((l) => /Missing|Wear|Temperature|Grade/.test(l))).toEqual([]);
   });
 
   it('should pass on the engine\'s message for inputs without an answer', () => {

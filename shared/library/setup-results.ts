@@ -52,8 +52,11 @@ export type SetupResults =
       /** A taper's passes: the depth of each cut and the DRO reading after it, or null. */
       passes: Array<{ pass: number; cut: string; reading: string }> | null;
     }
-  /** `pageOnly`: the set-up is sound but answered on its calculator page only (a sine table, a team box…). */
-  | { ok: false; error: string; pageOnly?: true };
+  /**
+   * `pageOnly`: the set-up is sound but answered on its calculator page only (a sine table, a team
+   * box not at hand…); `boxGone`: the team's box it names is no longer in the team's inventory.
+   */
+  | { ok: false; error: string; pageOnly?: true; boxGone?: true };
 
 type Engine = (input: unknown) => CalcResult<object>;
 
@@ -67,14 +70,14 @@ const ENGINES: Readonly<Partial<Record<string, Engine>>> = {
   'pins-rolls': calculateOverPins,
 };
 
-const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'blocks', 'blocksA', 'blocksB', 'lastDigit', 'tolerance', 'temperature', 'unit']);
+const SKIP = new Set(['steps', 'warnings', 'cautions', 'exact', 'passes', 'blocks', 'labels', 'blocksA', 'blocksB', 'lastDigit', 'tolerance', 'temperature', 'unit']);
 
 export { labelOf };
 
 /**
  * A result figure with its unit: lengths in the set-up's unit; tapers as the workbench pages give
- * them — per foot in in/ft (for mm work the same ratio: diameter change per 12 units of length),
- * per inch as a ratio of lengths; angles and other text as they are.
+ * them — per foot in in/ft, per inch as a ratio of lengths (a metric lathe taper is listed by its
+ * ratio and per mm of length instead, see `setupResults`); angles and other text as they are.
  */
 function withUnit(key: string, v: string, unit: string): string {
   if (/deg$|Dms$|ArcSec$/i.test(key) || !/^[\d.-]+$/.test(v)) return v;
@@ -96,6 +99,9 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
   const named = namedBox(kind, inputs);
   const found = named ? boxes?.get(named.id) : undefined;
   const box = named && found && found.type === named.type ? found : null;
+  // The team's boxes are at hand and the one it names is not among them: deleted (or another
+  // team's). Its blocks cannot be picked, so the set-up does not compute until it is saved again.
+  if (named && boxes && !box) return { ok: false, error: goneBox(named), boxGone: true };
   const request = savedRequest(kind, inputs, box);
   if (!request.ok) return request.fields['body'] === OPEN_ON_PAGE ? { ok: false, error: request.error, pageOnly: true } : { ok: false, error: request.error };
   const result = engine(request.value);
@@ -109,8 +115,15 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
   const unit = typeof value['unit'] === 'string' ? ` ${value['unit']}` : '';
   const lines: ResultLine[] = [];
   const chamfer = kind === 'taper' && value['shape'] === 'chamfer';
+  const metricLathe = kind === 'lathe-taper' && unit.trim() === 'mm';
   for (const [key, v] of Object.entries(value)) {
     if (SKIP.has(key)) continue;
+    // A metric lathe taper as its page gives it: a ratio and a taper per mm of length, never per foot.
+    if (metricLathe && key === 'taperPerFoot') continue;
+    if (metricLathe && (key === 'taperPerInch' || key === 'ratio') && typeof v === 'string' && v !== '') {
+      lines.push(key === 'ratio' ? { label: 'Taper ratio', value: v } : { label: 'Taper per mm of length', value: `${v} mm/mm` });
+      continue;
+    }
     if (typeof v === 'string' && v !== '') lines.push({ label: labelIn(key, chamfer), value: SET_KEYS.has(key) || key === 'shape' ? namedValue(kind, key, v, box) : withUnit(key, v, unit) });
     else if (typeof v === 'number') lines.push({ label: labelIn(key, chamfer), value: String(v) });
   }
@@ -128,8 +141,11 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
     }
   }
   lines.push(...figureLines(value, unit.trim()));
+  // The stack as the gauge-block page names it: a wear block says so ("0.050 wear"), from `labels`.
   const blocks = value['blocks'];
-  const stack = Array.isArray(blocks) && blocks.every((b) => typeof b === 'string') ? (blocks as string[]) : null;
+  const labels = value['labels'];
+  const strings = (list: unknown): list is string[] => Array.isArray(list) && list.every((b) => typeof b === 'string');
+  const stack = strings(blocks) ? (strings(labels) && labels.length === blocks.length ? labels : blocks) : null;
   const list = (k: string) => (Array.isArray(value[k]) ? (value[k] as unknown[]).filter((x): x is string => typeof x === 'string') : []);
   return {
     ok: true, value, input, lines, stack, steps: Array.isArray(value['steps']) ? (value['steps'] as Step[]) : [], warnings: list('warnings'), cautions: list('cautions'),
@@ -137,6 +153,12 @@ export function setupResults(kind: string, inputs: Record<string, unknown>, boxe
     box: box ? { id: box.id, name: box.name } : null,
     passes: passesOf(value),
   };
+}
+
+/** Why a set-up naming a box that is no longer in the team's inventory does not compute. */
+function goneBox(named: { id: number; type: TeamBox['type'] }): string {
+  const area = named.type === 'angle-blocks' ? 'Angle blocks' : 'Gauge blocks';
+  return `${area}: the team's box it was saved with (no. ${named.id}) is no longer in the team's inventory, so its blocks cannot be picked`;
 }
 
 /**
@@ -257,11 +279,13 @@ export function listedInputs(kind: string, saved: Record<string, unknown>, resul
  */
 export function inputRows(kind: string, saved: Record<string, unknown>, results: SetupResults): Array<{ label: string; value: string }> {
   const box = results.ok ? results.box : null;
-  const listed = listedInputs(kind, saved, results);
+  const gone = !results.ok && results.boxGone === true;
+  // Empty fields (no blocks missing, no wear blocks, no temperature) are not listed.
+  const listed = listedInputs(kind, saved, results).filter(([, v]) => inputText(v).trim() !== '');
   const unit = [saved['unit'], results.ok ? results.value['unit'] : undefined].find((u): u is string => u === 'in' || u === 'mm');
   const chamfer = kind === 'taper' && listed.some(([k, v]) => k === 'shape' && v === 'chamfer');
   return listed.map(([key, value]) => {
-    const text = namedValue(kind, key, value, box);
+    const text = namedValue(kind, key, value, box, gone);
     return { label: labelIn(key, chamfer), value: unit && LENGTH_INPUTS.has(key) && /^[\d.]+$/.test(text) ? `${text} ${unit}` : text };
   });
 }
@@ -291,11 +315,11 @@ const AXIS_LABELS: Readonly<Record<string, string>> = {
 };
 
 /** A set, standard taper or holding id by its name; anything else as `inputText` gives it. */
-function namedValue(kind: string, key: string, value: unknown, known: { id: number; name: string } | null): string {
+function namedValue(kind: string, key: string, value: unknown, known: { id: number; name: string } | null, gone = false): string {
   if (typeof value === 'string' && value !== '') {
     if (key === 'shape') return value === 'chamfer' ? 'Chamfer or bevel on an edge' : value === 'taper' ? 'Taper' : value;
     const box = boxIdOf(value);
-    if (box !== null) return known?.id === box ? `Our box: ${known.name}` : `the team's own box (no. ${box})`;
+    if (box !== null) return known?.id === box ? `Our box: ${known.name}` : gone ? `a box since deleted (no. ${box})` : `the team's own box (no. ${box})`;
     if (key === 'holding') return HOLDING_OPTIONS.find((o) => o.value === value)?.label ?? value;
     if (key === 'standard') return findMachineTaper(value)?.name ?? value;
     if (key === 'angleSet' || (key === 'set' && kind === 'angle-blocks')) return findAngleBlockSet(value)?.name ?? value;

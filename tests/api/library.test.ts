@@ -1,4 +1,5 @@
-import { BatchRun, Setup, SetupRevision } from '../../server/models';
+import { BatchRun, InventorySet, Setup, SetupRevision } from '../../server/models';
+import type { SetupCheck } from '../../shared/api/setup';
 import { SETUP_PEOPLE } from '../../server/services/setup-access';
 import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
 import { pdfText } from '../support/pdf-text';
@@ -241,6 +242,42 @@ describe('set-up library', () => {
       expect((await post(c.lead, `/api/setups/${page.body.id}/release`).expect(200)).body.status).toBe('released');
     });
 
+    it('should refuse to release a set-up whose team box is gone (422, naming the box), and print no stale stack', async () => {
+      const form = { unit: 'in', target: '1.2011', missing: '', wearBlocks: '', grade: '', temperature: '' };
+      const box = await post(c.admin, '/api/inventories/gauge-sets', { name: 'Crib box, soon gone', standardSet: 'inch-81' }).expect(201);
+      const s = await create(c.machinist, { name: 'Stack from a box that goes', kind: 'gauge-blocks', inputs: { ...form, set: `box:${box.body.id}` }, checks }).expect(201);
+      // The box is deleted behind the set-up's back (as the inventory allowed before it checked for set-ups).
+      await InventorySet.destroy({ where: { id: box.body.id } });
+      const refused = await post(c.lead, `/api/setups/${s.body.id}/release`).expect(422);
+      expect(refused.body.error).toBe(`This set-up does not compute, so it cannot be released: Gauge blocks: the team's box it was saved with (no. ${box.body.id}) is no longer in the team's inventory, so its blocks cannot be picked. Open it in its calculator, correct the inputs and save it again.`);
+      expect((await Setup.findByPk(s.body.id))?.status).toBe('draft');
+      const text = pdfText((await sheet(c.machinist, s.body.id)).body as Buffer);
+      expect(text).toContain(`a box since deleted (no. ${box.body.id})`);
+      expect(text).toMatch(/is\s+no\s+longer\s+in\s+the\s+team's\s+inventory/);
+      // Another team's box of a number is not this team's either.
+      const theirs = await post(c.foreign, '/api/inventories/gauge-sets', { name: 'Their box', standardSet: 'inch-81' }).expect(201);
+      const borrowed = await create(c.machinist, { name: 'Stack from their box', kind: 'gauge-blocks', inputs: { ...form, set: `box:${theirs.body.id}` } }).expect(201);
+      expect((await post(c.lead, `/api/setups/${borrowed.body.id}/release`).expect(422)).body.error).toMatch(/no longer in the team's inventory/);
+    });
+
+    it('should refuse a negative check nominal when saved (beside the field) and when released', async () => {
+      const minus = [{ ...checks[0]!, nominal: '-0.4209' }];
+      const res = await create(c.machinist, { name: 'Minus thickness', checks: minus }).expect(400);
+      expect(res.body.fields).toEqual({ 'checks.0.nominal': 'Nominal must be 0 or more: a size measured on the part is never below 0 in. Take off the minus sign.' });
+      const angle = await create(c.machinist, { name: 'Minus angle', checks: [{ key: 'angle', label: 'Taper angle', unit: 'deg', nominal: '-7.5', plus: '0.1', minus: '0.1' }] }).expect(400);
+      expect(angle.body.fields).toEqual({ 'checks.0.nominal': 'Nominal must be 0° or more: an angle measured on the part has no sign.' });
+      // 0 stays for what is measured from zero (flatness, runout), and a plain size is taken.
+      const flat = [{ key: 'flatness', label: 'Flatness', unit: 'in', nominal: '0', plus: '0.0005', minus: '0' }, { ...checks[0]!, nominal: '0.4209' }];
+      const ok = await create(c.machinist, { name: 'Plain checks', checks: flat }).expect(201);
+      expect(ok.body.checks.map((x: { nominal: string }) => x.nominal)).toEqual(['0', '0.4209']);
+      // One saved before the rule (written straight to the table) is not released.
+      const old = await create(c.machinist, { name: 'Old minus thickness', checks }).expect(201);
+      await Setup.update({ checks: minus as SetupCheck[] }, { where: { id: old.body.id } });
+      const refused = await post(c.lead, `/api/setups/${old.body.id}/release`).expect(422);
+      expect(refused.body.fields).toEqual({ 'checks.0.nominal': 'End thickness: Nominal must be 0 or more: a size measured on the part is never below 0 in. Take off the minus sign.' });
+      expect((await Setup.findByPk(old.body.id))?.status).toBe('draft');
+    });
+
     it('should keep an apprentice\'s set-up a draft until a lead releases it', async () => {
       const s = await create(c.apprentice, { name: 'Apprentice bevel' }).expect(201);
       expect(s.body.status).toBe('draft');
@@ -433,11 +470,11 @@ describe('set-up library', () => {
       expect(text).toContain('Blocks from our box "Inch set, sheet crib"');
       expect(text).toContain('Our box: Inch set, sheet crib');
       expect(text).not.toContain('open the set-up in its calculator');
-      // Another team's box of that number is never read: the set-up is then answered on its page only.
+      // Another team's box of that number is never read: for that team it is not in its inventory.
       const theirs = await post(c.foreign, '/api/setups', { name: 'Their stack', kind: 'gauge-blocks', inputs: form }).expect(201);
       const foreignText = pdfText((await sheet(c.foreign, theirs.body.id)).body as Buffer);
       expect(foreignText).not.toContain('sheet crib');
-      expect(foreignText).toContain('open the set-up in its calculator');
+      expect(foreignText).toMatch(/no\s+longer\s+in\s+the\s+team's\s+inventory/);
       // A box with every block out of use cannot make it: the set-up is not released.
       const empty = await post(c.admin, '/api/inventories/gauge-sets', { name: 'Empty crib', blocks: [{ size: '0.1', count: 1 }], unit: 'in' }).expect(201);
       await c.admin.agent.patch(`/api/inventories/gauge-sets/${empty.body.id}/blocks/${empty.body.blocks[0].id}`).set('X-CSRF-Token', c.admin.token).send({ damaged: 1 }).expect(200);
@@ -462,6 +499,11 @@ describe('set-up library', () => {
       const res = await c.machinist.agent.delete(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.machinist.token).expect(409);
       expect(res.body.error).toMatch(/archive/);
       expect(await BatchRun.count({ where: { setupId: s.body.id } })).toBe(1);
+      // Even a draft with no release on record (set so by hand here) keeps its runs.
+      await Setup.update({ status: 'draft', releasedVersion: null }, { where: { id: s.body.id } });
+      const again = await c.machinist.agent.delete(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.machinist.token).expect(409);
+      expect(again.body.error).toMatch(/^This set-up has batch runs on record, so it cannot be deleted\. Archive it instead/);
+      expect(await Setup.count({ where: { id: s.body.id } })).toBe(1);
     });
   });
 });

@@ -90,8 +90,40 @@ describe('/api/setups', () => {
     await Setup.update({ status: 'released' }, { where: { id: own.body.id } });
     await c.apprentice.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.apprentice.token).expect(403);
     await c.other.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.other.token).expect(403);
+    // Released: nobody deletes it (a lead archives it instead).
+    await c.lead.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.lead.token).expect(409);
+    // A draft that was never released: the owner's lead may delete it.
+    await Setup.update({ status: 'draft' }, { where: { id: own.body.id } });
+    await c.other.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.other.token).expect(404); // another's draft: not visible
     await c.lead.agent.delete(`/api/setups/${own.body.id}`).set('X-CSRF-Token', c.lead.token).expect(204);
     await c.lead.agent.get(`/api/setups/${own.body.id}`).expect(404);
+  });
+
+  it('refuses to delete a released, archived or once-released set-up, for the owner and for a lead alike (409), and keeps it', async () => {
+    const del = (who: Client, id: number) => who.agent.delete(`/api/setups/${id}`).set('X-CSRF-Token', who.token);
+    const post = (who: Client, path: string) => who.agent.post(path).set('X-CSRF-Token', who.token).send({});
+    const s = await create(c.machinist, { name: 'Team wedge', kind: 'taper', inputs: taper }).expect(201);
+    await post(c.lead, `/api/setups/${s.body.id}/release`).expect(200);
+    for (const who of [c.machinist, c.lead, c.admin]) {
+      const res = await del(who, s.body.id).expect(409);
+      expect(res.body.error).toBe('This set-up is released, so it cannot be deleted. Archive it instead (a lead or an admin archives set-ups).');
+    }
+    // Revised after its release: a draft again, but its released version is in use.
+    const edited = await c.machinist.agent.put(`/api/setups/${s.body.id}`).set('X-CSRF-Token', c.machinist.token).send({ name: 'Team wedge, revised', kind: 'taper', inputs: taper, version: 2 }).expect(200);
+    expect(edited.body).toMatchObject({ status: 'draft', releasedVersion: 2 });
+    expect((await del(c.machinist, s.body.id).expect(409)).body.error).toMatch(/^Version 2 of this set-up was released, so it cannot be deleted\. Archive it instead/);
+    await del(c.lead, s.body.id).expect(409);
+    await post(c.lead, `/api/setups/${s.body.id}/archive`).expect(200);
+    expect((await del(c.admin, s.body.id).expect(409)).body.error).toMatch(/archived/);
+    // A draft a lead archived without releasing it stays on record too.
+    const shelved = await create(c.machinist, { name: 'Shelved draft', kind: 'taper', inputs: taper }).expect(201);
+    await post(c.lead, `/api/setups/${shelved.body.id}/archive`).expect(200);
+    await del(c.machinist, shelved.body.id).expect(409);
+    expect(await Setup.count({ where: { id: [s.body.id, shelved.body.id] } })).toBe(2);
+    // The owner's own draft, never released, may go.
+    const junk = await create(c.machinist, { name: 'Junk draft', kind: 'taper', inputs: taper }).expect(201);
+    await del(c.machinist, junk.body.id).expect(204);
+    expect(await Setup.findByPk(junk.body.id)).toBeNull();
   });
 
   it('lets an apprentice keep and delete their own draft, hidden from other non-leads', async () => {

@@ -128,7 +128,7 @@ describe('hostile text in stored fields', () => {
   it('neutralises formula cells in the batch CSV (labels, operator names, notes) and keeps negative numbers as numbers', async () => {
     // An operator whose name starts like a formula (names come from accepted invitations).
     await User.update({ name: '=cmd|\' /C calc\'!A0' }, { where: { id: m.machinist.id } });
-    const checks = [{ key: 'face', label: '=1+1 face', unit: 'in', nominal: '-0.0020', plus: '0.0010', minus: '0.0010' }];
+    const checks = [{ key: 'face', label: '=1+1 face', unit: 'in', nominal: '0', plus: '0.0010', minus: '0.0010' }];
     const s = await send(c.lead, 'post', '/api/setups', { name: 'CSV check', kind: 'taper', inputs: { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' }, checks }).expect(201);
     await send(c.lead, 'post', `/api/setups/${s.body.id}/release`, {}).expect(200);
     const run = await send(c.machinist, 'post', '/api/batches', { setupId: s.body.id, partCount: FORMULA.length }).expect(201);

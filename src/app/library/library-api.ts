@@ -95,6 +95,11 @@ export class LibraryApi {
     return this.http.post<unknown>(`/api/setups/${id}/archive`, { version }).pipe(map(parseSetup));
   }
 
+  /** Deletes a draft that was never released; a refusal (409) comes back to the caller to show. */
+  remove(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/setups/${id}`, { context: quietErrors() });
+  }
+
   revisions(id: number): Observable<RevisionDto[]> {
     return this.http.get<{ revisions: RevisionDto[] }>(`/api/setups/${id}/revisions`).pipe(map((r) => r.revisions ?? []));
   }

@@ -176,4 +176,68 @@ describe('LibraryPage address', () => {
     expect(search.value).toBe('');
     expect(router.url).toBe('/library');
   });
+
+  it('should hand the list as it is to the set-up a row opens, for its link back', async () => {
+    await openAt('/library?q=wedge&sort=name&dir=asc&page=2&size=10');
+    await listParams();
+    const router = TestBed.inject(Router);
+    const go = jest.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+    (harness.routeNativeElement!.querySelector('a.name') as HTMLAnchorElement).click();
+    expect(go).toHaveBeenCalledWith(expect.anything(), expect.objectContaining({ state: { libraryList: { q: 'wedge', sort: 'name', dir: 'asc', page: '2', size: '10' } } }));
+  });
+});
+
+describe('LibraryPage import', () => {
+  let http: HttpTestingController;
+  let harness: RouterTestingHarness;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 'library', component: LibraryPage }, { path: 'library/:id', component: LibraryPage }]), provideHttpClient(), provideHttpClientTesting(),
+        { provide: Auth, useValue: { user: signal(ME), signedIn: signal(true) } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+    harness = await RouterTestingHarness.create('/library');
+    http.expectOne('/api/setups/owners').flush({ owners: [] });
+  });
+
+  afterEach(() => {
+    http.match(() => true).filter((r) => !r.cancelled).forEach((r) => r.flush({ setups: [], total: 0, page: 1, pageSize: 25 }));
+    document.querySelectorAll('.cdk-overlay-container').forEach((c) => (c.innerHTML = ''));
+  });
+
+  /** Picks a file in the import input (its text as given). */
+  async function pick(name: string, text: string): Promise<void> {
+    const input = harness.routeNativeElement!.querySelector('input[type=file]') as HTMLInputElement;
+    Object.defineProperty(input, 'files', { configurable: true, value: [{ name, text: () => Promise.resolve(text) }] });
+    input.dispatchEvent(new Event('change'));
+    await new Promise((r) => setTimeout(r, 0));
+    harness.detectChanges();
+  }
+  const alert = () => harness.routeNativeElement!.querySelector('.import-error')?.textContent?.trim() ?? null;
+
+  it('should say why an import failed until the next import, and confirm a successful one', async () => {
+    await pick('notes.txt', 'not json');
+    expect(alert()).toContain('Import of "notes.txt" failed: the file is not a set-up exported from Slantwise (not valid JSON).');
+    await pick('old.json', '{"format":"other"}');
+    http.expectOne('/api/setups/import').flush({ error: 'This is not a set-up export.' }, { status: 400, statusText: 'Bad Request' });
+    harness.detectChanges();
+    expect(alert()).toContain('Import of "old.json" failed: This is not a set-up export.');
+    await pick('wedge.json', '{"format":"slantwise.setup/1"}');
+    // The old message goes as soon as the next import starts.
+    expect(alert()).toBeNull();
+    http.expectOne('/api/setups/import').flush(setup(41, 'Imported wedge', 'draft'));
+    await harness.fixture.whenStable();
+    expect(TestBed.inject(Router).url).toBe('/library/41');
+    expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent?.trim()).toMatch(/^Imported "Imported wedge" as a draft\./);
+  });
+
+  it('should let the failure message be dismissed', async () => {
+    await pick('notes.txt', 'not json');
+    (harness.routeNativeElement!.querySelector('.import-error button') as HTMLButtonElement).click();
+    harness.detectChanges();
+    expect(alert()).toBeNull();
+  });
 });

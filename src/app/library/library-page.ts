@@ -10,6 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
@@ -18,9 +19,8 @@ import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import { SETUP_KINDS, SETUP_STATUSES, type SetupOwnerDto, type SetupPageDto, type SetupSort, type SetupStatus } from '../../../shared/api/setup';
 import { apiErrorDetail } from '../core/api-error';
 import { Auth } from '../core/auth';
-import { ErrorNotice } from '../core/error-notice';
 import { KIND_AREAS, LibraryApi, STATUS_LABELS, type LibraryQuery } from './library-api';
-import { type LibraryView, PAGE_SIZES, paramsOfView, sameView, viewFromParams } from './library-url';
+import { type LibraryReturnState, type LibraryView, PAGE_SIZES, paramsOfView, sameView, viewFromParams } from './library-url';
 
 /** The set-up library: the team's set-ups with search, filters, sort and server-side paging. */
 @Component({
@@ -37,7 +37,7 @@ export default class LibraryPage {
   private readonly api = inject(LibraryApi);
   private readonly auth = inject(Auth);
   private readonly router = inject(Router);
-  private readonly notice = inject(ErrorNotice);
+  private readonly snackBar = inject(MatSnackBar);
   private readonly route = inject(ActivatedRoute);
   /** The view the address asks for (filters, sort, page), so going back to the list finds it as it was. */
   private readonly initial = viewFromParams((name) => this.route.snapshot.queryParamMap.get(name));
@@ -65,6 +65,8 @@ export default class LibraryPage {
   protected readonly pageIndex = signal(this.initial.pageIndex);
   protected readonly pageSize = signal(this.initial.pageSize);
   protected readonly importing = signal(false);
+  /** Why the last import failed, shown above the list until the next import or until dismissed. */
+  protected readonly importError = signal<string | null>(null);
 
   /** The query the filters make; any change goes back to page 1 except paging itself. */
   protected readonly query = computed<LibraryQuery>(() => ({
@@ -115,6 +117,9 @@ export default class LibraryPage {
     pageIndex: this.pageIndex(),
     pageSize: this.pageSize(),
   }));
+
+  /** What a row hands the set-up it opens, so its "Set-up library" link comes back to this list as it is. */
+  protected readonly returnState = computed<LibraryReturnState>(() => ({ libraryList: paramsOfView(this.view()) }));
 
   constructor() {
     toObservable(this.result).subscribe((r) => {
@@ -187,24 +192,32 @@ export default class LibraryPage {
     this.pageIndex.set(0);
   }
 
-  /** Reads an exported set-up file and imports it as a draft of this team. */
+  /** Reads an exported set-up file and imports it as a draft of this team, saying how it went. */
   protected async importFile(input: HTMLInputElement): Promise<void> {
     const file = input.files?.[0];
     input.value = '';
     if (!file) return;
     this.importing.set(true);
-    try {
-      const json: unknown = JSON.parse(await file.text());
-      this.api.import(json).subscribe({
-        next: (setup) => void this.router.navigate(['/library', setup.id]),
-        error: (err: unknown) => {
-          this.importing.set(false);
-          void this.notice.show(`Import failed: ${apiErrorDetail(err)}`);
-        },
-      });
-    } catch {
+    this.importError.set(null);
+    const failed = (why: string) => {
       this.importing.set(false);
-      void this.notice.show('Import failed: the file is not a set-up exported from Slantwise (not valid JSON).');
+      this.importError.set(`Import of "${file.name}" failed: ${why}`);
+    };
+    let json: unknown;
+    try {
+      json = JSON.parse(await file.text());
+    } catch {
+      failed('the file is not a set-up exported from Slantwise (not valid JSON).');
+      return;
     }
+    this.api.import(json).subscribe({
+      next: (setup) => {
+        this.importing.set(false);
+        // Replaces any message still open (an earlier failure, say).
+        this.snackBar.open(`Imported "${setup.name}" as a draft.`, 'OK', { duration: 6_000, politeness: 'polite' });
+        void this.router.navigate(['/library', setup.id], { state: this.returnState() });
+      },
+      error: (err: unknown) => failed(apiErrorDetail(err)),
+    });
   }
 }

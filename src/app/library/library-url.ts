@@ -88,3 +88,23 @@ export function paramsOfView(view: LibraryView): Params {
 export function sameView(a: LibraryView, b: LibraryView): boolean {
   return JSON.stringify(paramsOfView(a)) === JSON.stringify(paramsOfView(b));
 }
+
+/** The navigation state a list row hands to the set-up it opens: the list's address parameters. */
+export interface LibraryReturnState {
+  readonly libraryList: Params;
+}
+
+/**
+ * The list's address parameters a set-up page was opened with (navigation state), checked as an
+ * address is, for its "Set-up library" link: so going back finds the list as it was. Empty (the
+ * plain list) for anything else.
+ */
+export function returnParams(state: unknown): Params {
+  const list = typeof state === 'object' && state !== null ? (state as Partial<LibraryReturnState>).libraryList : undefined;
+  if (typeof list !== 'object' || list === null) return {};
+  const get = (name: string): string | null => {
+    const v: unknown = (list as Record<string, unknown>)[name];
+    return typeof v === 'string' ? v : null;
+  };
+  return paramsOfView(viewFromParams(get));
+}

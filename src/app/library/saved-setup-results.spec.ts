@@ -106,11 +106,10 @@ describe('a set-up saved from its calculator page', () => {
       expect(r.ok && r.warnings).toContain('The box cannot make a 0.0009 in stack; raise both rolls on equal stacks and build the difference, or change the angle slightly.');
       expect(r.ok && r.stack).toBeNull();
     });
-    it('should not pick blocks from a box of another kind or not named', () => {
+    it('should not pick blocks from a box of another kind or not named: the box it names is not in the inventory', () => {
       const angleBox: TeamBox = { ...gaugeBox(7), type: 'angle-blocks' };
       const r = setupResults('sine-bar', { ...SINE_BAR_DEFAULTS, set: 'box:7' }, boxes(angleBox, gaugeBox(8)));
-      expect(r.ok && r.box).toBeNull();
-      expect(r.ok && r.stack).toBeNull();
+      expect(r).toMatchObject({ ok: false, boxGone: true, error: expect.stringMatching(/no\. 7\) is no longer in the team's inventory/) });
     });
     it('should send a table set-up to its page rather than answer something else', () => {
       const r = saved('sine-bar', { ...SINE_BAR_DEFAULTS, mode: 'table' });

@@ -10,10 +10,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { Router, RouterLink } from '@angular/router';
+import { type Params, Router, RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 
-import type { BatchRunDto } from '../../../shared/api/batch';
+import { batchCreateBody, type BatchRunDto } from '../../../shared/api/batch';
 import { CHECK_UNITS, type AttachmentDto, type RevisionDto, type SetupCheck, type SetupDto } from '../../../shared/api/setup';
 import { inputRows, setupResults, type ResultLine } from '../../../shared/library/setup-results';
 import { type TeamBoxes, namedBox, teamBoxOf } from '../../../shared/library/team-boxes';
@@ -25,6 +25,7 @@ import { BatchesApi } from '../batches/batches-api';
 import { checkFromResult, checkKey, DEFAULT_TOLERANCE } from './check-suggestions';
 import { historyFieldLabel } from './history-field';
 import { attachmentUrl, exportUrl, KIND_AREAS, LibraryApi, sheetUrl, STATUS_LABELS, thumbnailUrl } from './library-api';
+import { returnParams } from './library-url';
 
 /** Largest upload the page lets through before asking the server (the server has the final say). */
 const MAX_UPLOAD_MB = 20;
@@ -44,6 +45,12 @@ export default class SetupDetailPage {
   private readonly auth = inject(Auth);
   private readonly notice = inject(ErrorNotice);
   private readonly router = inject(Router);
+
+  /**
+   * The list's address this page was opened from (its filters, sort and page, handed over by the
+   * list's row link), for the "Set-up library" link back to it as it was.
+   */
+  protected readonly listParams: Params = returnParams(this.router.currentNavigation()?.extras.state ?? (typeof history === 'undefined' ? null : history.state));
 
   /** Route parameter `:id`. */
   readonly id = input.required({ transform: numberAttribute });
@@ -67,7 +74,10 @@ export default class SetupDetailPage {
       .map(([, message]) => message),
   );
   protected readonly draft = signal<{ name: string; job: string; notes: string; checks: SetupCheck[] }>({ name: '', job: '', notes: '', checks: [] });
-  protected readonly partCount = signal(8);
+  /** The part count as typed (checked with the API's own rule before it is sent). */
+  protected readonly partCount = signal('8');
+  /** What is wrong with the part count (the form's check, or the server's), shown under the field. */
+  protected readonly partCountError = signal<string | null>(null);
   /** The run's name as typed (empty: the server names it after the job and the part count). */
   protected readonly runLabel = signal('');
   protected readonly startError = signal<string | null>(null);
@@ -80,8 +90,12 @@ export default class SetupDetailPage {
   protected readonly thumbnailUrl = thumbnailUrl;
 
   protected readonly area = computed(() => KIND_AREAS[this.setup()?.kind ?? ''] ?? null);
-  /** The team box the set-up names, with what is in it now (empty: none named, not loaded or gone). */
-  protected readonly boxes = signal<TeamBoxes>(new Map());
+  /**
+   * The team box the set-up names, with what is in it now: a map without it when it is gone (not in
+   * the team's inventory), undefined while it is asked for or could not be read (then the set-up is
+   * answered on its page only).
+   */
+  protected readonly boxes = signal<TeamBoxes | undefined>(undefined);
   /** Whether that box is being asked for. */
   protected readonly boxLoading = signal(false);
   protected readonly results = computed(() => {
@@ -102,6 +116,16 @@ export default class SetupDetailPage {
     const u = this.auth.user();
     return !!s && !!u && s.status !== 'archived' && (this.isLead() || s.ownerId === u.id);
   });
+  /**
+   * Whether this member may delete the set-up: a draft that was never released and has no runs, by
+   * its owner or a lead (the server has the same rule; anything else is archived by a lead).
+   */
+  protected readonly mayDelete = computed(() => {
+    const s = this.setup();
+    const u = this.auth.user();
+    return !!s && !!u && s.status === 'draft' && s.releasedVersion === null && this.runs().length === 0 && (this.isLead() || s.ownerId === u.id);
+  });
+  protected readonly deleteError = signal<string | null>(null);
   protected readonly mayRun = computed(() => this.setup()?.status === 'released' && (this.setup()?.checks.length ?? 0) > 0 && this.role() !== 'apprentice');
 
   constructor() {
@@ -132,15 +156,16 @@ export default class SetupDetailPage {
       this.boxes.set(new Map());
       return;
     }
-    if (this.boxes().has(named.id)) return;
+    if (this.boxes()?.has(named.id)) return;
     this.boxLoading.set(true);
     this.inventory.get(named.type, named.id, true).subscribe({
       next: (set) => {
         this.boxes.set(new Map([[set.id, teamBoxOf(set)]]));
         this.boxLoading.set(false);
       },
-      error: () => {
-        this.boxes.set(new Map());
+      error: (err: unknown) => {
+        // Not in the team's inventory (deleted): said as such. Unreadable for now: left to the page.
+        this.boxes.set(err instanceof HttpErrorResponse && err.status === 404 ? new Map() : undefined);
         this.boxLoading.set(false);
       },
     });
@@ -299,14 +324,45 @@ export default class SetupDetailPage {
     });
   }
 
+  protected setPartCount(text: string): void {
+    this.partCount.set(text);
+    this.partCountError.set(null);
+  }
+
   protected startRun(): void {
     const s = this.setup();
     if (!s) return;
     this.startError.set(null);
+    // The API's own rule, so the reason is said here before anything is sent.
+    const text = String(this.partCount() ?? '').trim();
+    const count = batchCreateBody.shape.partCount.safeParse(text === '' ? undefined : Number(text));
+    if (!count.success) {
+      this.partCountError.set(count.error.issues[0]?.message ?? 'Say how many parts the batch has.');
+      return;
+    }
+    this.partCountError.set(null);
     const label = this.runLabel().trim();
-    this.batches.start({ setupId: s.id, partCount: this.partCount(), ...(label ? { label } : {}) }).subscribe({
+    this.batches.start({ setupId: s.id, partCount: count.data, ...(label ? { label } : {}) }).subscribe({
       next: (run) => void this.router.navigate(['/batches', run.id]),
-      error: (err: unknown) => this.startError.set(apiErrorMessage(err)),
+      error: (err: unknown) => {
+        const fields = apiFieldErrors(err);
+        if (fields['partCount']) this.partCountError.set(fields['partCount']);
+        const others = Object.entries(fields).filter(([k]) => k !== 'partCount').map(([, m]) => m);
+        const message = apiErrorMessage(err);
+        this.startError.set(fields['partCount'] && others.length === 0 ? null : [message, ...others.filter((m) => !message.includes(m))].join(' '));
+      },
+    });
+  }
+
+  /** Deletes a draft that was never released, after asking; back to the list it came from. */
+  protected remove(): void {
+    const s = this.setup();
+    if (!s || !this.mayDelete()) return;
+    if (!confirm(`Delete the draft "${s.name}"? It is removed from the library with its files and history, and cannot be brought back.`)) return;
+    this.deleteError.set(null);
+    this.api.remove(s.id).subscribe({
+      next: () => void this.router.navigate(['/library'], { queryParams: this.listParams }),
+      error: (err: unknown) => this.deleteError.set(`The set-up was not deleted: ${apiErrorMessage(err)}`),
     });
   }
 
