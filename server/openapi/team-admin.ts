@@ -65,7 +65,7 @@ export const teamAdminPaths = {
     post: {
       summary: 'Accept an invitation: choose a name and password (public, single use)',
       parameters: csrf,
-      requestBody: json({ type: 'object', required: ['token', 'name', 'password'], properties: { token: { type: 'string' }, name: { type: 'string' }, password: { type: 'string', minLength: 10 } } }),
+      requestBody: json({ type: 'object', required: ['token', 'name', 'password'], properties: { token: { type: 'string' }, name: { type: 'string' }, password: { type: 'string', minLength: 10, maxLength: 200, description: 'Not only spaces.' } } }),
       responses: { 201: { description: 'The new member', ...json({ type: 'object', properties: { user: member } }) }, 400: errorResponse('Invalid fields'), 404: unknown, 409: errorResponse('The address already has an account'), 410: gone },
     },
   },
@@ -84,7 +84,7 @@ export const teamAdminPaths = {
     post: {
       summary: 'Set a new password with a reset link (single use, 1 hour); ends every session of the account',
       parameters: csrf,
-      requestBody: json({ type: 'object', required: ['token', 'password'], properties: { token: { type: 'string' }, password: { type: 'string', minLength: 10 } } }),
+      requestBody: json({ type: 'object', required: ['token', 'password'], properties: { token: { type: 'string' }, password: { type: 'string', minLength: 10, maxLength: 200, description: 'Not only spaces.' } } }),
       responses: { 204: { description: 'Password changed' }, 400: errorResponse('Invalid fields'), 404: unknown, 410: gone },
     },
   },

@@ -76,7 +76,8 @@ export function batchCsv(run: BatchRun, parts: readonly BatchPart[]): string {
       csvCell(p.correctedAt ? p.correctedAt.toISOString() : ''), csvCell(p.correctedAt ? (p.correctedBy?.name ?? '') : '', true), csvCell(firstRecordedText(p.firstRecorded, checks), true),
     ].join(','));
   }
-  return `${lines.join('\r\n')}\r\n`;
+  // A UTF-8 byte-order mark first, so spreadsheet programs read accents and emoji in names as UTF-8.
+  return `\uFEFF${lines.join('\r\n')}\r\n`;
 }
 
 /** /api/batches: batch runs of released set-ups, part by part. */

@@ -1,12 +1,13 @@
 import { Router, type Request } from 'express';
-import { Op, type Sequelize } from 'sequelize';
-import { blockSetDetailErrors, inventoryAngleQuery, inventoryBlockPatch, inventoryCreateBody, inventoryStackQuery, inventoryUpdateBody, type InventoryListDto, type InventoryType } from '../../shared/api/inventory';
+import { col, Op, where as columnWhere, type Sequelize } from 'sequelize';
+import { blockSetDetailErrors, inventoryAngleQuery, inventoryBlockPatch, inventoryCreateBody, inventoryStackQuery, inventoryUpdateBody, STACK_QUERY_FIELDS, wearBlocksAfter, type InventoryListDto, type InventoryType } from '../../shared/api/inventory';
 import { calculateAngleBlocks } from '../../shared/calc/angle-blocks';
 import { calculateGaugeStack } from '../../shared/calc/gauge-stack';
 import { currentUser } from '../middleware/auth';
 import { HttpError } from '../middleware/http-error';
 import { parseBody, parseId } from '../middleware/validate';
 import { InventoryBlock, InventorySet } from '../models/inventory';
+import { Setup } from '../models/setup';
 import type { User } from '../models/user';
 import { blockLabel, blockSizeError } from '../../shared/forms/block-list';
 import { findComposition, sizeOrder, standardCompositions, type StartingBlock } from '../services/inventory-blocks';
@@ -22,12 +23,34 @@ function requireManager(user: User): void {
   if (!MANAGERS.has(user.role)) throw new HttpError(403, 'Only an admin or a lead may change the shop\'s block sets.');
 }
 
-function parseQuery<T>(schema: { safeParse(v: unknown): { success: true; data: T } | { success: false; error: { issues: Array<{ path: PropertyKey[]; message: string }> } } }, query: unknown): T {
+/**
+ * Parses a query, or throws a 400 whose fields say what is wrong without their names (the page
+ * puts its own label before them) and whose message is the first of them as a sentence.
+ */
+function parseQuery<T>(schema: { safeParse(v: unknown): { success: true; data: T } | { success: false; error: { issues: Array<{ path: PropertyKey[]; message: string }> } } }, query: unknown, names: Readonly<Record<string, string>> = {}): T {
   const parsed = schema.safeParse(query);
   if (parsed.success) return parsed.data;
   const fields: Record<string, string> = {};
   for (const issue of parsed.error.issues) fields[issue.path.map(String).join('.') || '_'] ??= issue.message;
-  throw new HttpError(400, Object.values(fields)[0] ?? 'Some query parameters are not valid.', fields);
+  const [first] = Object.entries(fields);
+  const sentence = first ? (names[first[0]] ? `${names[first[0]]} ${first[1]}.` : first[1]) : 'Some query parameters are not valid.';
+  throw new HttpError(400, sentence, fields);
+}
+
+/** Every string in a JSON value (a set-up's inputs), to find the box names in it. */
+function stringsIn(value: unknown): string[] {
+  if (typeof value === 'string') return [value];
+  if (Array.isArray(value)) return value.flatMap(stringsIn);
+  if (value !== null && typeof value === 'object') return Object.values(value).flatMap(stringsIn);
+  return [];
+}
+
+/** The team's set-ups (any status) whose inputs name the box `box:<id>`, by name. */
+async function setupsNamingBox(teamId: number, boxId: number): Promise<Setup[]> {
+  const name = `box:${boxId}`;
+  // The LIKE narrows the rows; the inputs are then read, so "box:12" never matches "box:123".
+  const rows = await Setup.findAll({ where: { teamId, [Op.and]: [columnWhere(col('inputs'), { [Op.like]: `%"${name}"%` })] }, attributes: ['id', 'name', 'inputs'], order: [['name', 'ASC'], ['id', 'ASC']] });
+  return rows.filter((s) => stringsIn(s.inputs).includes(name));
 }
 
 const label = (set: InventorySet) => (b: InventoryBlock) => blockLabel(set.unit, b.size);
@@ -80,7 +103,8 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       } else {
         throw new HttpError(400, 'Some fields are not valid.', { standardSet: 'Start from a standard set or list the blocks.' });
       }
-      const details = blockSetDetailErrors(type, unit, body);
+      const wear = wearBlocksAfter({ wearBlockSize: null, wearBlockCount: 0 }, body);
+      const details = blockSetDetailErrors(type, unit, { ...body, ...wear });
       if (Object.keys(details).length > 0) throw new HttpError(400, 'Some fields are not valid.', details);
       if (await InventorySet.findOne({ where: { teamId: user.teamId, type, name: body.name } })) {
         throw new HttpError(409, 'Your team already has a set with that name.', { name: 'Choose another name.' });
@@ -88,7 +112,7 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       const ordered = [...blocks].sort((a, b) => sizeOrder(a.size).cmp(sizeOrder(b.size)));
       const id = await sequelize.transaction(async (transaction) => {
         const set = await InventorySet.create(
-          { teamId: user.teamId, type, name: body.name, unit, standardSet: body.standardSet ?? null, grade: body.grade ?? null, wearBlockSize: type === 'gauge-blocks' ? (body.wearBlockSize ?? null) : null, wearBlockCount: body.wearBlockCount ?? (body.wearBlockSize ? 2 : 0), notes: body.notes ?? '' },
+          { teamId: user.teamId, type, name: body.name, unit, standardSet: body.standardSet ?? null, grade: body.grade ?? null, wearBlockSize: type === 'gauge-blocks' ? wear.wearBlockSize : null, wearBlockCount: type === 'gauge-blocks' ? wear.wearBlockCount : 0, notes: body.notes ?? '' },
           { transaction },
         );
         await InventoryBlock.bulkCreate(ordered.map((b, i) => ({ setId: set.id, size: sizeOrder(b.size).toString(), position: i + 1, count: b.count })), { transaction });
@@ -108,7 +132,9 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       const set = await findSet(req, type);
       requireManager(user);
       const body = parseBody(inventoryUpdateBody, req.body);
-      const details = blockSetDetailErrors(type, set.unit, body);
+      // The wear blocks are checked as they will stand, so a half-given change cannot leave a count without a thickness.
+      const wear = wearBlocksAfter(set, body);
+      const details = blockSetDetailErrors(type, set.unit, { ...body, ...wear });
       if (Object.keys(details).length > 0) throw new HttpError(400, 'Some fields are not valid.', details);
       if (await InventorySet.findOne({ where: { teamId: user.teamId, type, name: body.name, id: { [Op.ne]: set.id } } })) {
         throw new HttpError(409, 'Your team already has a set with that name.', { name: 'Choose another name.' });
@@ -117,8 +143,8 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
         {
           name: body.name,
           grade: body.grade === undefined ? set.grade : body.grade,
-          wearBlockSize: type === 'gauge-blocks' ? (body.wearBlockSize === undefined ? set.wearBlockSize : body.wearBlockSize) : null,
-          wearBlockCount: body.wearBlockCount ?? set.wearBlockCount,
+          wearBlockSize: type === 'gauge-blocks' ? wear.wearBlockSize : null,
+          wearBlockCount: type === 'gauge-blocks' ? wear.wearBlockCount : 0,
           notes: body.notes ?? set.notes,
           version: set.version + 1,
         },
@@ -156,6 +182,14 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
       const user = currentUser(req);
       const set = await findSet(req, type);
       if (user.role !== 'admin') throw new HttpError(403, 'Only an admin may delete a block set.');
+      // A set-up answered from this box would be left with no blocks to answer from: keep the box.
+      const using = await setupsNamingBox(user.teamId, set.id);
+      if (using.length > 0) {
+        const shown = using.slice(0, 3).map((s) => `"${s.name}"`).join(', ');
+        const more = using.length > 3 ? ` and ${using.length - 3} more` : '';
+        const count = using.length === 1 ? '1 saved set-up uses' : `${using.length} saved set-ups use`;
+        throw new HttpError(409, `${count} this set (${shown}${more}) and would lose ${using.length === 1 ? 'its stack' : 'their stacks'}. Save ${using.length === 1 ? 'it' : 'them'} with another set, or delete ${using.length === 1 ? 'it' : 'them'}, first (archived set-ups count too).`);
+      }
       await set.destroy();
       res.status(204).end();
     });
@@ -164,7 +198,7 @@ export function createInventoriesRouter(sequelize: Sequelize): Router {
   // The stack with the fewest blocks from what is in the box: missing and damaged blocks left out.
   router.get('/gauge-sets/:id/stack', async (req, res) => {
     const set = await findSet(req, 'gauge-blocks');
-    const q = parseQuery(inventoryStackQuery, req.query);
+    const q = parseQuery(inventoryStackQuery, req.query, STACK_QUERY_FIELDS);
     const request = boxStackRequest(teamBoxOf(set), { target: q.target, grade: q.grade, wear: q.wear !== 'no' });
     if (!request) throw new HttpError(422, 'Every block of this set is marked missing or damaged.');
     const result = calculateGaugeStack(request);

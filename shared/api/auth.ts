@@ -18,8 +18,31 @@ export const loginBody = z.object({
 });
 export type LoginBody = z.infer<typeof loginBody>;
 
+/** Shortest and longest password anyone may choose. */
+export const PASSWORD_MIN = 10;
+export const PASSWORD_MAX = 200;
+
+/** Messages of the password rule, the same on the server and in the forms. */
+export const PASSWORD_MESSAGES = {
+  min: `Use at least ${PASSWORD_MIN} characters.`,
+  max: `Use at most ${PASSWORD_MAX} characters.`,
+  blank: 'Use letters, digits or signs, not only spaces.',
+} as const;
+
+/**
+ * What is wrong with a chosen password, or null: the rule of every place a password is chosen
+ * (invitation, reset, any change). Spaces count, but a password of spaces only is refused.
+ */
+export function newPasswordProblem(password: string): string | null {
+  if (password.length < PASSWORD_MIN) return PASSWORD_MESSAGES.min;
+  if (password.length > PASSWORD_MAX) return PASSWORD_MESSAGES.max;
+  if (password.trim() === '') return PASSWORD_MESSAGES.blank;
+  return null;
+}
+
 /** Same rule everywhere a password is chosen (invitation, reset). */
 export const newPassword = z
   .string({ error: 'Choose a password.' })
-  .min(10, 'Use at least 10 characters.')
-  .max(200, 'Use at most 200 characters.');
+  .min(PASSWORD_MIN, PASSWORD_MESSAGES.min)
+  .max(PASSWORD_MAX, PASSWORD_MESSAGES.max)
+  .refine((p) => p.trim() !== '', PASSWORD_MESSAGES.blank);

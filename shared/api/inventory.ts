@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_LENGTH } from './calc';
 import { DECIMAL_TEXT, withLeadingZero } from './setup';
 
 /** The two kinds of block set a team keeps. */
@@ -68,7 +69,8 @@ export const inventoryCreateBody = z.object({
   unit: z.enum(['in', 'mm'], { error: 'Unit must be in or mm.' }).optional(),
   grade: z.string({ error: 'Grade must be text.' }).trim().max(20, 'Keep the grade under 20 characters.').nullable().optional(),
   wearBlockSize: sizeText.nullable().optional(),
-  wearBlockCount: count('Wear block count').optional(),
+  // 0 or 2 is checked with the thickness (blockSetDetailErrors), so all wrong details are said at once.
+  wearBlockCount: z.number({ error: 'Wear blocks must be a whole number: 0 or 2.' }).int('Wear blocks must be a whole number: 0 or 2.').min(0, 'Wear blocks must be 0 or 2.').optional(),
   notes: z.string({ error: 'Notes must be text.' }).max(4_000, 'Keep the notes under 4,000 characters.').optional(),
 });
 export type InventoryCreateBody = z.infer<typeof inventoryCreateBody>;
@@ -89,8 +91,29 @@ export function blockSetDetailErrors(type: InventoryType, unit: string, d: { gra
   if (d.grade && !(GAUGE_GRADES as readonly string[]).includes(d.grade)) errors['grade'] = `Grade must be one of ${GAUGE_GRADES.join(', ')} (ISO 3650), or left empty.`;
   const most = MAX_WEAR_BLOCK[unit];
   if (d.wearBlockSize && most !== undefined && Number(d.wearBlockSize) > most) errors['wearBlockSize'] = `A wear block is a thin end block: at most ${most} ${unit}.`;
-  if (d.wearBlockCount !== undefined && d.wearBlockCount > 2) errors['wearBlockCount'] = 'Wear blocks come as a pair: 0, 1 or 2.';
+  // The stack solver puts wear blocks at both ends of a stack, so a set keeps a pair or none.
+  if (d.wearBlockCount !== undefined && d.wearBlockCount !== 0 && d.wearBlockCount !== WEAR_PAIR) errors['wearBlockCount'] = 'Wear blocks come as a pair, one for each end of the stack: 0 or 2.';
+  else if (d.wearBlockCount === WEAR_PAIR && !d.wearBlockSize) errors['wearBlockSize'] = 'Give the thickness of the two wear blocks, or set the wear blocks to 0.';
+  else if (d.wearBlockCount === 0 && d.wearBlockSize) errors['wearBlockCount'] = 'A thickness is given, so say 2 wear blocks, or clear the thickness.';
   return errors;
+}
+
+/** How many wear blocks a set keeps when it keeps any: one for each end of a stack. */
+export const WEAR_PAIR = 2;
+
+/**
+ * The set's wear blocks as they stand after an edit: what the body gives, else what the set has.
+ * A thickness given without a count means the pair; clearing the thickness with no count, none.
+ */
+export function wearBlocksAfter(set: { wearBlockSize: string | null; wearBlockCount: number }, body: { wearBlockSize?: string | null | undefined; wearBlockCount?: number | undefined }): { wearBlockSize: string | null; wearBlockCount: number } {
+  const wearBlockSize = body.wearBlockSize === undefined ? set.wearBlockSize : body.wearBlockSize;
+  const wearBlockCount = body.wearBlockCount ?? (body.wearBlockSize === undefined ? set.wearBlockCount : wearBlockSize ? WEAR_PAIR : 0);
+  return { wearBlockSize, wearBlockCount };
+}
+
+/** Whether a set holds the pair of wear blocks a stack can be built between. */
+export function hasWearPair(set: { type?: InventoryType; wearBlockSize: string | null; wearBlockCount: number }): boolean {
+  return (set.type === undefined || set.type === 'gauge-blocks') && !!set.wearBlockSize && set.wearBlockCount >= WEAR_PAIR;
 }
 
 /** PUT /api/inventories/{gauge,angle}-sets/:id: the set's own fields, with the version it was based on. */
@@ -104,28 +127,49 @@ export const inventoryUpdateBody = z.object({
 });
 export type InventoryUpdateBody = z.input<typeof inventoryUpdateBody>;
 
-/** PATCH …/blocks/:blockId: mark blocks missing or damaged, or change the count. */
+/** Longest note on one block size (why it is missing or damaged). */
+export const BLOCK_NOTE_MAX = 200;
+
+/** PATCH …/blocks/:blockId: mark blocks missing or damaged, change the count, or note why. */
 export const inventoryBlockPatch = z
   .object({
     count: count('Count').optional(),
     missing: count('Missing').optional(),
     damaged: count('Damaged').optional(),
-    note: z.string({ error: 'Note must be text.' }).max(200, 'Keep the note under 200 characters.').optional(),
+    note: z.string({ error: 'Note must be text.' }).trim().max(BLOCK_NOTE_MAX, `Keep the note under ${BLOCK_NOTE_MAX} characters.`).optional(),
   })
   .refine((b) => Object.keys(b).length > 0, 'Send count, missing, damaged or note.');
 export type InventoryBlockPatch = z.infer<typeof inventoryBlockPatch>;
 
 /** Query of GET /api/inventories/gauge-sets/:id/stack. */
 export const inventoryStackQuery = z.object({
+  // Messages say what is wrong without the field's name (as /api/calc does); the page puts its own label before them.
   target: z
-    .string({ error: 'Give the target length.' })
+    .string({ error: 'is empty; type the length, e.g. 2.0084' })
     .trim()
     // ".5" as typed on the shop floor is 0.5.
     .transform(withLeadingZero)
-    .refine((v) => DECIMAL_TEXT.test(v) && Number(v) > 0, 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).'),
-  grade: z.enum(['K', '0', '1', '2'], { error: 'Grade must be one of K, 0, 1, 2.' }).optional(),
-  wear: z.enum(['yes', 'no'], { error: 'Wear must be yes or no.' }).optional(),
+    .superRefine((v, ctx) => {
+      const problem = stackTargetProblem(v);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
+  grade: z.enum(['K', '0', '1', '2'], { error: 'must be one of K, 0, 1, 2' }).optional(),
+  wear: z.enum(['yes', 'no'], { error: 'must be yes or no' }).optional(),
 });
+
+/** Names of the stack query's fields, for the sentence the route answers with. */
+export const STACK_QUERY_FIELDS: Readonly<Record<string, string>> = { target: 'Target', grade: 'Grade', wear: 'Wear' };
+
+/** What is wrong with a typed stack length, said without its name; null when it is a length. */
+function stackTargetProblem(v: string): string | null {
+  if (v === '') return 'is empty; type the length, e.g. 2.0084';
+  if (!/^-?\d+(\.\d+)?$/.test(v)) return 'must be a decimal number such as 2.0084';
+  if (Number(v) <= 0) return 'must be greater than 0';
+  if ((v.split('.')[1] ?? '').length > 6) return 'must have at most 6 decimals';
+  // MAX_LENGTH has no more digits than DECIMAL_TEXT allows, so a length within it is also valid text.
+  if (Number(v) > MAX_LENGTH) return `must be at most ${MAX_LENGTH}`;
+  return null;
+}
 
 /** Query of GET /api/inventories/angle-sets/:id/combination. */
 export const inventoryAngleQuery = z.object({

@@ -271,7 +271,8 @@ describe('/api/batches', () => {
       const res = await c.machinist.agent.get(`/api/batches/${run.id}/export.csv`).expect(200);
       expect(res.headers['content-type']).toBe('text/csv; charset=utf-8');
       expect(res.headers['content-disposition']).toMatch(/attachment; filename="?batch-\d+\.csv"?/);
-      const lines = res.text.trimEnd().split('\r\n');
+      // After the byte-order mark (its own test below).
+      const lines = res.text.replace(/^\uFEFF/, '').trimEnd().split('\r\n');
       expect(lines).toHaveLength(3);
       expect(lines[0]).toBe(
         'part,measured_at_utc,operator,touch_off,dro_at_stop,End thickness (in) [0.5854 +0.0010/-0.0010],Face length (in) [1.2608 +0.005/-0.005],pass,out_of_band,note,corrected_at_utc,corrected_by,first_recorded',
@@ -284,6 +285,22 @@ describe('/api/batches', () => {
       expect(after[2]).toMatch(
         new RegExp(`^2,[^,]+,${m.other.name},0\\.0000,-0\\.1632,0\\.5860,1\\.2610,pass,,,\\d{4}-[^,]+Z,${m.lead.name},touch_off=0\\.0000; dro_at_stop=-0\\.1632; End thickness=0\\.5870; Face length=1\\.2610$`),
       );
+    });
+
+    it('should start the CSV with a UTF-8 byte-order mark so spreadsheets read accents and emoji, formulas still neutralised', async () => {
+      const run = (await post(c.machinist, '/api/batches', { setupId: released, partCount: 1 }).expect(201)).body;
+      await post(c.machinist, `/api/batches/${run.id}/parts`, part('0.5856', '1.2610', { note: '=1+1 Ø écrou 🛠' })).expect(201);
+      const res = await c.machinist.agent.get(`/api/batches/${run.id}/export.csv`).buffer(true).parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (chunk: Buffer) => chunks.push(chunk));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      }).expect(200);
+      const bytes = res.body as Buffer;
+      // EF BB BF is U+FEFF in UTF-8 (RFC 3629); the rest is the text as before.
+      expect([...bytes.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+      const text = bytes.subarray(3).toString('utf8');
+      expect(text.startsWith('part,measured_at_utc,')).toBe(true);
+      expect(text).toContain("'=1+1 Ø écrou 🛠");
     });
   });
 });

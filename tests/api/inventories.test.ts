@@ -1,3 +1,4 @@
+import { Setup } from '../../server/models';
 import { client, makeTeam, openApp, type Client, type Members, type TestApp } from '../support/api';
 
 jest.setTimeout(30_000);
@@ -16,7 +17,7 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-interface Block { id: number; size: string; label: string; count: number; missing: number; damaged: number; available: number }
+interface Block { id: number; size: string; label: string; count: number; missing: number; damaged: number; available: number; note: string }
 
 function send(who: Client, method: 'post' | 'put' | 'patch', path: string, body: object) {
   return who.agent[method](path).set('X-CSRF-Token', who.token).send(body);
@@ -99,13 +100,59 @@ describe('/api/inventories', () => {
 
     it('should answer 400 for a bad target and 422 for one the box cannot make', async () => {
       const bad = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=abc`).expect(400);
-      expect(bad.body).toEqual({ error: 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).', fields: { target: 'Target must be a positive decimal number such as 2.0084 (at most 6 decimals).' } });
+      // The field's message leaves out its name (the page puts its own label before it), as /api/calc does.
+      expect(bad.body).toEqual({ error: 'Target must be a decimal number such as 2.0084.', fields: { target: 'must be a decimal number such as 2.0084' } });
       // ".5" as typed on the shop floor is 0.5.
       const point = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=.5`).expect(200);
       expect(point.body).toMatchObject({ count: 1, total: '0.5000' });
       await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack`).expect(400);
       const far = await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=0.0001`).expect(422);
       expect(far.body.error).toBeTruthy();
+    });
+
+    it('should say what is wrong with a target that is a number but no length for a stack', async () => {
+      const said = async (target: string) => (await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}/stack?target=${encodeURIComponent(target)}`).expect(400)).body;
+      // Positive, but longer than any calculation takes (MAX_LENGTH, shared/api/calc.ts).
+      expect(await said('99999999')).toEqual({ error: 'Target must be at most 100000.', fields: { target: 'must be at most 100000' } });
+      expect((await said('-1')).fields.target).toBe('must be greater than 0');
+      expect((await said('0')).fields.target).toBe('must be greater than 0');
+      expect((await said('1.1234567')).fields.target).toBe('must have at most 6 decimals');
+      expect((await said('')).fields.target).toBe('is empty; type the length, e.g. 2.0084');
+    });
+
+    it('should keep wear blocks as a pair with a thickness, or none, on create and edit', async () => {
+      const made = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: `Wear rule ${Date.now()}`, standardSet: 'inch-36' }).expect(201);
+      let version = made.body.version as number;
+      const put = (body: object) => send(c.lead, 'put', `/api/inventories/gauge-sets/${made.body.id}`, { name: made.body.name, version, ...body });
+      // The stack solver puts a wear block at each end (shared/calc/gauge-stack.ts), so 1 is no use and 3 too many.
+      for (const wearBlockCount of [1, 3, 99_999_999_999]) {
+        const odd = await put({ wearBlockSize: '0.050', wearBlockCount }).expect(400);
+        expect(odd.body.fields).toEqual({ wearBlockCount: 'Wear blocks come as a pair, one for each end of the stack: 0 or 2.' });
+      }
+      const noSize = await put({ wearBlockSize: null, wearBlockCount: 2 }).expect(400);
+      expect(noSize.body.fields).toEqual({ wearBlockSize: 'Give the thickness of the two wear blocks, or set the wear blocks to 0.' });
+      const noCount = await put({ wearBlockSize: '0.050', wearBlockCount: 0 }).expect(400);
+      expect(noCount.body.fields).toEqual({ wearBlockCount: 'A thickness is given, so say 2 wear blocks, or clear the thickness.' });
+      // A count alone on a set without a thickness is refused too, not saved half.
+      await put({ wearBlockCount: 2 }).expect(400);
+      await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: `Wear odd ${Date.now()}`, standardSet: 'inch-36', wearBlockCount: 2 }).expect(400);
+      await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: `Wear one ${Date.now()}`, standardSet: 'inch-36', wearBlockSize: '0.050', wearBlockCount: 1 }).expect(400);
+      expect((await c.admin.agent.get(`/api/inventories/gauge-sets/${made.body.id}`).expect(200)).body).toMatchObject({ wearBlockSize: null, wearBlockCount: 0, version });
+      // A thickness alone is the pair; clearing it alone leaves none.
+      const pair = await put({ wearBlockSize: '0.050' }).expect(200);
+      expect(pair.body).toMatchObject({ wearBlockSize: '0.050', wearBlockCount: 2 });
+      version = pair.body.version;
+      const none = await put({ wearBlockSize: null }).expect(200);
+      expect(none.body).toMatchObject({ wearBlockSize: null, wearBlockCount: 0 });
+    });
+
+    it('should keep a note on a block, trimmed and limited in length', async () => {
+      const block = blockOf(set, '0.1005');
+      const noted = await send(c.lead, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${block.id}`, { note: '  nicked face, sent for lapping  ' }).expect(200);
+      expect(blockOf(noted.body, '0.1005').note).toBe('nicked face, sent for lapping');
+      const long = await send(c.lead, 'patch', `/api/inventories/gauge-sets/${set.id}/blocks/${block.id}`, { note: 'x'.repeat(201) }).expect(400);
+      expect(long.body.fields.note).toBe('Keep the note under 200 characters.');
+      expect(blockOf((await c.machinist.agent.get(`/api/inventories/gauge-sets/${set.id}`).expect(200)).body, '0.1005').note).toBe('nicked face, sent for lapping');
     });
 
     it('should update the set with optimistic concurrency', async () => {
@@ -134,6 +181,29 @@ describe('/api/inventories', () => {
       await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: 'Graded oddly', standardSet: 'inch-36', grade: 'AA' }).expect(400);
       // Angle-block grades are free text.
       await send(c.admin, 'post', '/api/inventories/angle-sets', { name: `Angle box ${Date.now()}`, standardSet: 'angle-16', grade: 'Lab grade' }).expect(201);
+    });
+
+    it('should refuse to delete a box that saved set-ups of any status name, saying how many and which', async () => {
+      const box = await send(c.admin, 'post', '/api/inventories/gauge-sets', { name: `Crib box ${Date.now()}`, standardSet: 'inch-36' }).expect(201);
+      const form = { unit: 'in', target: '1.2011', set: `box:${box.body.id}`, missing: '', wearBlocks: '', grade: '', temperature: '' };
+      const saved: number[] = [];
+      for (const name of ['Stack A', 'Stack B', 'Stack C', 'Stack D']) {
+        saved.push((await send(c.machinist, 'post', '/api/setups', { name, kind: 'gauge-blocks', inputs: form }).expect(201)).body.id);
+      }
+      // A box whose id starts with the same digits is another box: it does not count.
+      const other = { ...form, set: `box:${box.body.id}0` };
+      await send(c.machinist, 'post', '/api/setups', { name: 'Other box', kind: 'gauge-blocks', inputs: other }).expect(201);
+      const del = () => c.admin.agent.delete(`/api/inventories/gauge-sets/${box.body.id}`).set('X-CSRF-Token', c.admin.token);
+      const refused = await del().expect(409);
+      expect(refused.body.error).toBe('4 saved set-ups use this set ("Stack A", "Stack B", "Stack C" and 1 more) and would lose their stacks. Save them with another set, or delete them, first (archived set-ups count too).');
+      await c.admin.agent.get(`/api/inventories/gauge-sets/${box.body.id}`).expect(200);
+      // Archived set-ups count too: they can be restored and printed.
+      await Setup.update({ status: 'archived' }, { where: { id: saved } });
+      await Setup.destroy({ where: { id: saved.slice(1) } });
+      const archived = await del().expect(409);
+      expect(archived.body.error).toMatch(/^1 saved set-up uses this set \("Stack A"\) and would lose its stack\./);
+      await Setup.destroy({ where: { id: saved[0] } });
+      await del().expect(204);
     });
 
     it('should hide other teams\' sets', async () => {

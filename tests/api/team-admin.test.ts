@@ -143,6 +143,28 @@ describe('/api/team/invitations', () => {
     await post(anon, '/api/auth/login', { email, password: 'a-long-new-password' }).expect(200);
   });
 
+  it('refuses a password of spaces only and one over 200 characters, on an invitation and a reset alike', async () => {
+    const email = uniqueEmail('blank');
+    await post(c.admin, '/api/team/invitations', { email, role: 'machinist' }).expect(201);
+    const token = tokenIn((await waitForMail(email, 'invited')).text, '/accept-invite');
+    // Its own address, so the reset below does not count against the other tests' throttle.
+    const anon = await client(t.app, undefined, clientIp());
+    const spaces = await post(anon, '/api/access/invitations/accept', { token, name: 'A', password: ' '.repeat(12) }).expect(400);
+    expect(spaces.body.fields).toEqual({ password: 'Use letters, digits or signs, not only spaces.' });
+    const long = await post(anon, '/api/access/invitations/accept', { token, name: 'A', password: 'p'.repeat(201) }).expect(400);
+    expect(long.body.fields).toEqual({ password: 'Use at most 200 characters.' });
+    expect(await User.count({ where: { email } })).toBe(0);
+    // Spaces inside a password are kept and count.
+    await post(anon, '/api/access/invitations/accept', { token, name: 'A', password: '  two words  ' }).expect(201);
+
+    const team = await makeTeam('reset-blank');
+    await post(anon, '/api/access/password-reset', { email: team.lead.email }).expect(202);
+    const reset = tokenIn((await waitForMail(team.lead.email, 'Reset')).text, '/reset-password');
+    const blank = await post(anon, '/api/access/password-reset/complete', { token: reset, password: '\t'.repeat(3) + ' '.repeat(9) }).expect(400);
+    expect(blank.body.fields).toEqual({ password: 'Use letters, digits or signs, not only spaces.' });
+    await post(anon, '/api/auth/login', { email: team.lead.email, password: PASSWORD }).expect(200);
+  });
+
   it('refuses an expired invitation with 410 and an unknown token with 404', async () => {
     const email = uniqueEmail('late');
     const res = await post(c.admin, '/api/team/invitations', { email, role: 'machinist' }).expect(201);

@@ -84,6 +84,15 @@ describe('GaugeBlocksPage with the team inventory', () => {
     http = TestBed.inject(HttpTestingController);
   }
 
+  /** Signed in, the team box listed and its first stack (the default 1.2519 in) answered. */
+  async function openWithBox(): Promise<void> {
+    await create(true);
+    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
+    await page.settle();
+    flushStack('1.2519');
+    await page.settle();
+  }
+
   afterEach(() => http.verify());
 
   it('should list the team box first, choose it, ask the route with the target and show the blocks left out', async () => {
@@ -117,11 +126,7 @@ describe('GaugeBlocksPage with the team inventory', () => {
   });
 
   it('should drop the answer of a request a newer target has overtaken', async () => {
-    await create(true);
-    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
-    await page.settle();
-    flushStack('1.2519');
-    await page.settle();
+    await openWithBox();
     await page.type('target', '0.2507');
     const stale = http.expectOne((r) => r.url.endsWith('/stack') && r.params.get('target') === '0.2507');
     await page.type('target', '0.3507');
@@ -132,11 +137,7 @@ describe('GaugeBlocksPage with the team inventory', () => {
   });
 
   it('should show the route message when the box cannot make the target', async () => {
-    await create(true);
-    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
-    await page.settle();
-    flushStack('1.2519');
-    await page.settle();
+    await openWithBox();
     await page.type('target', '0.1007');
     http
       .expectOne((r) => r.url.endsWith('/stack'))
@@ -152,12 +153,17 @@ describe('GaugeBlocksPage with the team inventory', () => {
     expect(page.fieldErrors()).toContain('Stack length cannot be made from the blocks in the box (0.1007 in wanted).');
   });
 
+  it('should write a size left out as the inventory does (0.050 in, not 0.05 in)', async () => {
+    await openWithBox();
+    await page.type('target', '0.2507');
+    // The route sends sizes as stored: "0.05" for the 0.050 in block.
+    http.expectOne((r) => r.url.endsWith('/stack')).flush({ ...(boxAnswer('0.2507', false) as object), excluded: [{ size: '0.05', missing: 2, damaged: 0 }] });
+    await page.settle();
+    expect(page.el.querySelector('.box-note .left-out')?.textContent).toContain('0.050 in (2 missing)');
+  });
+
   it('should check the target in the browser before asking the server', async () => {
-    await create(true);
-    http.expectOne('/api/inventories').flush({ gaugeSets: [DEMO_BOX], angleSets: [] });
-    await page.settle();
-    flushStack('1.2519');
-    await page.settle();
+    await openWithBox();
     await page.type('target', 'abc');
     http.expectNone((r) => r.url.endsWith('/stack'));
     expect(page.fieldErrors()).toContain('Must be a decimal number such as 0.750, got "abc"');

@@ -8,6 +8,7 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 
 import { GAUGE_BLOCK_CAUTIONS, type GaugeStackResult } from '../../../shared/calc/gauge-stack';
+import { blockLabel } from '../../../shared/forms/block-list';
 import type { LengthUnit } from '../../../shared/units/length-unit';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -111,7 +112,10 @@ export default class GaugeBlocksPage {
   protected readonly leftOut = computed(() => {
     const st = this.boxState();
     const list = st.status === 'failed' ? st.excluded : st.status === 'idle' ? [] : (st.answer?.excluded ?? []);
-    return excludedNote(list, this.unit());
+    const unit = this.unit();
+    // Sizes as the inventory writes them ("0.050 in", not "0.05 in"): its label without the unit.
+    const suffix = ` ${unit}`;
+    return excludedNote(list.map((b) => ({ ...b, size: blockLabel(unit, b.size).slice(0, -suffix.length) })), unit);
   });
   /** The result list. */
   protected readonly items = computed(() => {

@@ -22,7 +22,8 @@ describe('InventoryPage', () => {
   let http: HttpTestingController;
   const el = () => fixture.nativeElement as HTMLElement;
 
-  async function open(role: string): Promise<void> {
+  /** Opens the page as a role with the set given (instead of SET). */
+  async function openWith(role: string, set: InventorySetDto): Promise<void> {
     TestBed.configureTestingModule({
       providers: [provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal({ id: 1, email: 'x@example.test', name: 'X', role }) } }],
     });
@@ -30,10 +31,14 @@ describe('InventoryPage', () => {
     fixture = TestBed.createComponent(InventoryPage);
     fixture.detectChanges();
     http.expectOne('/api/inventories/standard-sets').flush({ sets: [] });
-    http.expectOne('/api/inventories').flush({ gaugeSets: [{ ...SET, blocks: undefined }], angleSets: [] });
-    http.expectOne('/api/inventories/gauge-sets/4').flush(SET);
+    http.expectOne('/api/inventories').flush({ gaugeSets: [{ ...set, blocks: undefined }], angleSets: [] });
+    http.expectOne(`/api/inventories/gauge-sets/${set.id}`).flush(set);
     fixture.detectChanges();
     await fixture.whenStable();
+  }
+
+  async function open(role: string): Promise<void> {
+    await openWith(role, SET);
   }
 
   afterEach(() => http.verify());
@@ -227,6 +232,109 @@ describe('InventoryPage', () => {
     expect(el().querySelector('.set-head h2')?.textContent).toBe('Inch 81, bench drawer');
     expect(el().querySelector('.set strong')?.textContent).toBe('Inch 81, bench drawer');
     expect(el().textContent).toContain('2 wear blocks of 0.050 in');
+  });
+
+  it.each([0, 1])('should not offer the wear blocks, nor count them, when the set keeps %i with a thickness', async (wearBlockCount) => {
+    await openWith('machinist', { ...SET, wearBlockSize: '0.050', wearBlockCount });
+    expect(el().querySelector('mat-checkbox')).toBeNull();
+    expect(el().textContent).not.toMatch(/\d wear blocks? of 0\.050 in/);
+    expect(el().textContent).toContain('wear blocks not used');
+    const input = el().querySelector('form.answer input[name="wanted"]') as HTMLInputElement;
+    input.value = '1.2011';
+    input.dispatchEvent(new Event('input'));
+    (el().querySelector('form.answer button[type="submit"]') as HTMLButtonElement).click();
+    expect(http.expectOne((r) => r.url.endsWith('/stack')).request.params.get('wear')).toBe('no');
+  });
+
+  it('should say the wear-block rule before sending: a pair with a thickness, or none', async () => {
+    await open('lead');
+    (Array.from(el().querySelectorAll('button')).find((b) => b.textContent?.includes('Edit details')) as HTMLButtonElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const type = (name: string, value: string) => {
+      const input = el().querySelector(`input[name="${name}"]`) as HTMLInputElement;
+      input.value = value;
+      input.dispatchEvent(new Event('input'));
+      fixture.detectChanges();
+    };
+    const save = async () => {
+      (el().querySelector('form.details button[type="submit"]') as HTMLButtonElement).click();
+      fixture.detectChanges();
+      await fixture.whenStable();
+    };
+    type('wearBlockSize', '0.050');
+    type('wearBlockCount', '1');
+    await save();
+    expect(el().querySelector('form.details')?.textContent).toContain('Wear blocks come as a pair, one for each end of the stack: 0 or 2.');
+    type('wearBlockCount', '0');
+    await save();
+    expect(el().querySelector('form.details')?.textContent).toContain('A thickness is given, so say 2 wear blocks, or clear the thickness.');
+    type('wearBlockSize', '');
+    type('wearBlockCount', '2');
+    await save();
+    expect(el().querySelector('form.details')?.textContent).toContain('Give the thickness of the two wear blocks');
+    http.expectNone((r) => r.method === 'PUT');
+    type('wearBlockSize', '0.050');
+    await save();
+    http.expectOne((r) => r.method === 'PUT').flush({ error: 'x' }, { status: 400, statusText: 'Bad Request' });
+  });
+
+  it('should let a lead write a note on a block and show it saved', async () => {
+    await open('lead');
+    (el().querySelector('button[aria-label="Write a note on 0.200 in"]') as HTMLButtonElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const input = el().querySelector('form.note-edit input') as HTMLInputElement;
+    expect(input.getAttribute('maxlength')).toBe('200');
+    input.value = ' nicked face ';
+    input.dispatchEvent(new Event('input'));
+    fixture.detectChanges();
+    (el().querySelector('form.note-edit button[type="submit"]') as HTMLButtonElement).click();
+    const req = http.expectOne((r) => r.method === 'PATCH' && r.url === '/api/inventories/gauge-sets/4/blocks/11');
+    expect(req.request.body).toEqual({ note: 'nicked face' });
+    req.flush({ ...SET, version: 2, blocks: [SET.blocks![0]!, { ...SET.blocks![1]!, note: 'nicked face' }] });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('form.note-edit')).toBeNull();
+    expect(Array.from(el().querySelectorAll('td.note')).map((td) => td.textContent?.replace(/edit_note/g, '').trim())).toEqual(['lost', 'nicked face']);
+  });
+
+  it('should not offer a machinist the note editor', async () => {
+    await open('machinist');
+    expect(el().querySelector('td.note button')).toBeNull();
+    expect(el().querySelector('td.note')?.textContent?.trim()).toBe('lost');
+  });
+
+  it('should bring a tapped set\'s details into view when they are below the list', async () => {
+    await open('lead');
+    const scroll = jest.fn();
+    Object.defineProperty(HTMLElement.prototype, 'scrollIntoView', { value: scroll, configurable: true });
+    const rect = jest.spyOn(HTMLElement.prototype, 'getBoundingClientRect').mockReturnValue({ top: 2000, bottom: 2400, left: 0, right: 390, width: 390, height: 400, x: 0, y: 2000, toJSON: () => ({}) });
+    try {
+      (el().querySelector('button.set') as HTMLButtonElement).click();
+      http.expectOne('/api/inventories/gauge-sets/4').flush(SET);
+      fixture.detectChanges();
+      await fixture.whenStable();
+      expect(scroll).toHaveBeenCalledWith({ behavior: 'smooth', block: 'start' });
+      expect(scroll.mock.contexts[0]).toBe(el().querySelector('.detail'));
+    } finally {
+      rect.mockRestore();
+      delete (HTMLElement.prototype as { scrollIntoView?: unknown }).scrollIntoView;
+    }
+  });
+
+  it('should say in the delete question what happens to set-ups that use the set, and show the refusal', async () => {
+    await open('admin');
+    const ask = jest.spyOn(window, 'confirm').mockReturnValue(true);
+    (el().querySelector('button.danger') as HTMLButtonElement).click();
+    expect(ask.mock.calls[0]![0]).not.toContain('keep their figures');
+    expect(ask.mock.calls[0]![0]).toContain('A set that saved set-ups use (archived ones too) is not deleted');
+    const refusal = '2 saved set-ups use this set ("Stack A", "Stack B") and would lose their stacks. Save them with another set, or delete them, first (archived set-ups count too).';
+    http.expectOne((r) => r.method === 'DELETE').flush({ error: refusal }, { status: 409, statusText: 'Conflict' });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(el().querySelector('[role="alert"]')?.textContent).toContain(refusal);
+    ask.mockRestore();
   });
 
   it('should let an admin delete a set after asking', async () => {

@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, afterNextRender, computed, inject, Injector, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,7 +11,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of } from 'rxjs';
 
-import { GAUGE_GRADES, type InventoryBlockDto, type InventoryListDto, type InventorySetDto, type InventoryType } from '../../../shared/api/inventory';
+import { BLOCK_NOTE_MAX, blockSetDetailErrors, GAUGE_GRADES, hasWearPair, type InventoryBlockDto, type InventoryListDto, type InventorySetDto, type InventoryType } from '../../../shared/api/inventory';
 import { blockLabel, readBlockList } from '../../../shared/forms/block-list';
 import { apiErrorDetail, apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
@@ -29,6 +29,8 @@ import { InventoryApi, type InventoryAnswer } from './inventory-api';
 export default class InventoryPage {
   private readonly api = inject(InventoryApi);
   private readonly auth = inject(Auth);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  private readonly injector = inject(Injector);
 
   protected readonly list = signal<InventoryListDto>({ gaugeSets: [], angleSets: [] });
   protected readonly selected = signal<InventorySetDto | null>(null);
@@ -37,6 +39,11 @@ export default class InventoryPage {
   protected readonly answerError = signal<string | null>(null);
   /** Whether a gauge stack is built between the box's wear-block pair. */
   protected readonly useWear = signal(false);
+  /** The block whose note is being written, with the text as typed (null: none). */
+  protected readonly noteDraft = signal<{ blockId: number; text: string } | null>(null);
+  protected readonly noteMax = BLOCK_NOTE_MAX;
+  /** Whether a gauge set holds the pair of wear blocks a stack can be built between. */
+  protected readonly wearPair = hasWearPair;
   /** Why marking a block was refused (someone changed the set meanwhile, no right, offline). */
   protected readonly markError = signal<string | null>(null);
   protected readonly newName = signal('');
@@ -95,12 +102,53 @@ export default class InventoryPage {
     });
   }
 
-  protected open(set: InventorySetDto): void {
+  /**
+   * Shows a set. `reveal`: it was tapped in the list, so its details are brought into view when
+   * they sit below the list (one column, on a phone).
+   */
+  protected open(set: InventorySetDto, reveal = false): void {
     this.draft.set(null);
+    this.noteDraft.set(null);
     this.answer.set(null);
     this.answerError.set(null);
     this.markError.set(null);
-    this.api.get(set.type, set.id).subscribe((full) => this.selected.set(full));
+    this.api.get(set.type, set.id).subscribe((full) => {
+      this.selected.set(full);
+      if (reveal) afterNextRender(() => this.revealDetail(), { injector: this.injector });
+    });
+  }
+
+  /** Scrolls the chosen set's details into view when their top is below the screen. */
+  private revealDetail(): void {
+    const detail = this.host.nativeElement.querySelector<HTMLElement>('.detail');
+    if (!detail || typeof detail.scrollIntoView !== 'function') return;
+    if (detail.getBoundingClientRect().top > window.innerHeight * 0.5) detail.scrollIntoView({ behavior: 'smooth', block: 'start' });
+  }
+
+  /** Starts writing the note of a block (why it is missing or damaged). */
+  protected editNote(block: InventoryBlockDto): void {
+    this.markError.set(null);
+    this.noteDraft.set({ blockId: block.id, text: block.note });
+  }
+
+  /** Saves the note being written. */
+  protected saveNote(block: InventoryBlockDto): void {
+    const set = this.selected();
+    const d = this.noteDraft();
+    if (!set || !d || d.blockId !== block.id) return;
+    const note = d.text.trim();
+    if (note.length > BLOCK_NOTE_MAX) {
+      this.markError.set(`${block.label}: keep the note under ${BLOCK_NOTE_MAX} characters.`);
+      return;
+    }
+    this.markError.set(null);
+    this.api.patchBlock(set.type, set.id, block.id, { note }).subscribe({
+      next: (fresh) => {
+        this.noteDraft.set(null);
+        this.showFresh(fresh);
+      },
+      error: (err: unknown) => this.markError.set(`${block.label}: the note was not saved. ${apiErrorDetail(err)}`),
+    });
   }
 
   protected mark(block: InventoryBlockDto, field: 'missing' | 'damaged', delta: number): void {
@@ -135,7 +183,7 @@ export default class InventoryPage {
       this.answerError.set(set.type === 'gauge-blocks' ? `Type the stack height, e.g. 1.2505 (${set.unit}).` : "Type the angle, e.g. 17°35'.");
       return;
     }
-    const wear = set.type === 'gauge-blocks' && !!set.wearBlockSize && this.useWear();
+    const wear = hasWearPair(set) && this.useWear();
     this.api.answer(set.type, set.id, this.wanted().trim(), wear).subscribe({
       next: (a) => this.answer.set(a),
       error: (err: unknown) => this.answerError.set(boxFailureMessage(err)),
@@ -166,17 +214,26 @@ export default class InventoryPage {
     const d = this.draft();
     if (!set || !d) return;
     const gauge = set.type === 'gauge-blocks';
-    const count = d.wearBlockCount.trim() === '' ? 0 : Number(d.wearBlockCount);
+    const wearBlockSize = d.wearBlockSize.trim() === '' ? null : d.wearBlockSize.trim();
+    // An empty count with a thickness is the pair; with none, no wear blocks.
+    const count = d.wearBlockCount.trim() === '' ? (wearBlockSize ? 2 : 0) : Number(d.wearBlockCount);
     if (gauge && (!Number.isInteger(count) || count < 0)) {
-      this.editErrors.set({ wearBlockCount: 'Type a whole number of wear blocks: 0, 1 or 2.' });
+      this.editErrors.set({ wearBlockCount: 'Type a whole number of wear blocks: 0 or 2.' });
+      return;
+    }
+    const grade = d.grade.trim() === '' ? null : d.grade.trim();
+    // The server's rule, said before sending: wear blocks are a pair with a thickness, or none.
+    const wrong = blockSetDetailErrors(set.type, set.unit, { grade, ...(gauge ? { wearBlockSize, wearBlockCount: count } : {}) });
+    if (Object.keys(wrong).length > 0) {
+      this.editErrors.set(wrong);
       return;
     }
     this.editErrors.set({});
     this.editError.set(null);
     const body = {
       name: d.name,
-      grade: d.grade.trim() === '' ? null : d.grade.trim(),
-      ...(gauge ? { wearBlockSize: d.wearBlockSize.trim() === '' ? null : d.wearBlockSize.trim(), wearBlockCount: d.wearBlockSize.trim() === '' ? 0 : count } : {}),
+      grade,
+      ...(gauge ? { wearBlockSize, wearBlockCount: count } : {}),
       notes: d.notes,
       version: set.version,
     };
@@ -196,11 +253,11 @@ export default class InventoryPage {
     });
   }
 
-  /** Deletes the chosen set after asking (admins). Set-ups that used it are then answered on their pages only. */
+  /** Deletes the chosen set after asking (admins). The server refuses while a saved set-up names it. */
   protected deleteSet(): void {
     const set = this.selected();
     if (!set) return;
-    if (!confirm(`Delete the set "${set.name}" and its record of missing and damaged blocks? Set-ups saved with it keep their figures but no longer list blocks from it.`)) return;
+    if (!confirm(`Delete the set "${set.name}" and its record of missing and damaged blocks? This cannot be undone. A set that saved set-ups use (archived ones too) is not deleted: they would lose their stacks, so save them with another set first.`)) return;
     this.editError.set(null);
     this.api.remove(set.type, set.id).subscribe({
       next: () => {

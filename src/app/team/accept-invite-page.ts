@@ -11,6 +11,7 @@ import { firstValueFrom } from 'rxjs';
 import type { InvitationPreviewDto } from '../../../shared/api/team-admin';
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { ROLE_LABELS } from '../core/auth';
+import { newPasswordValidator } from './new-password';
 import { TeamApi } from './team-api';
 
 /** The page an invitation e-mail links to: choose a name and password to join the team. */
@@ -36,8 +37,8 @@ import { TeamApi } from './team-api';
               <mat-form-field appearance="outline">
                 <mat-label>New password</mat-label>
                 <input matInput type="password" formControlName="password" autocomplete="new-password">
-                <mat-hint>At least 10 characters.</mat-hint>
-                @if (form.controls.password.hasError('minlength') || form.controls.password.hasError('required')) { <mat-error>Use at least 10 characters.</mat-error> }
+                <mat-hint>At least 10 characters, at most 200.</mat-hint>
+                @if (form.controls.password.getError('newPassword'); as e) { <mat-error>{{ e }}</mat-error> }
                 @if (form.controls.password.hasError('server')) { <mat-error>{{ form.controls.password.getError('server') }}</mat-error> }
               </mat-form-field>
               @if (error()) { <p class="error" role="alert">{{ error() }}</p> }
@@ -71,7 +72,7 @@ export default class AcceptInvitePage {
   protected readonly done = signal(false);
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: ['', [Validators.required, Validators.maxLength(120)]],
-    password: ['', [Validators.required, Validators.minLength(10), Validators.maxLength(200)]],
+    password: ['', [newPasswordValidator]],
   });
 
   constructor() {

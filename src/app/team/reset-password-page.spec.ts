@@ -69,6 +69,23 @@ describe('ResetPasswordPage', () => {
       expect(el.textContent).toContain('Your password is changed');
     });
 
+    it.each([
+      ['p'.repeat(201), 'Use at most 200 characters.'],
+      [' '.repeat(12), 'not only spaces'],
+      ['short', 'Use at least 10 characters.'],
+    ])('should say what is wrong with the password %#, and send nothing', async (password, message) => {
+      await open(TOKEN);
+      http.expectOne(`/api/access/password-reset/${TOKEN}`).flush({ valid: true });
+      await settle();
+      const input = el.querySelector('input[type=password]') as HTMLInputElement;
+      input.value = password;
+      input.dispatchEvent(new Event('input'));
+      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
+      await settle();
+      http.expectNone('/api/access/password-reset/complete');
+      expect(el.querySelector('mat-error')?.textContent).toContain(message);
+    });
+
     it('should say when the link is used up', async () => {
       await open(TOKEN);
       http.expectOne(`/api/access/password-reset/${TOKEN}`).flush({ error: 'This link has expired or was already used. Ask for a new one.' }, { status: 410, statusText: 'Gone' });

@@ -9,6 +9,7 @@ import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 
 import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
+import { newPasswordValidator } from './new-password';
 import { TeamApi } from './team-api';
 
 /**
@@ -43,8 +44,8 @@ import { TeamApi } from './team-api';
               <mat-form-field appearance="outline">
                 <mat-label>New password</mat-label>
                 <input matInput type="password" formControlName="password" autocomplete="new-password">
-                <mat-hint>At least 10 characters. Saving it signs you out everywhere.</mat-hint>
-                @if (passwordForm.controls.password.invalid) { <mat-error>Use at least 10 characters.</mat-error> }
+                <mat-hint>At least 10 characters, at most 200. Saving it signs you out everywhere.</mat-hint>
+                @if (passwordForm.controls.password.getError('newPassword'); as e) { <mat-error>{{ e }}</mat-error> }
               </mat-form-field>
               @if (error()) { <p class="error" role="alert">{{ error() }}</p> }
               <button mat-flat-button type="submit" [disabled]="pending()"><mat-icon>lock_reset</mat-icon> Save the new password</button>
@@ -73,7 +74,7 @@ export default class ResetPasswordPage {
   protected readonly pending = signal(false);
   protected readonly linkOk = signal(false);
   protected readonly requestForm = this.fb.group({ email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]] });
-  protected readonly passwordForm = this.fb.group({ password: ['', [Validators.required, Validators.minLength(10), Validators.maxLength(200)]] });
+  protected readonly passwordForm = this.fb.group({ password: ['', [newPasswordValidator]] });
 
   constructor() {
     effect(() => void this.check(this.token()));

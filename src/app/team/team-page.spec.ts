@@ -109,6 +109,64 @@ describe('TeamPage', () => {
     expect(el.textContent).toContain('Deactivated');
   });
 
+  it('should withdraw an invitation only after asking, and say it is withdrawn', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });
+    await settle();
+    const invitation = { id: 7, email: 'new@demo.test', role: 'apprentice', invitedBy: 'Mara Lindqvist', expiresAt: '2026-12-24T00:00:00Z', createdAt: '2026-12-17T00:00:00Z' };
+    http.expectOne('/api/team/invitations').flush({ invitations: [invitation] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] });
+    await settle();
+    const page = fixture.componentInstance as unknown as { revoke(i: unknown): Promise<void> };
+    const ask = jest.spyOn(window, 'confirm').mockReturnValueOnce(false);
+    await page.revoke(invitation);
+    expect(ask).toHaveBeenCalledWith(expect.stringMatching(/^Withdraw the invitation to new@demo\.test\? Its link stops working at once/));
+    http.expectNone('/api/team/invitations/7');
+    ask.mockReturnValueOnce(true);
+    const done = page.revoke(invitation);
+    const req = http.expectOne('/api/team/invitations/7');
+    expect(req.request.method).toBe('DELETE');
+    req.flush(null, { status: 204, statusText: 'No Content' });
+    await settle();
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    http.expectOne('/api/team/mailbox').flush({ messages: [] });
+    await done;
+    (Array.from(el.querySelectorAll('[role=tab]')).find((t) => t.textContent?.includes('Invitations')) as HTMLElement).click();
+    await settle();
+    expect(el.textContent).toContain('The invitation to new@demo.test is withdrawn.');
+    ask.mockRestore();
+  });
+
+  it('should put the team-data download on its own line, after the words about it', async () => {
+    await openAsAdmin([member(1, 'Mara Lindqvist', 'admin')]);
+    const link = el.querySelector<HTMLAnchorElement>('a[href="/api/team/export"]')!;
+    // The link is alone in its paragraph: no words of the explanation around it.
+    expect(link.parentElement?.tagName).toBe('P');
+    expect(link.parentElement?.textContent?.trim()).toBe(link.textContent?.trim());
+  });
+
+  it('should show each caught message with its recipient and time on their own line', async () => {
+    await open(ADMIN);
+    http.expectOne('/api/team/members').flush({ members: [member(1, 'Mara Lindqvist', 'admin')] });
+    await settle();
+    http.expectOne('/api/team/invitations').flush({ invitations: [] });
+    await settle();
+    const mail = { id: 3, sender: 'noreply@demo.test', recipients: 'machinist@demo.test', subject: 'Set-up released: a rather long name that goes on', text: 'x', html: null, receivedAt: '2026-12-17T08:30:00Z', links: [] };
+    http.expectOne('/api/team/mailbox').flush({ messages: [mail] });
+    await settle();
+    // The message list is on the third tab.
+    (Array.from(el.querySelectorAll('[role=tab]')).find((t) => t.textContent?.includes('Dev mailbox')) as HTMLElement).click();
+    await settle();
+    const head = el.querySelector('.mail-head')!;
+    // A plain button (a Material text button keeps its label on one line and cuts it off).
+    expect(head.classList.contains('mat-mdc-button')).toBe(false);
+    expect(head.querySelector('.mail-meta')?.textContent).toBe('to machinist@demo.test · 2026-12-17 08:30:00');
+  });
+
   it('should show a lead the members read-only, without invitations or mailbox', async () => {
     await open(LEAD);
     http.expectOne('/api/team/members').flush({ members: [member(4, 'Sam Okafor', 'apprentice')] });

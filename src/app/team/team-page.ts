@@ -96,9 +96,16 @@ export default class TeamPage {
     }
   }
 
-  /** Revokes an open invitation. */
+  /** Revokes an open invitation after asking: its link stops working at once. */
   protected async revoke(invitation: InvitationDto): Promise<void> {
-    await firstValueFrom(this.api.revoke(invitation.id));
+    this.inviteMessage.set(null);
+    if (!confirm(`Withdraw the invitation to ${invitation.email}? Its link stops working at once; you can invite the address again later.`)) return;
+    try {
+      await firstValueFrom(this.api.revoke(invitation.id));
+      this.inviteMessage.set(`The invitation to ${invitation.email} is withdrawn.`);
+    } catch (err) {
+      this.inviteMessage.set(apiErrorMessage(err));
+    }
     await this.load();
   }
 
