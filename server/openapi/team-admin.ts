@@ -59,7 +59,7 @@ export const teamAdminPaths = {
     get: { summary: 'One captured message (admins, MAIL_FAKE=true)', parameters: id, responses: { 200: { description: 'Message', ...json(mail) }, 404: errorResponse('Unknown message, or the mailbox is off') } },
   },
   '/api/access/invitations/{token}': {
-    get: { summary: 'What an invitation link offers (public)', parameters: token, responses: { 200: { description: 'Preview', ...json({ type: 'object', properties: { email: { type: 'string' }, role, teamName: { type: 'string' }, expiresAt: { type: 'string', format: 'date-time' } } }) }, 404: unknown, 410: gone } },
+    get: { summary: 'What an invitation link offers (public)', parameters: token, responses: { 200: { description: 'Preview', ...json({ type: 'object', properties: { email: { type: 'string' }, role, teamName: { type: 'string' }, expiresAt: { type: 'string', format: 'date-time' } } }) }, 404: unknown, 410: errorResponse('Expired or used; or withdrawn by an admin or replaced by a newer invitation (the message says which)') } },
   },
   '/api/access/invitations/accept': {
     post: {
@@ -71,7 +71,7 @@ export const teamAdminPaths = {
   },
   '/api/access/password-reset': {
     post: {
-      summary: 'Ask for a reset link. The answer is the same whether or not the address has an account; throttled per address and per client (5 in 15 minutes).',
+      summary: 'Ask for a reset link; only the newest link of an account works. The answer is the same whether or not the address has an account; throttled per address and per client (5 in 15 minutes).',
       parameters: csrf,
       requestBody: json({ type: 'object', required: ['email'], properties: { email: { type: 'string' } } }),
       responses: { 202: { description: 'Always the same message', ...json({ type: 'object', properties: { message: { type: 'string' } } }) }, 400: errorResponse('Not an e-mail address'), 429: errorResponse('Too many requests') },

@@ -13,6 +13,7 @@ import { hashToken, newToken, RESET_TTL_MS } from '../services/tokens';
 import { BCRYPT_COST } from './auth';
 
 const GONE = 'This link has expired or was already used. Ask for a new one.';
+const WITHDRAWN = 'This invitation was withdrawn, or replaced by a newer one. Use the newest invitation e-mail, or ask the team\'s admin to invite you again.';
 const UNKNOWN = 'This link is not valid. Open it again from the e-mail, or ask for a new one.';
 
 function tokenParam(raw: string | string[] | undefined): string {
@@ -21,10 +22,15 @@ function tokenParam(raw: string | string[] | undefined): string {
   return text;
 }
 
+/** Revoked by an admin or replaced by a newer invitation, never accepted. */
+function withdrawn(invitation: Invitation): boolean {
+  return invitation.revokedAt !== null && invitation.acceptedAt === null;
+}
+
 async function openInvitation(token: string): Promise<Invitation> {
   const invitation = await Invitation.findOne({ where: { tokenHash: hashToken(token) }, include: [{ model: Team, as: 'team' }] });
   if (!invitation) throw new HttpError(404, UNKNOWN);
-  if (!invitation.isOpen()) throw new HttpError(410, GONE);
+  if (!invitation.isOpen()) throw new HttpError(410, withdrawn(invitation) ? WITHDRAWN : GONE);
   return invitation;
 }
 
@@ -41,6 +47,8 @@ async function issueReset(email: string): Promise<void> {
   if (!user || !user.active) return;
   const { token, hash } = newToken();
   const expiresAt = new Date(Date.now() + RESET_TTL_MS);
+  // Only the newest link works: a new request ends the open ones, as a new invitation does.
+  await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null } });
   await PasswordReset.create({ userId: user.id, tokenHash: hash, expiresAt });
   await sendMail(resetMail(user.email, user.name, token, expiresAt));
 }
@@ -77,7 +85,11 @@ export function createAccessRouter(resetThrottle: LoginThrottle): Router {
         { acceptedAt: new Date() },
         { where: { id: invitation.id, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } }, transaction },
       );
-      if (claimed === 0) throw new HttpError(410, GONE);
+      if (claimed === 0) {
+        // Revoked between the look-up and the claim: say so, as the look-up would now.
+        await invitation.reload({ transaction });
+        throw new HttpError(410, withdrawn(invitation) ? WITHDRAWN : GONE);
+      }
       return User.create({ teamId: invitation.teamId, email: invitation.email, name: body.name, role: invitation.role, passwordHash }, { transaction });
     });
     res.status(201).json({ user: user.toPublic() });

@@ -185,7 +185,15 @@ describe('/api/team/invitations', () => {
     const anon = await client(t.app);
     await anon.agent.get(`/api/access/invitations/${firstToken}`).expect(410);
     await c.foreign.agent.delete(`/api/team/invitations/${second.body.invitation.id}`).set('X-CSRF-Token', c.foreign.token).expect(404);
+    for (let i = 0; i < 80 && (await mailsTo(email)).length < 2; i++) await new Promise((r) => setTimeout(r, 100));
+    const secondToken = tokenIn((await waitForMail(email, 'invited')).text, '/accept-invite');
+    expect(secondToken).not.toBe(firstToken);
     await c.admin.agent.delete(`/api/team/invitations/${second.body.invitation.id}`).set('X-CSRF-Token', c.admin.token).expect(204);
+    // The invitee is told the invitation was withdrawn, not that the link expired; the replaced one says the same.
+    expect((await anon.agent.get(`/api/access/invitations/${secondToken}`).expect(410)).body.error).toMatch(/withdrawn/);
+    expect((await anon.agent.get(`/api/access/invitations/${firstToken}`).expect(410)).body.error).toMatch(/replaced by a newer one/);
+    const late = await post(anon, '/api/access/invitations/accept', { token: secondToken, name: 'Too Late', password: 'a-long-new-password' }).expect(410);
+    expect(late.body.error).toMatch(/withdrawn/);
     const list = await c.admin.agent.get('/api/team/invitations').expect(200);
     expect((list.body.invitations as Array<{ email: string }>).map((i) => i.email)).not.toContain(email);
   });
@@ -225,6 +233,21 @@ describe('/api/access/password-reset', () => {
     const fresh = await client(t.app);
     await post(fresh, '/api/auth/login', { email: team.machinist.email, password: PASSWORD }).expect(401);
     await post(fresh, '/api/auth/login', { email: team.machinist.email, password: 'brand-new-password-1' }).expect(200);
+  });
+
+  it('keeps only the newest reset link working', async () => {
+    const team = await makeTeam('reset-newest');
+    const anon = await client(t.app, undefined, clientIp());
+    await post(anon, '/api/access/password-reset', { email: team.apprentice.email }).expect(202);
+    const first = tokenIn((await waitForMail(team.apprentice.email, 'Reset')).text, '/reset-password');
+    await post(anon, '/api/access/password-reset', { email: team.apprentice.email }).expect(202);
+    // The mail goes out after the answer: wait for the second message.
+    for (let i = 0; i < 80 && (await mailsTo(team.apprentice.email)).length < 2; i++) await new Promise((r) => setTimeout(r, 100));
+    const second = tokenIn((await waitForMail(team.apprentice.email, 'Reset')).text, '/reset-password');
+    expect(second).not.toBe(first);
+    await anon.agent.get(`/api/access/password-reset/${first}`).expect(410);
+    await anon.agent.get(`/api/access/password-reset/${second}`).expect(200);
+    await post(anon, '/api/access/password-reset/complete', { token: first, password: 'brand-new-password-1' }).expect(410);
   });
 
   it('refuses an expired reset link with 410', async () => {
