@@ -9,7 +9,7 @@ const decimal = { type: 'string', pattern: '^-?\\d{1,6}(\\.\\d{1,6})?$' };
 
 const check = {
   type: 'object', required: ['key', 'label', 'unit', 'nominal', 'plus', 'minus'],
-  properties: { key: { type: 'string' }, label: { type: 'string' }, unit: { enum: ['in', 'mm', 'deg'] }, nominal: { ...decimal, description: '0 or more (a size or angle measured on the part; 0 for flatness, runout…); an angle under 360' }, plus: decimal, minus: decimal },
+  properties: { key: { type: 'string' }, label: { type: 'string' }, unit: { enum: ['in', 'mm', 'deg'] }, nominal: { ...decimal, description: '0 or more (a size or angle measured on the part; 0 for flatness, runout…); an angle under 360' }, plus: { ...decimal, description: 'How far over nominal a part may be, 0 or more. Sent as ".002" or "+0.002" too; kept as "0.002"' }, minus: { ...decimal, description: 'How far under nominal a part may be, 0 or more, without a minus sign; ".002" is kept as "0.002"' } },
 };
 const setup = {
   type: 'object',

@@ -74,13 +74,32 @@ export function withLeadingZero(text: string): string {
   return /^\.\d/.test(text) ? `0${text}` : text;
 }
 
-/** A decimal number sent as text or as a JSON number, kept as text. */
-export function decimalText(what: string, opts: { min0?: boolean } = {}) {
+/**
+ * Decimal text as the shop floor writes it, in the form kept: "+.002" → "0.002", "-.5" → "-0.5".
+ * Other text as it is (the schema then says what is wrong with it).
+ */
+export function normalDecimalText(text: string): string {
+  const t = text.trim().replace(/^\+(?=[\d.])/, '');
+  return t.startsWith('-') ? `-${withLeadingZero(t.slice(1))}` : withLeadingZero(t);
+}
+
+/**
+ * A decimal number sent as text or as a JSON number, kept as text. `min0` fields (tolerances) are
+ * amounts: `sign` says which way, for the message when one is typed with a minus sign.
+ */
+export function decimalText(what: string, opts: { min0?: boolean; sign?: string } = {}) {
   return z
     .union([z.string(), z.number()], { error: `${what} must be a number such as 0.750.` })
-    .transform((v) => (typeof v === 'number' ? String(v) : v.trim()))
-    .refine((v) => DECIMAL_TEXT.test(v), `${what} must be a decimal number such as 0.750 (at most 6 decimals).`)
-    .refine((v) => !opts.min0 || !v.startsWith('-'), `${what} must be 0 or more.`);
+    .transform((v) => (typeof v === 'number' ? String(v) : normalDecimalText(v)))
+    .check((ctx) => {
+      const v = ctx.value;
+      if (!DECIMAL_TEXT.test(v)) {
+        ctx.issues.push({ code: 'custom', input: v, message: `${what} must be a decimal number such as 0.750 (at most 6 decimals).` });
+      } else if (opts.min0 && v.startsWith('-')) {
+        const how = opts.sign ? `: it is how far ${opts.sign} nominal a part may be, so type it without a minus sign (${v.slice(1)}, not ${v})` : '';
+        ctx.issues.push({ code: 'custom', input: v, message: `${what} must be 0 or more${how}.` });
+      }
+    });
 }
 
 export const setupCheckSchema = z.object({
@@ -88,8 +107,8 @@ export const setupCheckSchema = z.object({
   label: z.string({ error: 'Say what is measured.' }).trim().min(1, 'Say what is measured.').max(80, 'Keep the label under 80 characters.'),
   unit: z.enum(CHECK_UNITS, { error: `Unit must be one of: ${CHECK_UNITS.join(', ')}.` }),
   nominal: decimalText('Nominal'),
-  plus: decimalText('Plus tolerance', { min0: true }),
-  minus: decimalText('Minus tolerance', { min0: true }),
+  plus: decimalText('Plus tolerance', { min0: true, sign: 'over' }),
+  minus: decimalText('Minus tolerance', { min0: true, sign: 'under' }),
 }).superRefine((check, ctx) => {
   // A size or an angle measured on the part is never below 0 (a minus sign is a slip: every reading
   // would then fail). 0 stays for what is measured from zero, such as flatness or runout.
