@@ -37,6 +37,8 @@ export type HoldingDrawing =
       readonly blocks: readonly { readonly size: number; readonly label: string }[];
       /** The stack's label ("0.6526 in stack"). */
       readonly stackLabel: string;
+      /** The chosen set cannot make the stack: drawn as an outline of the height needed, not as blocks. */
+      readonly unmakeable?: boolean;
     }
   | { readonly kind: 'tilted-vise' };
 
@@ -190,7 +192,7 @@ export function planHolding(values: HoldingValues, r: TaperResult): CalcResult<H
           ...p.warnings.filter((w) => w !== unmakeableStack(p.stackHeight, u, true)),
           `The ${setName} cannot make a ${p.stackHeight} ${u} stack, and a sine plate's hinge roll cannot be raised to build the difference on two stacks: change the angle to one the set can make, or hold the part another way (see the set-up).`,
         ],
-        drawing,
+        drawing: { ...drawing, blocks: [{ size: Number(p.stackHeight), label: p.stackHeight }], stackLabel: `${p.stackHeight} ${u}: not in set`, unmakeable: true },
       });
     }
     return succeed({

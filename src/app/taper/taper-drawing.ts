@@ -65,6 +65,7 @@ import { type TaperScene, type TaperSceneInput, taperScene } from './taper-scene
     .plate { fill: #c4ced4; stroke: #38454c; stroke-width: 1.5; }
     .gauge { fill: #d8cba8; stroke: #6b5a2b; stroke-width: 1; }
     .gauge.odd { fill: #efe4c4; }
+    .gauge.missing { fill: none; stroke: #c1121f; stroke-dasharray: 4 3; }
     .scale { fill: #f6eed6; fill-opacity: 0.92; stroke: #6b5a2b; stroke-width: 1.25; }
     .fixture-lines { fill: none; stroke: #4a3d1c; stroke-width: 1.25; }
     .roll { fill: #e8edf0; stroke: #16394a; stroke-width: 1.5; }
@@ -106,7 +107,9 @@ export class TaperDrawing {
   protected readonly description = computed(() => {
     const m = this.model();
     if (!m) return '';
-    const held = { 'angle-block': 'on angle blocks in the vise', 'sine-plate': 'on a sine plate set on gauge blocks', 'tilted-vise': 'in a tilting vise' }[m.holding?.kind ?? 'angle-block'];
+    const h = m.holding;
+    const plate = h?.kind === 'sine-plate' && h.unmakeable ? `on a sine plate whose stack, ${h.stackLabel}, the set cannot make` : 'on a sine plate set on gauge blocks';
+    const held = { 'angle-block': 'on angle blocks in the vise', 'sine-plate': plate, 'tilted-vise': 'in a tilting vise' }[h?.kind ?? 'angle-block'];
     return `Part tilted ${m.labels.angle} ${held}, cutter touched off on the highest corner; depth to stop ${m.labels.depthToStop}, face length ${m.labels.faceLength}, end thickness ${m.labels.endThickness}.`;
   });
 }

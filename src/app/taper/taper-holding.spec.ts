@@ -55,6 +55,8 @@ describe('taper work-holding', () => {
     expect(r.value.warnings).toContain(
       "The Inch 81-piece set cannot make a 0.0436 in stack, and a sine plate's hinge roll cannot be raised to build the difference on two stacks: change the angle to one the set can make, or hold the part another way (see the set-up).",
     );
+    // The sketch shows the height needed as an outline, not as blocks that could be wrung.
+    expect(r.value.drawing).toEqual({ kind: 'sine-plate', plateLength: 5, blocks: [{ size: 0.0436, label: '0.0436' }], stackLabel: '0.0436 in: not in set', unmakeable: true });
   });
 
   it('should put a bad plate length on its own control', () => {

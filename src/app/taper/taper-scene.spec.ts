@@ -118,10 +118,13 @@ describe('taperScene work-holding', () => {
     labels: { depthToStop: '8.288 mm', faceLength: '64.049 mm', endThickness: '10.690 mm', angle: '7°30\'00"', cutter: 'Ø19.05 mm cutter', cutterShort: 'Ø19.05 mm' },
   };
   const sinePlate = { kind: 'sine-plate' as const, plateLength: 5, blocks: [{ size: 0.45, label: '0.450' }, { size: 0.102, label: '0.102' }, { size: 0.1006, label: '0.1006' }], stackLabel: '0.6526 in stack' };
+  // A stack the chosen set cannot make: one outline of the height needed, said in its label.
+  const unmakeable = { kind: 'sine-plate' as const, plateLength: 5, blocks: [{ size: 0.6526, label: '0.6526' }], stackLabel: '0.6526 in: not in set', unmakeable: true };
   const holdings = [
     { kind: 'angle-block' as const, blocks: ['5°', '+3°', "−30'"] },
     sinePlate,
     { kind: 'tilted-vise' as const },
+    unmakeable,
   ];
 
   // Drawing widths of a 360–390 px phone (328–358), a tablet (520, 720) and a desktop (960).
@@ -167,6 +170,12 @@ describe('taperScene work-holding', () => {
     const topOfStack = Math.min(...[...gauges[2].d.matchAll(/,(-?[\d.]+)/g)].map((m) => Number(m[1])));
     expect(topOfStack).toBeCloseTo(free.cy + free.r, 0);
     expect(scene.names.map((n) => n.text)).toEqual(expect.arrayContaining(['hinge roll', '0.6526 in stack', 'sine plate']));
+  });
+
+  it('should draw a stack the set cannot make as one dashed outline of the height needed, not as blocks', () => {
+    const scene = taperScene({ ...DEMO, holding: unmakeable }, 640);
+    expect(scene.fixture.filter((f) => f.kind.startsWith('gauge')).map((f) => f.kind)).toEqual(['gauge missing']);
+    expect(scene.names.map((n) => n.text)).toContain('0.6526 in: not in set');
   });
 
   it('should tilt the vise body over its base with a marked scale and an index at the setting', () => {

@@ -49,7 +49,7 @@ export interface PassLine {
 /** One outline of the work-holding, with its style: vise, block, plate, stack block… */
 export interface FixturePart {
   readonly d: string;
-  readonly kind: 'vise-base' | 'vise-jaw' | 'vise-body' | 'block' | 'plate' | 'base' | 'gauge' | 'gauge odd' | 'scale';
+  readonly kind: 'vise-base' | 'vise-jaw' | 'vise-body' | 'block' | 'plate' | 'base' | 'gauge' | 'gauge odd' | 'gauge missing' | 'scale';
 }
 
 /** A name label with its text anchor. */
@@ -368,7 +368,7 @@ function holdingModel(h: HoldingDrawing, g: { T: number; P: number; d: number; a
     const stack = h.blocks.map((b, i) => {
       const rect = [{ x: c2.x - stackW / 2, y }, { x: c2.x + stackW / 2, y }, { x: c2.x + stackW / 2, y: y + b.size * k }, { x: c2.x - stackW / 2, y: y + b.size * k }];
       y += b.size * k;
-      return { points: rect, kind: (i % 2 ? 'gauge odd' : 'gauge') as FixturePart['kind'] };
+      return { points: rect, kind: (h.unmakeable ? 'gauge missing' : i % 2 ? 'gauge odd' : 'gauge') as FixturePart['kind'] };
     });
     return {
       parts: [{ points: base, kind: 'base' }, { points: hinge, kind: 'base' }, ...(H > 0 ? stack : []), { points: plate, kind: 'plate' }],
