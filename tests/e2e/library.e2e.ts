@@ -73,7 +73,7 @@ describe('set-up library, end to end', () => {
     await page.getByRole('button', { name: 'Edit details' }).click();
     await page.getByLabel('Plus').fill('-1');
     await page.getByRole('button', { name: /^Save/ }).click();
-    await page.locator('mat-form-field', { hasText: 'Plus' }).locator('.field-error', { hasText: 'Plus tolerance must be 0 or more.' }).waitFor();
+    await page.locator('mat-form-field', { hasText: 'Plus' }).locator('.field-error', { hasText: 'Plus tolerance must be 0 or more: it is how far over nominal a part may be, so type it without a minus sign (1, not -1).' }).waitFor();
     await page.getByRole('button', { name: 'Cancel' }).click();
     // The refused save is the one expected 400 in the console.
     const refused = machinist.problems.filter((p) => /status of 400/.test(p));
