@@ -188,6 +188,34 @@ describe('training', () => {
     }
   });
 
+  it('keeps the words on every lesson drawing readable on a phone: 10.5 px or more on the screen, inside the drawing', async () => {
+    const { context, page, problems } = await openPage(browser, PHONE);
+    await signInByApi(context, 'apprentice@demo.test');
+    for (const slug of ['right-triangle', 'sine-bar', 'gauge-stack', 'taper-per-foot', 'over-pins']) {
+      await page.goto(`/training/lessons/${slug}`);
+      const svg = page.locator('sw-lesson-drawing svg').first();
+      await svg.locator('text').first().waitFor();
+      // Each text's size on the screen: its font size in view units times the drawing's scale.
+      const texts = await svg.evaluate((el) => {
+        const drawing = el as SVGSVGElement;
+        const scale = drawing.getScreenCTM()?.a ?? 0;
+        const frame = drawing.getBoundingClientRect();
+        return Array.from(drawing.querySelectorAll('text')).map((t) => {
+          const box = t.getBoundingClientRect();
+          const inside = box.left >= frame.left - 0.5 && box.right <= frame.right + 0.5 && box.top >= frame.top - 0.5 && box.bottom <= frame.bottom + 0.5;
+          return { text: t.textContent ?? '', px: Math.round(parseFloat(getComputedStyle(t).fontSize) * scale * 10) / 10, inside };
+        });
+      });
+      expect(texts.length).toBeGreaterThan(0);
+      for (const t of texts) {
+        expect({ slug, ...t, px: t.px >= 10.5 }).toEqual({ slug, text: t.text, px: true, inside: true });
+      }
+      await screenshot(page, `training-lesson-${slug}-390`);
+    }
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
   it('turns the taper angle by dragging the handle on the drawing, and the slider and tan α follow', async () => {
     for (const viewport of [DESKTOP, TABLET]) {
       const { context, page, problems } = await openPage(browser, viewport);

@@ -114,8 +114,8 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
               <rect [attr.x]="b.x" [attr.y]="b.y" [attr.width]="b.width" [attr.height]="b.height" class="stack alt" />
               <text [attr.x]="b.x + b.width / 2" [attr.y]="b.y + b.height / 2 + 5" class="block-label">{{ b.label }}</text>
             }
-            <text x="130" y="296" class="note" text-anchor="middle">fewest</text>
-            <text x="350" y="296" class="note" text-anchor="middle">last digit first</text>
+            <text x="130" y="294" class="note" text-anchor="middle">fewest</text>
+            <text x="350" y="294" class="note" text-anchor="middle">last digit first</text>
           }
           @case ('lathe-taper') {
             @let l = lathe();
@@ -191,7 +191,7 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
   `,
   styles: `
     :host { display: block; }
-    figure { margin: 0; display: grid; gap: 8px; }
+    figure { margin: 0; display: grid; gap: 8px; container-type: inline-size; }
     svg { width: 100%; max-height: 340px; background: var(--mat-sys-surface-container-low); border-radius: 12px; }
     .part { fill: var(--mat-sys-secondary-container); stroke: var(--mat-sys-on-surface); stroke-width: 1.5; }
     .block, .stack { fill: var(--mat-sys-tertiary-container); stroke: var(--mat-sys-on-surface); stroke-width: 1; }
@@ -206,6 +206,20 @@ const KEY_STEPS: Readonly<Record<string, number>> = {
     .tag { font: 600 16px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-primary); }
     .note { font: 13px 'IBM Plex Sans', sans-serif; fill: var(--mat-sys-on-surface-variant); }
     .block-label { font: 12px 'IBM Plex Sans', sans-serif; text-anchor: middle; fill: var(--mat-sys-on-surface); }
+    /*
+     * Text sizes are in view units (480 across), so a narrow drawing shrinks them: on a phone the
+     * text grows in view units to stay about 11 px or more on the screen.
+     */
+    @container (max-width: 420px) {
+      .tag { font-size: 19px; }
+      .note { font-size: 15px; }
+      .block-label { font-size: 14px; }
+    }
+    @container (max-width: 360px) {
+      .tag { font-size: 21px; }
+      .note { font-size: 17px; }
+      .block-label { font-size: 16px; }
+    }
     .slider-row { display: grid; gap: 4px; }
     .length-box { width: min(260px, 100%); }
     .length-error { color: var(--mat-sys-error); margin: 0; }
