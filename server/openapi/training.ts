@@ -79,6 +79,24 @@ export const trainingPaths = {
     },
     delete: { summary: 'Delete an assignment and its work (leads and admins)', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown') } },
   },
+  '/api/training/assignments/{id}/assignees': {
+    post: {
+      summary: 'Give a sent assignment to more apprentices (leads and admins of the team): each gets problems of their own, the same due date and the new-assignment e-mail',
+      parameters: [...id, ...csrf],
+      requestBody: json({
+        type: 'object', required: ['assigneeIds'],
+        properties: {
+          assigneeIds: { type: 'array', minItems: 1, maxItems: 200, items: { type: 'integer', minimum: 1 }, description: 'Active apprentices of the team who do not have the assignment yet' },
+          timeZone: { type: 'string', maxLength: 64, description: "The lead's IANA time zone for the e-mail; default UTC" },
+        },
+      }),
+      responses: {
+        201: { description: 'The assignment with everyone\'s work; mailSent counts the notices the SMTP server accepted', ...json(assignment) },
+        400: errorResponse('Not active apprentices of the team, an empty list or an unknown time zone'), 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown or another team\'s'),
+        409: errorResponse('Some of them already have it (named); nobody is added'),
+      },
+    },
+  },
   '/api/training/assignments/{id}/work': {
     get: { summary: 'Your own problems of an assignment', parameters: id, responses: { 200: { description: 'Assignment and problems', ...json({ type: 'object', properties: { assignment, problems: { type: 'array', items: problem } } }) }, 404: errorResponse('Not assigned to you') } },
   },

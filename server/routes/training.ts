@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
-import { assignmentCreateBody, assignmentDueBody, attemptBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
+import { assignmentAddBody, assignmentCreateBody, assignmentDueBody, attemptBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
 import { checkAnswer } from '../../shared/training/exercise';
 import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
 import { generateExercise } from '../../shared/training/generators';
@@ -140,6 +140,39 @@ export function createTrainingRouter(): Router {
       notify.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, '', { timeZone, dueMoved: true }))),
     );
     res.json({ ...assignmentDto(assignment, work), mailSent: sent.filter(Boolean).length });
+  });
+
+  // A lead or admin gives the assignment to more apprentices (someone who joined later): each gets
+  // problems of their own and the new-assignment e-mail. Those who already have it are refused.
+  router.post('/assignments/:id/assignees', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), lead);
+    const body = parseBody(assignmentAddBody, req.body);
+    const ids = [...new Set(body.assigneeIds)];
+    const apprentices = await User.findAll({ where: { id: { [Op.in]: ids }, teamId: lead.teamId, role: 'apprentice', active: true } });
+    if (apprentices.length !== ids.length) {
+      throw new HttpError(400, 'Some fields are not valid.', { assigneeIds: 'Choose active apprentices of your team only.' });
+    }
+    await Assignment.sequelize!.transaction(async (transaction) => {
+      // Locks the assignment row, so two leads adding the same apprentice at once cannot both do it.
+      await Assignment.findOne({ where: { id: assignment.id }, lock: transaction.LOCK.UPDATE, transaction });
+      const already = await AssignmentWork.findAll({ where: { assignmentId: assignment.id, userId: { [Op.in]: ids } }, transaction });
+      if (already.length) {
+        const names = apprentices.filter((a) => already.some((w) => w.userId === a.id)).map((a) => a.name);
+        throw new HttpError(409, `${names.join(', ')} already ${names.length === 1 ? 'has' : 'have'} this assignment; choose only apprentices who do not.`);
+      }
+      for (const apprentice of apprentices) {
+        const work = await AssignmentWork.create({ assignmentId: assignment.id, userId: apprentice.id, seed: newSeed() }, { transaction });
+        await TrainingProblem.bulkCreate(plannedProblems(assignment.items, work.seed).map((p) => ({ ...p, workId: work.id })), { transaction });
+      }
+    });
+    const total = assignment.items.reduce((n, i) => n + i.count, 0);
+    const timeZone = body.timeZone ?? 'UTC';
+    const sent = await Promise.all(
+      apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, assignment.dueAt, lead.name, assignment.id, assignment.instructions, { timeZone }))),
+    );
+    const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
+    res.status(201).json({ ...assignmentDto(assignment, work), mailSent: sent.filter(Boolean).length });
   });
 
   router.delete('/assignments/:id', leadOnly, async (req, res) => {

@@ -198,6 +198,16 @@ export const assignmentDueBody = z.object({
 });
 export type AssignmentDueBody = z.input<typeof assignmentDueBody>;
 
+/** POST /api/training/assignments/:id/assignees: apprentices given the assignment after it was made (leads and admins). */
+export const assignmentAddBody = z.object({
+  assigneeIds: z
+    .array(z.number().int().positive(), { error: 'Choose at least one apprentice to add.' })
+    .min(1, 'Choose at least one apprentice to add.')
+    .max(200, 'Choose at most 200 apprentices.'),
+  timeZone: timeZoneField,
+});
+export type AssignmentAddBody = z.input<typeof assignmentAddBody>;
+
 /** POST /api/training/assignments/:id/problems/:position/attempts */
 export const attemptBody = z.object({
   answer: z.string({ error: 'Type your answer.' }).trim().min(1, 'Type your answer.').max(60, 'That answer is too long.'),

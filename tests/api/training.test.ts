@@ -369,6 +369,58 @@ describe('/api/training', () => {
     });
   });
 
+  describe('giving a sent assignment to more apprentices', () => {
+    let id: number;
+    let third: User;
+    let thirdClient: Client;
+    const add = (who: Client, assignmentId: number | string, payload: object) => post(who, `/api/training/assignments/${assignmentId}/assignees`, payload);
+    beforeAll(async () => {
+      id = (await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'Joined later', items: [{ type: 'taper-depth', count: 2 }] })).expect(201)).body.id;
+      third = await User.create({ teamId: m.team.id, email: `third.${m.apprentice.email}`, name: `Third ${m.apprentice.name}`, role: 'apprentice', passwordHash: await bcrypt.hash(PASSWORD, BCRYPT_COST) });
+      thirdClient = await client(t.app, third);
+    });
+
+    it('gives each new apprentice problems of their own and the new-assignment e-mail on the lead\'s clock', async () => {
+      const res = await add(c.lead, id, { assigneeIds: [second.id, third.id], timeZone: 'Europe/Berlin' }).expect(201);
+      expect(res.body).toMatchObject({ id, mailSent: 2 });
+      expect(res.body.work.map((w: { userId: number }) => w.userId).sort()).toEqual([m.apprentice.id, second.id, third.id].sort());
+      const works = await AssignmentWork.findAll({ where: { assignmentId: id } });
+      expect(new Set(works.map((w) => w.seed)).size).toBe(3);
+      const thirdWork = works.find((w) => w.userId === third.id)!;
+      const problems = await TrainingProblem.findAll({ where: { workId: thirdWork.id }, order: [['position', 'ASC']] });
+      expect(problems.map((p) => p.type)).toEqual(['taper-depth', 'taper-depth']);
+      const due = (await Assignment.findByPk(id))!.dueAt;
+      const mail = await waitForMail(third.email, 'New training assignment: Joined later');
+      expect(mail.text).toContain(timeInZoneText(due, 'Europe/Berlin'));
+      // The new apprentice works it like the others.
+      await post(thirdClient, `/api/training/assignments/${id}/problems/1/attempts`, { answer: await answerOf(id, third.id, 1) }).expect(201);
+    });
+
+    it('refuses an apprentice who already has it with 409 naming them, adding nobody', async () => {
+      const fourth = await User.create({ teamId: m.team.id, email: `fourth.${m.apprentice.email}`, name: 'Fourth Apprentice', role: 'apprentice', passwordHash: await bcrypt.hash(PASSWORD, BCRYPT_COST) });
+      const res = await add(c.lead, id, { assigneeIds: [fourth.id, m.apprentice.id] }).expect(409);
+      expect(res.body.error).toBe(`${m.apprentice.name} already has this assignment; choose only apprentices who do not.`);
+      expect(await AssignmentWork.count({ where: { assignmentId: id, userId: fourth.id } })).toBe(0);
+    });
+
+    it('takes active apprentices of the own team only, and names a bad list with 400', async () => {
+      expect((await add(c.lead, id, { assigneeIds: [foreign.apprentice.id] }).expect(400)).body.fields.assigneeIds).toBe('Choose active apprentices of your team only.');
+      await add(c.lead, id, { assigneeIds: [m.machinist.id] }).expect(400);
+      expect((await add(c.lead, id, { assigneeIds: [] }).expect(400)).body.fields.assigneeIds).toBe('Choose at least one apprentice to add.');
+      expect((await add(c.lead, id, {}).expect(400)).body.fields.assigneeIds).toBe('Choose at least one apprentice to add.');
+      expect(Object.keys((await add(c.lead, id, { assigneeIds: [m.apprentice.id], timeZone: 'Nowhere/Atall' }).expect(400)).body.fields)).toEqual(['timeZone']);
+    });
+
+    it('lets admins of the team add; apprentices and machinists get 403, another team 404', async () => {
+      const fifth = await User.create({ teamId: m.team.id, email: `fifth.${m.apprentice.email}`, name: 'Fifth Apprentice', role: 'apprentice', passwordHash: await bcrypt.hash(PASSWORD, BCRYPT_COST) });
+      await add(c.apprentice, id, { assigneeIds: [fifth.id] }).expect(403);
+      await add(c.machinist, id, { assigneeIds: [fifth.id] }).expect(403);
+      expect((await add(c.foreign, id, { assigneeIds: [foreign.apprentice.id] }).expect(404)).body.error).toBe('No assignment with that id in your team.');
+      await add(c.lead, 'abc', { assigneeIds: [fifth.id] }).expect(404);
+      await add(c.admin, id, { assigneeIds: [fifth.id] }).expect(201);
+    });
+  });
+
   describe('an apprentice\'s own list and a stale page', () => {
     it('lists open work above finished work, soonest due first', async () => {
       const team = await makeTeam('training-order');

@@ -95,6 +95,7 @@ const RULES: Record<string, Rule> = {
   'GET /api/training/assignments/:id': ['admin', 'lead', 'apprentice'],
   'DELETE /api/training/assignments/:id': LEADS,
   'PATCH /api/training/assignments/:id': LEADS,
+  'POST /api/training/assignments/:id/assignees': LEADS,
   'GET /api/training/assignments/:id/work': ['admin', 'lead', 'apprentice'],
   'GET /api/training/assignments/:id/work/:userId': LEADS,
   'POST /api/training/assignments/:id/problems/:position/hints': ['apprentice'],

@@ -166,6 +166,8 @@ beforeAll(async () => {
     'POST /api/team/invitations': { email: `fuzz2.${m.team.id}@example.test`, role: 'apprentice' },
     'POST /api/training/assignments': { title: 'T', instructions: 'I', items: { list: [{ entries: [['type', 'sine-stack'], ['count', 1]] }] }, dueAt: '2030-01-01T12:00:00Z', assigneeIds: { list: [m.apprentice.id] } },
     'POST /api/training/assignments/:id/problems/:position/attempts': { answer: '1.000' },
+    'POST /api/training/assignments/:id/assignees': { assigneeIds: { list: [m.apprentice.id] }, timeZone: 'Europe/Berlin' },
+    'PATCH /api/training/assignments/:id': { dueAt: '2030-01-01T12:00:00Z', timeZone: 'America/Chicago' },
     'POST /api/calc/taper': taper,
     'POST /api/calc/sine-bar': { unit: 'in', barLength: '5', angle: '12' },
     'POST /api/calc/gauge-stack': { unit: 'in', target: '2.0084', set: 'inch-81' },

@@ -32,7 +32,10 @@ describe('AssignmentsPage', () => {
     }
   }
 
-  async function open(role: 'lead' | 'apprentice'): Promise<void> {
+  const SAM = { id: 4, email: 'sam@example.test', name: 'Sam Okafor', role: 'apprentice', active: true, createdAt: DUE };
+  const RIA = { id: 6, email: 'ria@example.test', name: 'Ria Venn', role: 'apprentice', active: true, createdAt: DUE };
+
+  async function open(role: 'lead' | 'apprentice', members: object[] = [SAM]): Promise<void> {
     const user = { id: role === 'lead' ? 2 : 4, email: 'x@example.test', name: 'X', role };
     TestBed.configureTestingModule({
       providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Auth, useValue: { user: signal(user), ready: () => Promise.resolve(user) } }],
@@ -46,9 +49,19 @@ describe('AssignmentsPage', () => {
     if (role === 'lead') {
       http.expectOne('/api/training/scores').flush(SCORES);
       await settle();
-      http.expectOne('/api/team/members').flush({ members: [{ id: 4, email: 'sam@example.test', name: 'Sam Okafor', role: 'apprentice', active: true, createdAt: DUE }] });
+      http.expectOne('/api/team/members').flush({ members });
       await settle();
     }
+  }
+
+  /** Answers the lead's reload after a change: the list, the score table and the members. */
+  async function flushReload(assignments: AssignmentDto[], members: object[]): Promise<void> {
+    http.expectOne('/api/training/assignments').flush({ assignments });
+    await settle();
+    http.expectOne('/api/training/scores').flush(SCORES);
+    await settle();
+    http.expectOne('/api/team/members').flush({ members });
+    await settle();
   }
 
   afterEach(() => http.verify());
@@ -116,12 +129,7 @@ describe('AssignmentsPage', () => {
     expect(req.request.body).toEqual({ dueAt: new Date('2026-12-10T16:00').toISOString(), timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone });
     req.flush({ ...ASSIGNMENT, dueAt: new Date('2026-12-10T16:00').toISOString(), mailSent: 1 });
     await settle();
-    http.expectOne('/api/training/assignments').flush({ assignments: [ASSIGNMENT] });
-    await settle();
-    http.expectOne('/api/training/scores').flush(SCORES);
-    await settle();
-    http.expectOne('/api/team/members').flush({ members: [] });
-    await settle();
+    await flushReload([ASSIGNMENT], []);
     expect(el.querySelector('[role=status]')!.textContent).toContain(`"Tonight: one sine stack" is now due ${localTimeText(new Date('2026-12-10T16:00').toISOString())}; 1 e-mail notice sent`);
     expect(el.querySelector('.due-form')).toBeNull();
   });
@@ -137,6 +145,51 @@ describe('AssignmentsPage', () => {
     const field = el.querySelector('.due-form mat-form-field')!;
     expect(field.classList).toContain('mat-form-field-invalid');
     expect(field.textContent).toContain('The due date has passed');
+  });
+
+  it('should offer "Add apprentices" only while an active apprentice lacks the assignment, and tick only those', async () => {
+    await open('lead');
+    expect(el.querySelector('button[aria-label="Add apprentices to Tonight: one sine stack"]')).toBeNull();
+    fixture.destroy();
+    TestBed.resetTestingModule();
+    await open('lead', [SAM, RIA, { ...RIA, id: 7, name: 'Gone Apprentice', active: false }]);
+    (el.querySelector('button[aria-label="Add apprentices to Tonight: one sine stack"]') as HTMLButtonElement).click();
+    await settle();
+    const form = el.querySelector('.add-form')!;
+    expect(Array.from(form.querySelectorAll('mat-checkbox')).map((c) => c.textContent!.trim())).toEqual(['Ria Venn']);
+    // Nothing ticked: said by the box, nothing sent.
+    (form.querySelector('button[type=submit]') as HTMLButtonElement).click();
+    await settle();
+    http.expectNone('/api/training/assignments/8/assignees');
+    expect(form.querySelector('[role=alert]')!.textContent).toContain('Tick at least one apprentice');
+    (form.querySelector('mat-checkbox input') as HTMLInputElement).click();
+    await settle();
+    (form.querySelector('button[type=submit]') as HTMLButtonElement).click();
+    await settle();
+    const req = http.expectOne('/api/training/assignments/8/assignees');
+    expect(req.request.method).toBe('POST');
+    expect(req.request.body).toEqual({ assigneeIds: [6], timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone });
+    req.flush({ ...ASSIGNMENT, work: [summary, { ...summary, userId: 6, name: 'Ria Venn', status: 'not-started' }], mailSent: 1 });
+    await settle();
+    await flushReload([{ ...ASSIGNMENT, work: [summary, { ...summary, userId: 6, name: 'Ria Venn' }] }], [SAM, RIA]);
+    expect(el.querySelector('[role=status]')!.textContent).toContain('"Tonight: one sine stack" given to Ria Venn; 1 e-mail notice sent.');
+    expect(el.querySelector('.add-form')).toBeNull();
+    // Both have it now: the button is gone.
+    expect(el.querySelector('button[aria-label="Add apprentices to Tonight: one sine stack"]')).toBeNull();
+  });
+
+  it('should show a refusal of the server in the add box and reload the list', async () => {
+    await open('lead', [SAM, RIA]);
+    (el.querySelector('button[aria-label="Add apprentices to Tonight: one sine stack"]') as HTMLButtonElement).click();
+    await settle();
+    (el.querySelector('.add-form mat-checkbox input') as HTMLInputElement).click();
+    await settle();
+    (el.querySelector('.add-form button[type=submit]') as HTMLButtonElement).click();
+    await settle();
+    http.expectOne('/api/training/assignments/8/assignees').flush({ error: 'Ria Venn already has this assignment; choose only apprentices who do not.' }, { status: 409, statusText: 'Conflict' });
+    await settle();
+    await flushReload([ASSIGNMENT], [SAM, RIA]);
+    expect(el.querySelector('.add-form [role=alert]')!.textContent).toContain('Ria Venn already has this assignment');
   });
 
   it('should show an apprentice their due times on their own clock', async () => {

@@ -87,7 +87,7 @@ export default class AssignmentsPage {
   protected readonly editingDue = signal<number | null>(null);
   protected readonly newDue = signal('');
   protected readonly dueError = signal<string | null>(null);
-  protected readonly dueMessage = signal<string | null>(null);
+  protected readonly listMessage = signal<string | null>(null);
   protected readonly dueRefused = new RefusedField(() => !!this.dueError());
   /** A stored time on this browser's clock, with the zone named. */
   protected readonly time = (iso: string) => localTimeText(iso);
@@ -167,7 +167,7 @@ export default class AssignmentsPage {
     this.editingDue.set(a.id);
     this.newDue.set(toLocalInput(a.dueAt));
     this.dueError.set(null);
-    this.dueMessage.set(null);
+    this.listMessage.set(null);
   }
 
   protected cancelDue(): void {
@@ -181,12 +181,65 @@ export default class AssignmentsPage {
     try {
       const changed = await firstValueFrom(this.api.changeDue(a.id, { dueAt: fromLocalInput(this.newDue()), timeZone: browserTimeZone() }));
       this.editingDue.set(null);
-      this.dueMessage.set(
+      this.listMessage.set(
         `"${changed.title}" is now due ${this.time(changed.dueAt)}; ${changed.mailSent} e-mail notice${changed.mailSent === 1 ? '' : 's'} sent to apprentices who have not finished.`,
       );
       await this.load();
     } catch (err) {
       this.dueError.set(apiFieldErrors(err)['dueAt'] ?? apiErrorMessage(err));
+    }
+  }
+
+  /** The assignment whose "add apprentices" box is open, and who is ticked in it. */
+  protected readonly addingTo = signal<number | null>(null);
+  protected readonly addChosen = signal<ReadonlySet<number>>(new Set());
+  protected readonly addError = signal<string | null>(null);
+
+  /** Active apprentices of the team who do not have the assignment yet. */
+  protected notGiven(a: AssignmentDto): MemberDto[] {
+    const given = new Set(a.work.map((w) => w.userId));
+    return this.apprentices().filter((m) => !given.has(m.id));
+  }
+
+  protected openAdd(a: AssignmentDto): void {
+    this.addingTo.set(a.id);
+    this.addChosen.set(new Set());
+    this.addError.set(null);
+    this.listMessage.set(null);
+  }
+
+  protected cancelAdd(): void {
+    this.addingTo.set(null);
+    this.addError.set(null);
+  }
+
+  protected toggleAdd(id: number, on: boolean): void {
+    this.addChosen.update((set) => {
+      const next = new Set(set);
+      if (on) next.add(id);
+      else next.delete(id);
+      return next;
+    });
+  }
+
+  /** Gives the assignment to the ticked apprentices: each gets problems of their own and an e-mail. */
+  protected async saveAdd(a: AssignmentDto): Promise<void> {
+    this.addError.set(null);
+    const ids = [...this.addChosen()];
+    if (!ids.length) {
+      this.addError.set('Tick at least one apprentice to give it to.');
+      return;
+    }
+    try {
+      const changed = await firstValueFrom(this.api.addAssignees(a.id, { assigneeIds: ids, timeZone: browserTimeZone() }));
+      this.addingTo.set(null);
+      const names = this.apprentices().filter((m) => ids.includes(m.id)).map((m) => m.name);
+      this.listMessage.set(`"${changed.title}" given to ${names.join(', ')}; ${changed.mailSent} e-mail notice${changed.mailSent === 1 ? '' : 's'} sent.`);
+      await this.load();
+    } catch (err) {
+      this.addError.set(apiFieldErrors(err)['assigneeIds'] ?? apiErrorMessage(err));
+      // Someone else may have added an apprentice meanwhile: show the list as it is now.
+      await this.load();
     }
   }
 

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { AssignmentCreateBody, AssignmentDto, AssignmentDueBody, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
+import type { AssignmentAddBody, AssignmentCreateBody, AssignmentDto, AssignmentDueBody, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
 import { quietErrors } from '../core/api-error';
 
 /** One apprentice's copy of an assignment: the assignment and their problems. */
@@ -29,6 +29,11 @@ export class TrainingApi {
   /** Moves an assignment's due date (leads and admins); a refusal comes back as a 400 for the form. */
   changeDue(id: number, body: AssignmentDueBody): Observable<AssignmentDto & { mailSent: number }> {
     return this.http.patch<AssignmentDto & { mailSent: number }>(`/api/training/assignments/${id}`, body, { context: quietErrors() });
+  }
+
+  /** Gives an assignment to more apprentices (leads and admins); a refusal comes back for the form. */
+  addAssignees(id: number, body: AssignmentAddBody): Observable<AssignmentDto & { mailSent: number }> {
+    return this.http.post<AssignmentDto & { mailSent: number }>(`/api/training/assignments/${id}/assignees`, body, { context: quietErrors() });
   }
 
   /** Deletes an assignment and its work. */
