@@ -191,6 +191,21 @@ describe('GaugeBlocksPage with the team inventory', () => {
     http.expectNone((r) => r.url.endsWith('/stack'));
     expect(page.fixture.componentInstance['form'].controls.set.value).toBe('inch-81');
     expect(page.resultValue('Stack length')).toBe('1.2519');
+    // Said, not silent: the box named is not used, and the set used instead is named.
+    const problems = Array.from(page.el.querySelectorAll('sw-warnings')).map((w) => w.textContent).join(' ');
+    expect(problems).toContain("The gauge-block box this page was opened with (no. 99) is not in your team's inventory");
+    expect(problems).toContain('worked out from the Inch 81-piece set instead.');
+    // Choosing another set ends the note.
+    page.fixture.componentInstance['form'].controls.set.setValue('inch-36');
+    await page.settle();
+    expect(page.el.textContent).not.toContain('(no. 99)');
+  });
+
+  it('should ask a visitor with a link to a team box to sign in, and say which set is used meanwhile', async () => {
+    await create(false, '/gauge-blocks?set=box:7');
+    http.expectNone('/api/inventories');
+    expect(page.fixture.componentInstance['form'].controls.set.value).toBe('inch-81');
+    expect(page.el.textContent).toContain("This page was opened with a team's gauge-block box (no. 7): sign in to use it. The stack below is worked out from the Inch 81-piece set instead.");
   });
 
   it('should keep the standard sets only and ask nothing of the inventory for a visitor', async () => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -60,7 +60,9 @@ export default class GaugeBlocksPage {
   /** The unit in use. */
   protected readonly unit = computed<LengthUnit>(() => (this.unitValue() === 'mm' ? 'mm' : 'in'));
   /** The signed-in team's gauge-block sets (none for a visitor). */
-  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, standardDefault);
+  /** Set when a box named by the link or set-up could not be used. */
+  protected readonly replacedBox = signal<string | null>(null);
+  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, standardDefault, this.replacedBox);
   /** The team's set chosen, or null for a standard set. */
   protected readonly ownBox = computed(() => this.boxes().find((b) => b.value === this.setValue()) ?? null);
   /** The stack from the box, asked of the inventory route (only for a set the team's list holds). */

@@ -1,5 +1,5 @@
 import { HttpClient, HttpErrorResponse, HttpParams } from '@angular/common/http';
-import { DestroyRef, type Signal, computed, inject, signal } from '@angular/core';
+import { DestroyRef, type Signal, type WritableSignal, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { FormControl } from '@angular/forms';
 import { ActivatedRoute } from '@angular/router';
@@ -11,6 +11,7 @@ import type { LengthUnit } from '../../../shared/units/length-unit';
 import { apiErrorMessage, apiFieldErrors, quietErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { boxIdOf } from '../../../shared/forms/gauge-blocks-form';
+import { findGaugeSet } from '../../../shared/data/gauge-sets';
 
 /**
  * The set picker's value for one of the team's own gauge-block sets: `box:<id>`. Standard sets
@@ -62,6 +63,14 @@ export function toOwnBox(s: InventorySetDto): OwnBox | null {
     notes: `${t.available} of ${t.blocks} blocks usable${out ? ` (${out})` : ''}`,
     allUsable: t.missing + t.damaged === 0,
   };
+}
+
+/** Why a named team box is not used, and what is shown instead. */
+export function replacedBoxText(boxId: number, signedIn: boolean, instead: string | null): string {
+  const why = signedIn
+    ? `The gauge-block box this page was opened with (no. ${boxId}) is not in your team's inventory: it was deleted, belongs to another team, or is in the other unit.`
+    : `This page was opened with a team's gauge-block box (no. ${boxId}): sign in to use it.`;
+  return instead ? `${why} The stack below is worked out from the ${instead} instead.` : `${why} No set is chosen instead: pick one.`;
 }
 
 /** A block size the inventory leaves out of the solve. */
@@ -174,9 +183,16 @@ function excludedOf(err: unknown): readonly ExcludedBlock[] {
  *   unless the URL or a saved set-up named a set or the user already picked one;
  * - a `box:<id>` choice that is not (or no longer) the team's — signed out, another team's
  *   link — falls back to `fallback(unit)`, a standard set.
+ *   `replaced` then says so, naming the set shown instead, so a set-up or link that named a box is
+ *   never silently answered from another set.
  * Anonymous visitors never cause a request. Call in an injection context, after bindQueryState.
  */
-export function bindOwnBoxes(setControl: FormControl<string>, unit: Signal<LengthUnit>, fallback: (unit: LengthUnit) => string): Signal<readonly OwnBox[]> {
+export function bindOwnBoxes(
+  setControl: FormControl<string>,
+  unit: Signal<LengthUnit>,
+  fallback: (unit: LengthUnit) => string,
+  replaced?: WritableSignal<string | null>,
+): Signal<readonly OwnBox[]> {
   const auth = inject(Auth);
   const http = inject(HttpClient);
   const route = inject(ActivatedRoute);
@@ -199,13 +215,26 @@ export function bindOwnBoxes(setControl: FormControl<string>, unit: Signal<Lengt
     }),
   );
   const boxes = signal<readonly OwnBox[] | null>(null);
+  // The set shown in place of a box that could not be used; choosing any other set ends the note.
+  let shownInstead: string | null = null;
+  if (replaced) {
+    setControl.valueChanges.pipe(takeUntilDestroyed(destroyRef)).subscribe((value) => {
+      if (shownInstead !== null && value !== shownInstead) {
+        shownInstead = null;
+        replaced.set(null);
+      }
+    });
+  }
 
   list$.pipe(takeUntilDestroyed(destroyRef)).subscribe((list) => {
     boxes.set(list);
     if (list === null) return;
     const chosen = boxIdOf(setControl.value);
     if (chosen !== null && !list.some((b) => b.id === chosen && b.unit === unit())) {
-      setControl.setValue(fallback(unit()));
+      const instead = fallback(unit());
+      shownInstead = instead;
+      setControl.setValue(instead);
+      replaced?.set(replacedBoxText(chosen, auth.user() !== null, findGaugeSet(instead)?.name ?? null));
       return;
     }
     if (!defaulted && !named && !setControl.dirty && chosen === null) {

@@ -83,7 +83,9 @@ export default class SineBarPage {
     return o && (o.mode === 'angle' || o.mode === 'stack') ? o.single : null;
   });
   /** The signed-in team's gauge-block sets (none for a visitor). */
-  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, defaultSet);
+  /** Set when a box named by the link or set-up could not be used. */
+  protected readonly replacedBox = signal<string | null>(null);
+  private readonly boxes = bindOwnBoxes(this.form.controls.set, this.unit, defaultSet, this.replacedBox);
   /** The team's set chosen, or null. */
   protected readonly ownBox = computed(() => this.boxes().find((b) => b.value === this.setValue()) ?? null);
   /** The blocks of the stack height from the team's box, asked of the inventory route (no wear blocks under a roll). */
