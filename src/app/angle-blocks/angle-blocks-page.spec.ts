@@ -1,3 +1,4 @@
+import { ANGLE_BLOCK_SETS } from '../../../shared/data/angle-block-sets';
 import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 
@@ -107,6 +108,22 @@ describe('AngleBlocksPage', () => {
       expect(page.resultValue('Blocks')).toBe('15° + 3°');
       expect(page.resultValue('Angle the blocks make')).toBe(`18°00'00"`);
       expect(page.el.textContent).toContain('2 of 3 blocks usable (1 missing)');
+    });
+
+    it('should say so when the box named is not the team\'s, and name the set used instead', async () => {
+      await page.open('/angle-blocks?set=box:9&angle=17', { signedIn: true });
+      http = TestBed.inject(HttpTestingController);
+      http.expectOne('/api/inventories/angle-sets/9').flush({ error: 'No block set with that id in your team.' }, { status: 404, statusText: 'Not Found' });
+      http.expectOne('/api/inventories').flush({ gaugeSets: [], angleSets: [] });
+      await page.settle();
+      expect(page.fixture.componentInstance['form'].controls.set.value).toBe('angle-13-npl');
+      const set = ANGLE_BLOCK_SETS.find((s) => s.id === 'angle-13-npl')!.name;
+      expect(page.el.textContent).toContain(`The angle-block box this page was opened with (no. 9) is not in your team's inventory: it was deleted or belongs to another team. The blocks below are worked out from the ${set} instead.`);
+      // Choosing a set ends the note.
+      page.fixture.componentInstance['form'].controls.set.setValue('box:2');
+      http.expectOne('/api/inventories/angle-sets/2').flush(box(0));
+      await page.settle();
+      expect(page.el.textContent).not.toContain('(no. 9)');
     });
 
     it('should refuse a typed combination that uses the missing block', async () => {

@@ -14,6 +14,7 @@ import { type CalcResult, invalid } from '../../../shared/calc/step';
 import { boxIdOf } from '../../../shared/forms/gauge-blocks-form';
 import { Auth } from '../core/auth';
 import { InventoryApi } from '../inventory/inventory-api';
+import { replacedBoxText } from '../gauge-blocks/own-boxes';
 import { ANGLE_BLOCK_SETS } from '../../../shared/data/angle-block-sets';
 import { CalcPageLayout } from '../workbench/calc-page-layout';
 import { CautionPanel } from '../workbench/caution-panel';
@@ -106,6 +107,8 @@ export default class AngleBlocksPage {
   protected readonly calc = liveCalc<AngleBlocksForm, AngleBlocksResult>(this.form, (v) => angleBlocksRequest(v, this.boxBlocks));
   /** The signed-in team's angle-block boxes (none for a visitor). */
   protected readonly ownBoxes = signal<readonly OwnAngleBox[]>([]);
+  /** Set when a box named by the link or set-up could not be used. */
+  protected readonly replacedBox = signal<string | null>(null);
   private readonly inventory = inject(InventoryApi);
   private readonly auth = inject(Auth);
   protected readonly controlMessage = controlMessage;
@@ -148,7 +151,10 @@ export default class AngleBlocksPage {
         error: () => this.ownBoxes.set([]),
       });
     });
-    this.form.controls.set.valueChanges.pipe(startWith(this.form.controls.set.value), takeUntilDestroyed()).subscribe((set) => this.loadBox(set));
+    this.form.controls.set.valueChanges.pipe(startWith(this.form.controls.set.value), takeUntilDestroyed()).subscribe((set) => {
+      if (set !== ANGLE_BLOCKS_DEFAULTS.set) this.replacedBox.set(null);
+      this.loadBox(set);
+    });
   }
 
   /** Loads a team box's usable blocks once, then recomputes with them. */
@@ -160,7 +166,12 @@ export default class AngleBlocksPage {
         this.boxBlocks.set(id, boxBlockAngles(box.blocks ?? []));
         this.form.updateValueAndValidity();
       },
-      error: () => this.form.controls.set.setValue(ANGLE_BLOCKS_DEFAULTS.set),
+      error: () => {
+        // Said, not silent: the box named by the link or set-up is not used.
+        const instead = ANGLE_BLOCKS_DEFAULTS.set;
+        this.form.controls.set.setValue(instead);
+        this.replacedBox.set(replacedBoxText(id, this.auth.user() !== null, ANGLE_BLOCK_SETS.find((s) => s.id === instead)?.name ?? null, 'angle-block'));
+      },
     });
   }
 

@@ -66,11 +66,13 @@ export function toOwnBox(s: InventorySetDto): OwnBox | null {
 }
 
 /** Why a named team box is not used, and what is shown instead. */
-export function replacedBoxText(boxId: number, signedIn: boolean, instead: string | null): string {
+export function replacedBoxText(boxId: number, signedIn: boolean, instead: string | null, what: 'gauge-block' | 'angle-block' = 'gauge-block'): string {
+  const other = what === 'gauge-block' ? ', or is in the other unit' : '';
   const why = signedIn
-    ? `The gauge-block box this page was opened with (no. ${boxId}) is not in your team's inventory: it was deleted, belongs to another team, or is in the other unit.`
-    : `This page was opened with a team's gauge-block box (no. ${boxId}): sign in to use it.`;
-  return instead ? `${why} The stack below is worked out from the ${instead} instead.` : `${why} No set is chosen instead: pick one.`;
+    ? `The ${what} box this page was opened with (no. ${boxId}) is not in your team's inventory: it was deleted${other ? ',' : ' or'} belongs to another team${other}.`
+    : `This page was opened with a team's ${what} box (no. ${boxId}): sign in to use it.`;
+  const result = what === 'gauge-block' ? 'The stack below is' : 'The blocks below are';
+  return instead ? `${why} ${result} worked out from the ${instead} instead.` : `${why} No set is chosen instead: pick one.`;
 }
 
 /** A block size the inventory leaves out of the solve. */
