@@ -144,7 +144,8 @@ describe('training', () => {
       };
       return {
         scrolls: el.scrollWidth > el.clientWidth,
-        pageScrolls: document.documentElement.scrollWidth > document.documentElement.clientWidth,
+        // The page scrolls in the side-menu layout's content box, not the document.
+        pageScrolls: ((c) => c.scrollWidth > c.clientWidth)(document.querySelector('mat-sidenav-content')!),
         names: Array.from(el.querySelectorAll('th[scope=row] .name')).map((n) => [n.textContent, lines(n)]),
         scores: Array.from(el.querySelectorAll('td strong')).map((n) => [n.textContent, lines(n)]),
       };
