@@ -122,6 +122,19 @@ describe('training', () => {
     await lead.page.locator('.solution').getByText(exercise.steps[0]!.formula, { exact: true }).first().waitFor();
     await screenshot(lead.page, 'training-lead-work-review-1280');
     expect(await contentViolations(lead.page)).toBe('');
+    // An apprentice who joins later is given the same assignment from the list: problems of her own and the e-mail.
+    await lead.page.goto('/training/assignments');
+    await lead.page.getByRole('button', { name: `Add apprentices to ${title}` }).click();
+    await lead.page.getByRole('group', { name: `Give "${title}" to` }).getByRole('checkbox', { name: 'Juno Pell' }).check();
+    await lead.page.getByRole('button', { name: 'Give it to them' }).click();
+    await lead.page.getByText(`"${title}" given to Juno Pell; 1 e-mail notice sent.`).waitFor();
+    await lead.page.getByRole('listitem').filter({ hasText: title }).getByText('2 apprentices').waitFor();
+    await expect(lead.page.getByRole('button', { name: `Add apprentices to ${title}` }).count()).resolves.toBe(0);
+    const late = await waitForMail('juno@demo.test', title);
+    expect(late.text).toContain(path);
+    const juno = await User.findOne({ where: { email: 'juno@demo.test' } });
+    const junoWork = await AssignmentWork.findOne({ where: { assignmentId: Number(link![1]), userId: juno!.id } });
+    expect(junoWork!.seed).not.toBe(work!.seed);
     // The one refusal asked for above (1.5 problems), which the browser logs; nothing else.
     expect(lead.problems).toEqual(['console: Failed to load resource: the server responded with a status of 400 (Bad Request)']);
     await lead.context.close();
