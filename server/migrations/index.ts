@@ -8,6 +8,7 @@ import * as trainingAndTeamMail from './20261201-0601-training-and-team-mail';
 import * as setupListIndexes from './20261201-0701-setup-list-indexes';
 import * as batchPartCorrections from './20261203-0801-batch-part-corrections';
 import * as setupReleasedVersion from './20261204-0901-setup-released-version';
+import * as problemGrade from './20261204-1001-problem-grade';
 
 export interface Migration {
   readonly name: string;
@@ -26,4 +27,5 @@ export const migrations: readonly Migration[] = [
   { name: '20261201-0701-setup-list-indexes', ...setupListIndexes },
   { name: '20261203-0801-batch-part-corrections', ...batchPartCorrections },
   { name: '20261204-0901-setup-released-version', ...setupReleasedVersion },
+  { name: '20261204-1001-problem-grade', ...problemGrade },
 ];

@@ -13,6 +13,11 @@ export class TrainingProblem extends Model<InferAttributes<TrainingProblem>, Inf
   declare hintsUsed: CreationOptional<number>;
   declare closedAt: CreationOptional<Date | null>;
   declare correct: CreationOptional<boolean>;
+  /** Set when a lead or admin graded the closed problem by hand (`correct` then holds their grade). */
+  declare gradedById: CreationOptional<number | null>;
+  declare gradedByName: CreationOptional<string | null>;
+  declare gradeNote: CreationOptional<string | null>;
+  declare gradedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -28,6 +33,10 @@ export class TrainingProblem extends Model<InferAttributes<TrainingProblem>, Inf
         hintsUsed: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         closedAt: { type: DataTypes.DATE, allowNull: true },
         correct: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        gradedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        gradedByName: { type: DataTypes.STRING(120), allowNull: true },
+        gradeNote: { type: DataTypes.STRING(500), allowNull: true },
+        gradedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -79,6 +79,21 @@ export const trainingPaths = {
     },
     delete: { summary: 'Delete an assignment and its work (leads and admins)', parameters: [...id, ...csrf], responses: { 204: { description: 'Deleted' }, 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown') } },
   },
+  '/api/training/assignments/{id}/work/{userId}/problems/{position}/grade': {
+    post: {
+      summary: "Grade a closed problem of an apprentice's work by hand, over the checker (leads and admins of the team): the score follows, and the apprentice reads who graded it and why",
+      parameters: [...id, { name: 'userId', in: 'path', required: true, schema: { type: 'integer', minimum: 1 } }, { name: 'position', in: 'path', required: true, schema: { type: 'integer', minimum: 1 } }, ...csrf],
+      requestBody: json({
+        type: 'object', required: ['correct', 'note'],
+        properties: { correct: { type: 'boolean' }, note: { type: 'string', minLength: 3, maxLength: 500, description: 'Why, for the apprentice to read; trimmed' } },
+      }),
+      responses: {
+        200: { description: 'The problem as the lead reads it, with grade {correct, note, by, at}' },
+        400: errorResponse('No grade, or no reason'), 403: errorResponse('Not a lead or admin'), 404: errorResponse('Unknown assignment, apprentice or problem'),
+        409: errorResponse('The problem is still open'),
+      },
+    },
+  },
   '/api/training/assignments/{id}/assignees': {
     post: {
       summary: 'Give a sent assignment to more apprentices (leads and admins of the team): each gets problems of their own, the same due date and the new-assignment e-mail',

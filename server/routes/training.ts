@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
-import { assignmentAddBody, assignmentCreateBody, assignmentDueBody, attemptBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
+import { assignmentAddBody, assignmentCreateBody, assignmentDueBody, attemptBody, gradeBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
 import { checkAnswer } from '../../shared/training/exercise';
 import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
 import { generateExercise } from '../../shared/training/generators';
@@ -208,6 +208,28 @@ export function createTrainingRouter(): Router {
       problems: problems.map((p) => reviewProblemDto(p)),
     };
     res.json(review);
+  });
+
+  // A lead or admin grades a closed problem by hand, over the checker (an answer right in another
+  // form, a slip in the problem): the score follows, and the apprentice reads who changed it and why.
+  router.post('/assignments/:id/work/:userId/problems/:position/grade', leadOnly, async (req, res) => {
+    const lead = currentUser(req);
+    const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), lead);
+    const userId = parseId(req.params['userId'], 'apprentice');
+    const position = positionParam(req.params['position']);
+    const body = parseBody(gradeBody, req.body);
+    const work = await AssignmentWork.findOne({
+      where: { assignmentId: assignment.id, userId },
+      include: [{ model: User, as: 'user', attributes: ['id', 'name'], where: { teamId: lead.teamId } }],
+    });
+    if (!work) throw new HttpError(404, 'No work for that apprentice on this assignment.');
+    const problem = await TrainingProblem.findOne({ where: { workId: work.id, position }, include: [{ model: TrainingAttempt, as: 'attempts' }] });
+    if (!problem) throw new HttpError(404, `No problem ${position} in this work.`);
+    if (!problem.closedAt) {
+      throw new HttpError(409, 'This problem is still open: the apprentice is still working it. Grade it once it is closed (answered right, or out of attempts).');
+    }
+    await problem.update({ correct: body.correct, gradedById: lead.id, gradedByName: lead.name, gradeNote: body.note, gradedAt: new Date() });
+    res.json(reviewProblemDto(problem));
   });
 
   router.post('/assignments/:id/problems/:position/hints', async (req, res) => {

@@ -82,6 +82,7 @@ export function problemDto(problem: TrainingProblem, exercise = generateExercise
     correct: problem.correct,
     cautions: exercise.cautions,
     solution: closed ? { answer: exercise.answer, steps: exercise.steps } : null,
+    grade: problem.gradedAt ? { correct: problem.correct, note: problem.gradeNote ?? '', by: problem.gradedByName ?? '', at: problem.gradedAt.toISOString() } : null,
   };
 }
 

@@ -64,6 +64,8 @@ export interface ProblemDto {
   cautions: string[];
   /** The answer and the full worked solution, once the problem is closed. */
   solution: { answer: string; steps: StepDto[] } | null;
+  /** A lead's or admin's grade of the closed problem, over the checker's, with their reason; else null. */
+  grade: { correct: boolean; note: string; by: string; at: string } | null;
 }
 
 /**
@@ -197,6 +199,17 @@ export const assignmentDueBody = z.object({
   timeZone: timeZoneField,
 });
 export type AssignmentDueBody = z.input<typeof assignmentDueBody>;
+
+/** POST /api/training/assignments/:id/work/:userId/problems/:position/grade: a lead grades a closed problem by hand. */
+export const gradeBody = z.object({
+  correct: z.boolean({ error: 'Say whether the problem counts as right (true) or wrong (false).' }),
+  note: z
+    .string({ error: 'Say why the grade changes, for the apprentice to read.' })
+    .trim()
+    .min(3, 'Say why the grade changes, for the apprentice to read (3 characters or more).')
+    .max(500, 'Keep the reason under 500 characters.'),
+});
+export type GradeBody = z.input<typeof gradeBody>;
 
 /** POST /api/training/assignments/:id/assignees: apprentices given the assignment after it was made (leads and admins). */
 export const assignmentAddBody = z.object({

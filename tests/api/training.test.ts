@@ -313,6 +313,62 @@ describe('/api/training', () => {
     });
   });
 
+  describe('a lead grading a closed problem by hand', () => {
+    let id: number;
+    const grade = (who: Client, position: number | string, payload: object, userId: number | string = m.apprentice.id, assignmentId: number | string = id) =>
+      post(who, `/api/training/assignments/${assignmentId}/work/${userId}/problems/${position}/grade`, payload);
+    beforeAll(async () => {
+      id = (await post(c.lead, '/api/training/assignments', body([m.apprentice.id], { title: 'Graded by hand', items: [{ type: 'taper-depth', count: 2 }] })).expect(201)).body.id;
+      // Problem 1: out of attempts, never right. Problem 2 stays open.
+      for (let i = 0; i < MAX_ATTEMPTS; i++) await post(c.apprentice, `/api/training/assignments/${id}/problems/1/attempts`, { answer: '9.9999' }).expect(201);
+    });
+
+    it('counts a closed problem right with a reason; the score follows and the apprentice reads who and why', async () => {
+      const before = (await c.lead.agent.get(`/api/training/assignments/${id}`).expect(200)).body.work[0];
+      expect(before).toMatchObject({ correct: 0, closed: 1, score: 0 });
+      const res = await grade(c.lead, 1, { correct: true, note: '  Right to the thousandth; the box asked for four places.  ' }).expect(200);
+      expect(res.body).toMatchObject({ position: 1, closed: true, correct: true, grade: { correct: true, note: 'Right to the thousandth; the box asked for four places.', by: m.lead.name } });
+      // The checker's own verdicts on the answers are kept as they were.
+      expect(res.body.attempts.every((a: { correct: boolean }) => !a.correct)).toBe(true);
+      const after = (await c.lead.agent.get(`/api/training/assignments/${id}`).expect(200)).body.work[0];
+      // 1 of 2 right: 50 % (derived).
+      expect(after).toMatchObject({ correct: 1, closed: 1, score: 50 });
+      const own = await c.apprentice.agent.get(`/api/training/assignments/${id}/work`).expect(200);
+      expect(own.body.problems[0]).toMatchObject({ correct: true, grade: { correct: true, by: m.lead.name, note: 'Right to the thousandth; the box asked for four places.' } });
+      expect(own.body.problems[1].grade).toBeNull();
+      const scores = (await c.lead.agent.get('/api/training/scores').expect(200)).body;
+      const row = scores.rows.find((r: { userId: number }) => r.userId === m.apprentice.id);
+      expect(row.cells.find((cell: { assignmentId: number }) => cell.assignmentId === id).summary).toMatchObject({ correct: 1, score: 50 });
+      // An admin can set it back, with its own reason.
+      const back = await grade(c.admin, 1, { correct: false, note: 'Checked again: the depth was for the wrong corner.' }).expect(200);
+      expect(back.body).toMatchObject({ correct: false, grade: { correct: false, by: m.admin.name } });
+      expect((await c.lead.agent.get(`/api/training/assignments/${id}`).expect(200)).body.work[0]).toMatchObject({ correct: 0, score: 0 });
+    });
+
+    it('refuses an open problem with 409, changing nothing', async () => {
+      const res = await grade(c.lead, 2, { correct: true, note: 'Good enough.' }).expect(409);
+      expect(res.body.error).toMatch(/^This problem is still open/);
+      const problem = await TrainingProblem.findOne({ where: { workId: (await AssignmentWork.findOne({ where: { assignmentId: id, userId: m.apprentice.id } }))!.id, position: 2 } });
+      expect(problem).toMatchObject({ correct: false, gradedAt: null });
+    });
+
+    it('asks for the grade and a reason with 400', async () => {
+      expect((await grade(c.lead, 1, { correct: true }).expect(400)).body.fields).toEqual({ note: 'Say why the grade changes, for the apprentice to read.' });
+      expect((await grade(c.lead, 1, { correct: true, note: '  ' }).expect(400)).body.fields.note).toMatch(/3 characters or more/);
+      expect((await grade(c.lead, 1, { correct: 'yes', note: 'Fine answer.' }).expect(400)).body.fields.correct).toMatch(/right \(true\) or wrong \(false\)/);
+      expect((await grade(c.lead, 1, { correct: true, note: 'x'.repeat(501) }).expect(400)).body.fields.note).toBe('Keep the reason under 500 characters.');
+    });
+
+    it('lets only leads and admins of the team grade, and names what was not found', async () => {
+      await grade(c.apprentice, 1, { correct: true, note: 'My own grade.' }).expect(403);
+      await grade(c.machinist, 1, { correct: true, note: 'Not mine to give.' }).expect(403);
+      expect((await grade(c.foreign, 1, { correct: true, note: 'Another team.' }).expect(404)).body.error).toBe('No assignment with that id in your team.');
+      expect((await grade(c.lead, 1, { correct: true, note: 'Not given it.' }, second.id).expect(404)).body.error).toBe('No work for that apprentice on this assignment.');
+      expect((await grade(c.lead, 9, { correct: true, note: 'No such problem.' }).expect(404)).body.error).toBe('No problem 9 in this work.');
+      await grade(c.lead, 'abc', { correct: true, note: 'Bad position.' }).expect(404);
+    });
+  });
+
   describe('moving the due date of a sent assignment', () => {
     let id: number;
     const patch = (who: Client, assignmentId: number | string, payload: object) =>

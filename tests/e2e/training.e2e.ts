@@ -122,6 +122,13 @@ describe('training', () => {
     await lead.page.locator('.solution').getByText(exercise.steps[0]!.formula, { exact: true }).first().waitFor();
     await screenshot(lead.page, 'training-lead-work-review-1280');
     expect(await contentViolations(lead.page)).toBe('');
+    // The lead grades the closed problem by hand, with a reason; the score follows.
+    await lead.page.getByRole('button', { name: 'Grade by hand: problem 1' }).click();
+    await lead.page.getByLabel('Why, for the apprentice to read').fill('Right, but only after a hint: do it again without one.');
+    await lead.page.getByRole('button', { name: 'Save grade' }).click();
+    await lead.page.getByText('counted wrong by hand').waitFor();
+    await lead.page.getByText('0 of 1 right (0%)').waitFor();
+    await lead.page.getByText('“Right, but only after a hint: do it again without one.”').waitFor();
     // An apprentice who joins later is given the same assignment from the list: problems of her own and the e-mail.
     await lead.page.goto('/training/assignments');
     await lead.page.getByRole('button', { name: `Add apprentices to ${title}` }).click();

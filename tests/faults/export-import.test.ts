@@ -12,6 +12,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import sharp from 'sharp';
 import request from 'supertest';
 import { createSequelize } from '../../server/db';
+import { MAX_ATTEMPTS } from '../../shared/api/training';
 import { startServer, type RunningServer } from '../../server/main';
 import { DiskStorage } from '../../server/services/storage/disk-storage';
 import { ImportInvalid, importTeamArchive } from '../../server/services/team-archive/team-import';
@@ -172,6 +173,9 @@ beforeAll(async () => {
   await apprentice.agent.get(`/api/training/assignments/${assignment.body.id}/work`).expect(200);
   await apprentice.post(`/api/training/assignments/${assignment.body.id}/problems/1/hints`).expect(200);
   await apprentice.post(`/api/training/assignments/${assignment.body.id}/problems/1/attempts`, { answer: '1.2345' }).expect(201);
+  // Problem 1 closed out of attempts and graded by hand: who graded it goes along.
+  for (let i = 1; i < MAX_ATTEMPTS; i++) await apprentice.post(`/api/training/assignments/${assignment.body.id}/problems/1/attempts`, { answer: '1.2345' }).expect(201);
+  await lead.post(`/api/training/assignments/${assignment.body.id}/work/${m.apprentice.id}/problems/1/grade`, { correct: true, note: 'Right in inches; the box asked for mm.' }).expect(200);
 
   await admin.post('/api/team/invitations', { email: `pending.${m.team.id}@example.test`, role: 'machinist' }).expect(201);
   const revoked = await admin.post('/api/team/invitations', { email: `revoked.${m.team.id}@example.test`, role: 'apprentice' }).expect(201);

@@ -98,6 +98,7 @@ const RULES: Record<string, Rule> = {
   'POST /api/training/assignments/:id/assignees': LEADS,
   'GET /api/training/assignments/:id/work': ['admin', 'lead', 'apprentice'],
   'GET /api/training/assignments/:id/work/:userId': LEADS,
+  'POST /api/training/assignments/:id/work/:userId/problems/:position/grade': LEADS,
   'POST /api/training/assignments/:id/problems/:position/hints': ['apprentice'],
   'POST /api/training/assignments/:id/problems/:position/attempts': ['apprentice'],
   'GET /api/training/scores': LEADS,
@@ -173,6 +174,7 @@ beforeAll(async () => {
     '/api/training/assignments/': String(assignment.body.id),
     '/api/training/assignments/:id/problems/': '1',
     '/api/training/assignments/:id/work/': String(m.apprentice.id),
+    '/api/training/assignments/:id/work/:userId/problems/': '1',
     '/api/access/invitations/': token,
     '/api/access/password-reset/': token,
   });

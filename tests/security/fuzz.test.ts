@@ -144,6 +144,8 @@ beforeAll(async () => {
     '/api/team/invitations/': String(invitation.body.invitation.id),
     '/api/training/assignments/': String(assignment.body.id),
     '/api/training/assignments/:id/problems/': '1',
+    '/api/training/assignments/:id/work/': String(m.apprentice.id),
+    '/api/training/assignments/:id/work/:userId/problems/': '1',
   });
   const taper = { unit: 'in', thickness: '0.750', angle: '7.5', taperLength: '1.250' };
   const setupBody = { name: 'Fuzzed', kind: 'taper', inputs: { entries: Object.entries(taper) }, notes: 'n', job: 'J-1', checks: { list: [{ entries: Object.entries(checks[0]!) }] } } as Record<string, Json>;
@@ -166,6 +168,7 @@ beforeAll(async () => {
     'POST /api/team/invitations': { email: `fuzz2.${m.team.id}@example.test`, role: 'apprentice' },
     'POST /api/training/assignments': { title: 'T', instructions: 'I', items: { list: [{ entries: [['type', 'sine-stack'], ['count', 1]] }] }, dueAt: '2030-01-01T12:00:00Z', assigneeIds: { list: [m.apprentice.id] } },
     'POST /api/training/assignments/:id/problems/:position/attempts': { answer: '1.000' },
+    'POST /api/training/assignments/:id/work/:userId/problems/:position/grade': { correct: true, note: 'Right in another form.' },
     'POST /api/training/assignments/:id/assignees': { assigneeIds: { list: [m.apprentice.id] }, timeZone: 'Europe/Berlin' },
     'PATCH /api/training/assignments/:id': { dueAt: '2030-01-01T12:00:00Z', timeZone: 'America/Chicago' },
     'POST /api/calc/taper': taper,

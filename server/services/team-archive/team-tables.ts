@@ -36,7 +36,7 @@ export const TEAM_TABLES: readonly TeamTable[] = [
   { table: 'invitations', where: 'teamId = :teamId', refs: { teamId: 'teams', invitedById: 'users' }, omit: ['tokenHash'] },
   { table: 'assignments', where: 'teamId = :teamId', refs: { teamId: 'teams', createdById: 'users' } },
   { table: 'assignment_work', where: 'assignmentId IN (SELECT id FROM assignments WHERE teamId = :teamId)', refs: { assignmentId: 'assignments', userId: 'users' } },
-  { table: 'training_problems', where: `workId IN (${TEAM_WORK})`, refs: { workId: 'assignment_work' } },
+  { table: 'training_problems', where: `workId IN (${TEAM_WORK})`, refs: { workId: 'assignment_work', gradedById: 'users' } },
   {
     table: 'training_attempts',
     where: `problemId IN (SELECT p.id FROM training_problems p WHERE p.workId IN (${TEAM_WORK}))`,

@@ -15,7 +15,7 @@ function problem(position: number, extra: Partial<ProblemDto> = {}): ProblemDto 
   return {
     position, type: 'taper-depth', title: 'Depth to stop on an angle block', prompt: `Problem text ${position}`,
     givens: [{ label: 'Taper length L', value: '1.500', unit: 'in' }], answerLabel: 'Depth to stop h', unit: 'in', tolerance: '0.0005',
-    attempts: [], attemptsLeft: 3, hintsAvailable: 2, hints: [], closed: false, correct: false, cautions: [CAUTION], solution: null,
+    attempts: [], attemptsLeft: 3, hintsAvailable: 2, hints: [], closed: false, correct: false, cautions: [CAUTION], solution: null, grade: null,
     ...extra,
   };
 }

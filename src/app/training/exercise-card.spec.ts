@@ -123,6 +123,21 @@ describe('ExerciseCard', () => {
       expect(el.querySelector('.steps')!.textContent).toContain('h = L · sin α');
     });
 
+    it("should say who graded it by hand and why, and call it counted right rather than correct", async () => {
+      fixture.componentInstance.problem.set({
+        ...OPEN,
+        closed: true,
+        correct: true,
+        attemptsLeft: 0,
+        solution: { answer: '0.2615', steps: [] },
+        grade: { correct: true, note: 'Right to the thousandth.', by: 'Teodor Vance', at: '2026-12-04T10:00:00.000Z' },
+      });
+      await fixture.whenStable();
+      const solution = el.querySelector('.solution')!.textContent!.replace(/\s+/g, ' ');
+      expect(solution).toContain('Counted right. The answer is 0.2615');
+      expect(solution).toContain('Teodor Vance counted this right: “Right to the thousandth.”');
+    });
+
     it('should show why a late answer was refused beside the worked solution (closed meanwhile elsewhere)', async () => {
       fixture.componentInstance.error.set('This problem is closed; no more answers are taken.');
       fixture.componentInstance.problem.set({ ...OPEN, closed: true, attemptsLeft: 0, solution: { answer: '0.2615', steps: [] } });

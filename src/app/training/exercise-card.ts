@@ -27,6 +27,8 @@ export interface ProblemView {
   correct: boolean;
   solution: { answer: string; steps: readonly StepDto[] } | null;
   cautions: readonly string[];
+  /** A lead's grade by hand of the closed problem, with their reason (assignments only). */
+  grade?: { correct: boolean; note: string; by: string; at: string } | null;
 }
 
 /**
@@ -93,8 +95,12 @@ export interface ProblemView {
           <section class="solution" [class.right]="problem().correct" aria-label="Worked solution">
             <p class="verdict" #verdict tabindex="-1">
               <mat-icon aria-hidden="true">{{ problem().correct ? 'verified' : 'menu_book' }}</mat-icon>
-              <span>{{ problem().correct ? 'Correct.' : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.</span>
+              <span>{{ problem().correct ? (problem().grade ? 'Counted right.' : 'Correct.') : 'Closed.' }} The answer is <strong>{{ answerText(solution.answer) }}</strong>.</span>
             </p>
+            @if (problem().grade; as g) {
+              <p class="grade"><mat-icon aria-hidden="true">rate_review</mat-icon>
+                <span>{{ g.by }} counted this {{ g.correct ? 'right' : 'wrong' }}: “{{ g.note }}”</span></p>
+            }
             <h4>Worked solution</h4>
             <ol class="steps">
               @for (s of solution.steps; track $index) {
@@ -130,6 +136,8 @@ export interface ProblemView {
     .solution.right { border-color: var(--mat-sys-primary); }
     .verdict { display: flex; gap: 8px; align-items: center; }
     .verdict:focus-visible { outline: 2px solid var(--mat-sys-primary); outline-offset: 2px; border-radius: 4px; }
+    .grade { display: flex; gap: 6px; align-items: flex-start; overflow-wrap: anywhere; }
+    .grade mat-icon { flex: none; color: var(--mat-sys-primary); }
     h4 { margin: 8px 0 4px; font: var(--mat-sys-title-small); }
     sw-cautions { margin-top: 12px; }
   `,

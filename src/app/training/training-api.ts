@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { AssignmentAddBody, AssignmentCreateBody, AssignmentDto, AssignmentDueBody, AttemptResultDto, ProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
+import type { AssignmentAddBody, AssignmentCreateBody, AssignmentDto, AssignmentDueBody, AttemptResultDto, GradeBody, ProblemDto, ReviewProblemDto, ScoreTableDto, WorkReviewDto } from '../../../shared/api/training';
 import { quietErrors } from '../core/api-error';
 
 /** One apprentice's copy of an assignment: the assignment and their problems. */
@@ -34,6 +34,11 @@ export class TrainingApi {
   /** Gives an assignment to more apprentices (leads and admins); a refusal comes back for the form. */
   addAssignees(id: number, body: AssignmentAddBody): Observable<AssignmentDto & { mailSent: number }> {
     return this.http.post<AssignmentDto & { mailSent: number }>(`/api/training/assignments/${id}/assignees`, body, { context: quietErrors() });
+  }
+
+  /** Grades a closed problem of an apprentice's work by hand (leads and admins); a refusal comes back for the form. */
+  grade(id: string | number, userId: string | number, position: number, body: GradeBody): Observable<ReviewProblemDto> {
+    return this.http.post<ReviewProblemDto>(`/api/training/assignments/${id}/work/${userId}/problems/${position}/grade`, body, { context: quietErrors() });
   }
 
   /** Deletes an assignment and its work. */

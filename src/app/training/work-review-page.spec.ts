@@ -28,6 +28,7 @@ function problem(position: number, extra: Partial<ReviewProblemDto>): ReviewProb
     hints: [],
     closed: false,
     correct: false,
+    grade: null,
     cautions: [],
     hintsUsed: 0,
     solution: { answer: '0.2605', exact: '0.26047', steps: [step('Sine of the angle', '0.17365'), step('Depth to stop h', '0.2605')] },
@@ -75,6 +76,16 @@ describe('WorkReviewPage', () => {
   async function settle(): Promise<void> {
     await new Promise((resolve) => setTimeout(resolve));
     await fixture.whenStable();
+  }
+
+  /** Types the reason in the open grade form and saves it. */
+  async function giveReason(text: string): Promise<void> {
+    const reason = el.querySelector('form.grade-form textarea') as HTMLTextAreaElement;
+    reason.value = text;
+    reason.dispatchEvent(new Event('input'));
+    await settle();
+    (el.querySelector('form.grade-form button[type=submit]') as HTMLButtonElement).click();
+    await settle();
   }
 
   afterEach(() => http.verify());
@@ -128,6 +139,53 @@ describe('WorkReviewPage', () => {
     expect(text).toContain('= 34.9920°');
     expect(text).toContain('answers within ±0.01° are right');
     expect(text).not.toMatch(/°\s*°|"\)\s*°| °/);
+  });
+
+  it('should grade a closed problem by hand with a reason, and show the new score', async () => {
+    await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush(WORK);
+    await settle();
+    // Only the closed problem offers it.
+    expect(el.querySelector('button[aria-label="Grade by hand: problem 2"]')).toBeNull();
+    (el.querySelector('button[aria-label="Grade by hand: problem 1"]') as HTMLButtonElement).click();
+    await settle();
+    const form = el.querySelector('form.grade-form')!;
+    // It opens on the other grade: problem 1 was answered right, so "Counts as wrong" is chosen.
+    expect(form.querySelector('mat-button-toggle.mat-button-toggle-checked')!.textContent).toContain('Counts as wrong');
+    // No reason: said by the box, nothing sent.
+    (form.querySelector('button[type=submit]') as HTMLButtonElement).click();
+    await settle();
+    http.expectNone((r) => r.url.endsWith('/grade'));
+    expect(form.textContent).toContain('Say why the grade changes');
+    await giveReason('The depth was for the wrong corner.');
+    const req = http.expectOne('/api/training/assignments/7/work/4/problems/1/grade');
+    expect(req.request.method).toBe('POST');
+    expect(req.request.body).toEqual({ correct: false, note: 'The depth was for the wrong corner.' });
+    const graded = { ...WORK.problems[0]!, correct: false, grade: { correct: false, note: 'The depth was for the wrong corner.', by: 'Teodor Vance', at: '2026-12-04T10:00:00.000Z' } };
+    req.flush(graded);
+    await settle();
+    http.expectOne('/api/training/assignments/7/work/4').flush({
+      ...WORK,
+      assignment: { ...WORK.assignment, work: [{ ...WORK.assignment.work[0]!, correct: 0, score: 0 }] },
+      problems: [graded, WORK.problems[1]!],
+    });
+    await settle();
+    expect(el.querySelector('form.grade-form')).toBeNull();
+    expect(el.textContent).toContain('0 of 2 right (0%)');
+    expect(el.textContent).toContain('counted wrong by hand');
+    expect(el.querySelector('.grade')!.textContent!.replace(/\s+/g, ' ')).toContain(`Teodor Vance counted it wrong on ${localTimeText('2026-12-04T10:00:00.000Z')}: “The depth was for the wrong corner.”`);
+  });
+
+  it("should show the server's refusal of a grade in the form", async () => {
+    await open();
+    http.expectOne('/api/training/assignments/7/work/4').flush(WORK);
+    await settle();
+    (el.querySelector('button[aria-label="Grade by hand: problem 1"]') as HTMLButtonElement).click();
+    await settle();
+    await giveReason('Counted right after all.');
+    http.expectOne('/api/training/assignments/7/work/4/problems/1/grade').flush({ error: 'This problem is still open: the apprentice is still working it.' }, { status: 409, statusText: 'Conflict' });
+    await settle();
+    expect(el.querySelector('form.grade-form [role=alert]')!.textContent).toContain('This problem is still open');
   });
 
   it("should show the server's message when the lead may not read the work (404)", async () => {

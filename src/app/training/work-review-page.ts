@@ -1,15 +1,19 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCardModule } from '@angular/material/card';
 import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 
-import type { WorkReviewDto } from '../../../shared/api/training';
-import { apiErrorMessage } from '../core/api-error';
+import type { ReviewProblemDto, WorkReviewDto } from '../../../shared/api/training';
+import { apiErrorMessage, apiFieldErrors } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { localTimeText } from './due-text';
 import { TrainingApi } from './training-api';
@@ -19,11 +23,12 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
 /**
  * One apprentice's work on an assignment as their lead (or an admin) reads it: every answer with
  * its grade and time, the hints used, and each problem's worked solution even while it is open.
- * Read only: nothing here changes the apprentice's work.
+ * Nothing here changes the apprentice's answers; a closed problem can be graded by hand, with a
+ * reason the apprentice reads (an answer right in another form, a slip in the problem).
  */
 @Component({
   selector: 'sw-work-review-page',
-  imports: [RouterLink, MatButtonModule, MatCardModule, MatExpansionModule, MatIconModule, MatProgressBarModule],
+  imports: [RouterLink, FormsModule, MatButtonModule, MatButtonToggleModule, MatCardModule, MatExpansionModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page review">
@@ -38,7 +43,7 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
             · {{ s.correct }} of {{ s.total }} right ({{ s.score }}%)
           }
         </p>
-        <p class="note">Read only. The worked solutions show here even while a problem is open; the apprentice sees them only once it closes.</p>
+        <p class="note">The answers are the apprentice's own and cannot be changed here. The worked solutions show here even while a problem is open; the apprentice sees them only once it closes. A closed problem can be graded by hand, with a reason the apprentice reads.</p>
         <div class="problems">
           @for (p of v.problems; track p.position) {
             <mat-card appearance="outlined" class="problem">
@@ -46,7 +51,7 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
                 <mat-card-title><h2>Problem {{ p.position }}: {{ p.title }}</h2></mat-card-title>
                 <mat-card-subtitle>
                   @if (p.closed) {
-                    Closed · {{ p.correct ? 'answered right' : 'not answered right' }}
+                    Closed · {{ p.grade ? (p.correct ? 'counted right by hand' : 'counted wrong by hand') : p.correct ? 'answered right' : 'not answered right' }}
                   } @else {
                     Open · {{ p.attemptsLeft }} {{ p.attemptsLeft === 1 ? 'try' : 'tries' }} left
                   }
@@ -71,6 +76,33 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
                     <li class="none">No answer yet.</li>
                   }
                 </ol>
+                @if (p.grade; as g) {
+                  <p class="grade"><mat-icon aria-hidden="true">rate_review</mat-icon>
+                    <span>{{ g.by }} counted it {{ g.correct ? 'right' : 'wrong' }} on {{ time(g.at) }}: “{{ g.note }}”</span></p>
+                }
+                @if (p.closed) {
+                  @if (grading() === p.position) {
+                    <form class="grade-form" (ngSubmit)="saveGrade(p)" [attr.aria-label]="'New grade of problem ' + p.position">
+                      <mat-button-toggle-group name="counts" [ngModel]="gradeRight()" (ngModelChange)="gradeRight.set($event)" [attr.aria-label]="'Problem ' + p.position + ' counts as'">
+                        <mat-button-toggle [value]="true">Counts as right</mat-button-toggle>
+                        <mat-button-toggle [value]="false">Counts as wrong</mat-button-toggle>
+                      </mat-button-toggle-group>
+                      <mat-form-field appearance="outline" subscriptSizing="dynamic" class="reason">
+                        <mat-label>Why, for the apprentice to read</mat-label>
+                        <textarea matInput name="reason" rows="2" maxlength="500" [ngModel]="gradeNote()" (ngModelChange)="gradeNote.set($event)"></textarea>
+                        @if (gradeError()) { <mat-hint class="field-error" role="alert">{{ gradeError() }}</mat-hint> }
+                      </mat-form-field>
+                      <div class="grade-actions">
+                        <button mat-flat-button type="submit" [disabled]="savingGrade()">Save grade</button>
+                        <button mat-button type="button" (click)="grading.set(null)">Cancel</button>
+                      </div>
+                    </form>
+                  } @else {
+                    <button mat-stroked-button type="button" class="grade-button" (click)="openGrade(p)" [attr.aria-label]="'Grade by hand: problem ' + p.position">
+                      <mat-icon>rate_review</mat-icon> Grade by hand
+                    </button>
+                  }
+                }
                 <mat-expansion-panel class="solution">
                   <mat-expansion-panel-header>
                     <mat-panel-title>Worked solution</mat-panel-title>
@@ -122,6 +154,13 @@ import { STATUS_ICONS, STATUS_LABELS } from './work-status';
     .label { font-weight: 600; }
     .exact { overflow-wrap: anywhere; }
     .failed { color: var(--mat-sys-error); }
+    .grade { display: flex; gap: 6px; align-items: flex-start; overflow-wrap: anywhere; }
+    .grade mat-icon { flex: none; color: var(--mat-sys-primary); }
+    .grade-form { display: grid; gap: 8px; margin: 0 0 12px; max-width: 640px; }
+    .grade-form mat-button-toggle-group { justify-self: start; max-width: 100%; flex-wrap: wrap; }
+    .grade-actions { display: flex; gap: 8px; flex-wrap: wrap; }
+    .grade-button { margin: 0 0 12px; }
+    .field-error { color: var(--mat-sys-error); }
   `,
 })
 export default class WorkReviewPage {
@@ -145,8 +184,43 @@ export default class WorkReviewPage {
   protected readonly withUnit = withUnit;
   protected readonly suffix = unitSuffix;
 
+  /** The problem whose grade form is open, what it will count as, and why. */
+  protected readonly grading = signal<number | null>(null);
+  protected readonly gradeRight = signal(true);
+  protected readonly gradeNote = signal('');
+  protected readonly gradeError = signal<string | null>(null);
+  protected readonly savingGrade = signal(false);
+
   constructor() {
     effect(() => void this.load(this.id(), this.userId()));
+  }
+
+  /** Opens the grade form of a closed problem, set to the other grade than it has now. */
+  protected openGrade(p: ReviewProblemDto): void {
+    this.grading.set(p.position);
+    this.gradeRight.set(!p.correct);
+    this.gradeNote.set('');
+    this.gradeError.set(null);
+  }
+
+  /** Saves a grade by hand; the score above follows. */
+  protected async saveGrade(p: ReviewProblemDto): Promise<void> {
+    this.gradeError.set(null);
+    if (this.gradeNote().trim().length < 3) {
+      this.gradeError.set('Say why the grade changes, for the apprentice to read (3 characters or more).');
+      return;
+    }
+    this.savingGrade.set(true);
+    try {
+      await firstValueFrom(this.api.grade(this.id(), this.userId(), p.position, { correct: this.gradeRight(), note: this.gradeNote() }));
+      this.grading.set(null);
+      this.view.set(await firstValueFrom(this.api.review(this.id(), this.userId())));
+    } catch (err) {
+      const fields = apiFieldErrors(err);
+      this.gradeError.set(fields['note'] ?? fields['correct'] ?? apiErrorMessage(err));
+    } finally {
+      this.savingGrade.set(false);
+    }
   }
 
   /** Loads the work; a refusal (403, 404) shows the server's own message. */
