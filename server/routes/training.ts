@@ -1,5 +1,5 @@
 import { Router, type Request } from 'express';
-import { Op } from 'sequelize';
+import { Op, type Includeable, type Transaction } from 'sequelize';
 import { assignmentAddBody, assignmentCreateBody, assignmentDueBody, attemptBody, gradeBody, MAX_ATTEMPTS, type AssignmentDto, type ScoreTableDto, type WorkReviewDto } from '../../shared/api/training';
 import { checkAnswer } from '../../shared/training/exercise';
 import { EXERCISE_INFO, EXERCISE_TYPES } from '../../shared/training/exercise-types';
@@ -25,6 +25,42 @@ async function teamAssignment(id: number, user: User, missing = 'No assignment w
   const assignment = await Assignment.findOne({ where: { id, teamId: user.teamId }, include: [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }] });
   if (!assignment) throw new HttpError(404, missing);
   return assignment;
+}
+
+/** The active apprentices of the lead's team with these ids; 400 naming the field when any is not one. */
+async function teamApprentices(lead: User, ids: readonly number[]): Promise<User[]> {
+  const apprentices = await User.findAll({ where: { id: { [Op.in]: [...ids] }, teamId: lead.teamId, role: 'apprentice', active: true } });
+  if (apprentices.length !== ids.length) {
+    throw new HttpError(400, 'Some fields are not valid.', { assigneeIds: 'Choose active apprentices of your team only.' });
+  }
+  return apprentices;
+}
+
+/** Gives each apprentice their own copy of the assignment: a stored seed and the planned problems. */
+async function giveWork(assignment: Assignment, apprentices: readonly User[], transaction: Transaction): Promise<void> {
+  for (const apprentice of apprentices) {
+    const work = await AssignmentWork.create({ assignmentId: assignment.id, userId: apprentice.id, seed: newSeed() }, { transaction });
+    await TrainingProblem.bulkCreate(plannedProblems(assignment.items, work.seed).map((p) => ({ ...p, workId: work.id })), { transaction });
+  }
+}
+
+/** Sends each apprentice the new-assignment e-mail, the due time on the lead's clock; how many the SMTP server took. */
+async function mailAssigned(assignment: Assignment, apprentices: readonly User[], lead: User, timeZone = 'UTC'): Promise<number> {
+  const total = assignment.items.reduce((n, i) => n + i.count, 0);
+  const sent = await Promise.all(
+    apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, assignment.dueAt, lead.name, assignment.id, assignment.instructions, { timeZone }))),
+  );
+  return sent.filter(Boolean).length;
+}
+
+/** One apprentice's work on an assignment, the apprentice of the lead's team (with `include` as well), or 404. */
+async function apprenticeWork(assignment: Assignment, lead: User, userId: number, include: Includeable[] = []): Promise<AssignmentWork & { user: User }> {
+  const work = await AssignmentWork.findOne({
+    where: { assignmentId: assignment.id, userId },
+    include: [{ model: User, as: 'user', attributes: ['id', 'name'], where: { teamId: lead.teamId } }, ...include],
+  });
+  if (!work?.user) throw new HttpError(404, 'No work for that apprentice on this assignment.');
+  return work as AssignmentWork & { user: User };
 }
 
 /** What an apprentice reads when their assignment is gone (the lead deleted it) or never was. */
@@ -87,29 +123,20 @@ export function createTrainingRouter(): Router {
   router.post('/assignments', leadOnly, async (req, res) => {
     const lead = currentUser(req);
     const body = parseBody(assignmentCreateBody, req.body);
-    const ids = [...new Set(body.assigneeIds)];
-    const apprentices = await User.findAll({ where: { id: { [Op.in]: ids }, teamId: lead.teamId, role: 'apprentice', active: true } });
-    if (apprentices.length !== ids.length) {
-      throw new HttpError(400, 'Some fields are not valid.', { assigneeIds: 'Choose active apprentices of your team only.' });
-    }
+    const apprentices = await teamApprentices(lead, [...new Set(body.assigneeIds)]);
     const dueAt = new Date(body.dueAt);
     const assignment = await Assignment.sequelize!.transaction(async (transaction) => {
       const created = await Assignment.create(
         { teamId: lead.teamId, createdById: lead.id, title: body.title, instructions: body.instructions ?? '', items: body.items, dueAt },
         { transaction },
       );
-      for (const apprentice of apprentices) {
-        const work = await AssignmentWork.create({ assignmentId: created.id, userId: apprentice.id, seed: newSeed() }, { transaction });
-        await TrainingProblem.bulkCreate(plannedProblems(body.items, work.seed).map((p) => ({ ...p, workId: work.id })), { transaction });
-      }
+      await giveWork(created, apprentices, transaction);
       return created;
     });
-    const total = body.items.reduce((n, i) => n + i.count, 0);
-    const timeZone = body.timeZone ?? 'UTC';
-    const sent = await Promise.all(apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, dueAt, lead.name, assignment.id, assignment.instructions, { timeZone }))));
+    const mailSent = await mailAssigned(assignment, apprentices, lead, body.timeZone);
     const fresh = await teamAssignment(assignment.id, lead);
     const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
-    res.status(201).location(`/api/training/assignments/${assignment.id}`).json({ ...assignmentDto(fresh, work), mailSent: sent.filter(Boolean).length });
+    res.status(201).location(`/api/training/assignments/${assignment.id}`).json({ ...assignmentDto(fresh, work), mailSent });
   });
 
   router.get('/assignments/:id', async (req, res) => {
@@ -149,10 +176,7 @@ export function createTrainingRouter(): Router {
     const assignment = await teamAssignment(parseId(req.params['id'], 'assignment'), lead);
     const body = parseBody(assignmentAddBody, req.body);
     const ids = [...new Set(body.assigneeIds)];
-    const apprentices = await User.findAll({ where: { id: { [Op.in]: ids }, teamId: lead.teamId, role: 'apprentice', active: true } });
-    if (apprentices.length !== ids.length) {
-      throw new HttpError(400, 'Some fields are not valid.', { assigneeIds: 'Choose active apprentices of your team only.' });
-    }
+    const apprentices = await teamApprentices(lead, ids);
     await Assignment.sequelize!.transaction(async (transaction) => {
       // Locks the assignment row, so two leads adding the same apprentice at once cannot both do it.
       await Assignment.findOne({ where: { id: assignment.id }, lock: transaction.LOCK.UPDATE, transaction });
@@ -161,18 +185,11 @@ export function createTrainingRouter(): Router {
         const names = apprentices.filter((a) => already.some((w) => w.userId === a.id)).map((a) => a.name);
         throw new HttpError(409, `${names.join(', ')} already ${names.length === 1 ? 'has' : 'have'} this assignment; choose only apprentices who do not.`);
       }
-      for (const apprentice of apprentices) {
-        const work = await AssignmentWork.create({ assignmentId: assignment.id, userId: apprentice.id, seed: newSeed() }, { transaction });
-        await TrainingProblem.bulkCreate(plannedProblems(assignment.items, work.seed).map((p) => ({ ...p, workId: work.id })), { transaction });
-      }
+      await giveWork(assignment, apprentices, transaction);
     });
-    const total = assignment.items.reduce((n, i) => n + i.count, 0);
-    const timeZone = body.timeZone ?? 'UTC';
-    const sent = await Promise.all(
-      apprentices.map((a) => sendMail(assignmentMail(a.email, a.name, assignment.title, total, assignment.dueAt, lead.name, assignment.id, assignment.instructions, { timeZone }))),
-    );
+    const mailSent = await mailAssigned(assignment, apprentices, lead, body.timeZone);
     const work = await AssignmentWork.findAll({ where: { assignmentId: assignment.id }, include: workInclude });
-    res.status(201).json({ ...assignmentDto(assignment, work), mailSent: sent.filter(Boolean).length });
+    res.status(201).json({ ...assignmentDto(assignment, work), mailSent });
   });
 
   router.delete('/assignments/:id', leadOnly, async (req, res) => {
@@ -193,14 +210,7 @@ export function createTrainingRouter(): Router {
     const assignmentId = parseId(req.params['id'], 'assignment');
     const userId = parseId(req.params['userId'], 'apprentice');
     const assignment = await teamAssignment(assignmentId, lead);
-    const work = await AssignmentWork.findOne({
-      where: { assignmentId: assignment.id, userId },
-      include: [
-        { model: User, as: 'user', attributes: ['id', 'name'], where: { teamId: lead.teamId } },
-        { model: TrainingProblem, as: 'problems', include: [{ model: TrainingAttempt, as: 'attempts' }] },
-      ],
-    });
-    if (!work?.user) throw new HttpError(404, 'No work for that apprentice on this assignment.');
+    const work = await apprenticeWork(assignment, lead, userId, [{ model: TrainingProblem, as: 'problems', include: [{ model: TrainingAttempt, as: 'attempts' }] }]);
     const problems = [...(work.problems ?? [])].sort((a, b) => a.position - b.position);
     const review: WorkReviewDto = {
       assignment: assignmentDto(assignment, [work]),
@@ -218,11 +228,7 @@ export function createTrainingRouter(): Router {
     const userId = parseId(req.params['userId'], 'apprentice');
     const position = positionParam(req.params['position']);
     const body = parseBody(gradeBody, req.body);
-    const work = await AssignmentWork.findOne({
-      where: { assignmentId: assignment.id, userId },
-      include: [{ model: User, as: 'user', attributes: ['id', 'name'], where: { teamId: lead.teamId } }],
-    });
-    if (!work) throw new HttpError(404, 'No work for that apprentice on this assignment.');
+    const work = await apprenticeWork(assignment, lead, userId);
     const problem = await TrainingProblem.findOne({ where: { workId: work.id, position }, include: [{ model: TrainingAttempt, as: 'attempts' }] });
     if (!problem) throw new HttpError(404, `No problem ${position} in this work.`);
     if (!problem.closedAt) {

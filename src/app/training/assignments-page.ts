@@ -39,6 +39,14 @@ class RefusedField implements ErrorStateMatcher {
   }
 }
 
+/** The set with `id` ticked or not. */
+function withTicked(set: ReadonlySet<number>, id: number, on: boolean): ReadonlySet<number> {
+  const next = new Set(set);
+  if (on) next.add(id);
+  else next.delete(id);
+  return next;
+}
+
 /**
  * Assignments. An apprentice sees their own with status and score. A lead or admin creates
  * assignments for chosen apprentices and reads the score table, late and missing work marked.
@@ -124,12 +132,7 @@ export default class AssignmentsPage {
   }
 
   protected toggle(id: number, on: boolean): void {
-    this.chosen.update((set) => {
-      const next = new Set(set);
-      if (on) next.add(id);
-      else next.delete(id);
-      return next;
-    });
+    this.chosen.update((set) => withTicked(set, id, on));
   }
 
   /** Sends the new assignment; each chosen apprentice gets their own problems and an e-mail. */
@@ -214,12 +217,7 @@ export default class AssignmentsPage {
   }
 
   protected toggleAdd(id: number, on: boolean): void {
-    this.addChosen.update((set) => {
-      const next = new Set(set);
-      if (on) next.add(id);
-      else next.delete(id);
-      return next;
-    });
+    this.addChosen.update((set) => withTicked(set, id, on));
   }
 
   /** Gives the assignment to the ticked apprentices: each gets problems of their own and an e-mail. */
